@@ -1,0 +1,99 @@
+/**
+ * CSV export of readings: RFC 4180, UTF-8, one header row, one column per measured quantity named
+ * by its engine key (the unit is part of the name, e.g. `alkalinity_umol_kg`), local sampling time
+ * in ISO 8601 with its UTC offset, and optionally what the engine computes from each row.
+ * The file re-imports without any mapping work (see `guessRoles`).
+ */
+
+import { isSolveError } from '../chem/api';
+import { writeCsv } from './csv-write';
+import type { ReadingDoc, SiteDoc } from './docs';
+import { formatNumber } from './numbers';
+import { QUANTITIES } from './quantities';
+import { type Solver, solveInputOf } from './solve-input';
+import { formatWithOffset } from './timestamps';
+
+/** Outputs written when a solver is given, with our column names. */
+export const COMPUTED_COLUMNS = [
+  'alkalinity_umol_kg',
+  'dic_umol_kg',
+  'ph_total',
+  'ph_free',
+  'ph_nbs',
+  'pco2_uatm',
+  'co2_umol_kg',
+  'hco3_umol_kg',
+  'co3_umol_kg',
+  'omega_calcite',
+  'omega_aragonite',
+  'revelle_factor',
+] as const;
+
+const KEY_ORDER = QUANTITIES.flatMap((q) => q.units.map((u) => u.key)).filter(
+  (k, i, a) => a.indexOf(k) === i,
+);
+
+export interface ExportOptions {
+  /** Only this site's readings; all when absent. */
+  siteId?: string;
+  solve?: Solver;
+  withBom?: boolean;
+}
+
+export function exportReadingsCsv(
+  readings: readonly ReadingDoc[],
+  sites: readonly SiteDoc[],
+  options: ExportOptions = {},
+): string {
+  const byId = new Map(sites.map((s) => [s.id, s]));
+  const rows = readings
+    .filter((r) => !r.deleted && (options.siteId === undefined || r.siteId === options.siteId))
+    .sort((a, b) =>
+      a.siteId === b.siteId ? a.takenAt.localeCompare(b.takenAt) : a.siteId.localeCompare(b.siteId),
+    );
+  const present = new Set(rows.flatMap((r) => Object.keys(r.values)));
+  const valueKeys = KEY_ORDER.filter((k) => present.has(k));
+  const hasScale = rows.some((r) => r.options?.ph_scale !== undefined);
+  const header = [
+    'reading_id',
+    'site',
+    'site_id',
+    'taken_at',
+    'time_zone',
+    ...(hasScale ? ['ph_scale'] : []),
+    ...valueKeys,
+    'notes',
+    ...(options.solve
+      ? [...COMPUTED_COLUMNS.map((c) => `computed_${c}`), 'computed_model', 'computed_issues']
+      : []),
+  ];
+  const body = rows.map((r) => {
+    const site = byId.get(r.siteId);
+    const out = [
+      r.id,
+      site?.name ?? '',
+      r.siteId,
+      formatWithOffset(Date.parse(r.takenAt), r.timeZone),
+      r.timeZone,
+      ...(hasScale ? [r.options?.ph_scale ?? ''] : []),
+      ...valueKeys.map((k) => formatNumber(r.values[k])),
+      r.notes ?? '',
+    ];
+    if (options.solve) {
+      const res = options.solve(solveInputOf(r, site));
+      if (isSolveError(res)) {
+        out.push(...COMPUTED_COLUMNS.map(() => ''), '', `${res.error.code}: ${res.error.message}`);
+      } else {
+        out.push(
+          ...COMPUTED_COLUMNS.map((c) =>
+            formatNumber(typeof res[c] === 'number' ? (res[c] as number) : undefined),
+          ),
+          res.model,
+          res.warnings.map((w) => `${w.code}: ${w.message}`).join(' | '),
+        );
+      }
+    }
+    return out;
+  });
+  return writeCsv(header, body, { withBom: options.withBom ?? false });
+}

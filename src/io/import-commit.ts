@@ -1,0 +1,114 @@
+/**
+ * Computes and writes an import plan: all rows or none. A plan with any error writes nothing and
+ * returns the full error list; readings already in the database (same content id) are counted,
+ * not written again, which is what makes re-importing a file harmless.
+ */
+
+import { isSolveError } from '../chem/api';
+import type { BaseDoc, ReadingDoc, SiteDoc } from './docs';
+import type { ImportPlan } from './import-plan';
+import { type RowIssue, rowIssue } from './io-issues';
+import { type Solver, solveInputOf } from './solve-input';
+
+export interface ImportTarget {
+  /** Which of these ids already exist (tombstones count: a deleted reading is not revived). */
+  existingIds(ids: readonly string[]): Promise<Set<string>>;
+  /** Writes every doc in one transaction and queues each for sync; all or nothing. */
+  bulkPut(docs: BaseDoc[]): Promise<void>;
+}
+
+export interface ImportReport {
+  ok: boolean;
+  rows: number;
+  written: number;
+  alreadyPresent: number;
+  sitesCreated: number;
+  duplicateRows: RowIssue[];
+  errors: RowIssue[];
+  /** Rows that were stored but that the engine could not solve (e.g. too few parameters). */
+  warnings: RowIssue[];
+}
+
+export interface PreviewRow {
+  line: number;
+  reading: ReadingDoc;
+  result: ReturnType<Solver>;
+}
+
+function siteMap(plan: ImportPlan, sites: readonly SiteDoc[]): Map<string, SiteDoc> {
+  return new Map([...sites, ...plan.newSites].map((s) => [s.id, s]));
+}
+
+/** The first `n` planned rows with what the engine computes from them. */
+export function previewImport(
+  plan: ImportPlan,
+  sites: readonly SiteDoc[],
+  solve: Solver,
+  n = 10,
+): PreviewRow[] {
+  const byId = siteMap(plan, sites);
+  return plan.readings.slice(0, n).map((reading, i) => ({
+    line: plan.readingLines[i]!,
+    reading,
+    result: solve(solveInputOf(reading, byId.get(reading.siteId))),
+  }));
+}
+
+/** Runs the engine over every planned row; failures become row warnings (the data is still kept). */
+export function computeWarnings(plan: ImportPlan, sites: readonly SiteDoc[], solve: Solver): RowIssue[] {
+  const byId = siteMap(plan, sites);
+  const out: RowIssue[] = [];
+  plan.readings.forEach((reading, i) => {
+    const r = solve(solveInputOf(reading, byId.get(reading.siteId)));
+    if (isSolveError(r)) {
+      out.push(
+        rowIssue(
+          plan.readingLines[i]!,
+          'row-solve-failed',
+          `${r.error.message} (${r.error.code})`,
+          r.error.field,
+        ),
+      );
+    }
+  });
+  return out;
+}
+
+export async function commitImport(
+  plan: ImportPlan,
+  target: ImportTarget,
+  options: { solve?: Solver; sites?: readonly SiteDoc[] } = {},
+): Promise<ImportReport> {
+  const report: ImportReport = {
+    ok: false,
+    rows: plan.rowCount,
+    written: 0,
+    alreadyPresent: 0,
+    sitesCreated: 0,
+    duplicateRows: plan.duplicateRows,
+    errors: [...plan.errors].sort((a, b) => a.row - b.row),
+    warnings: [],
+  };
+  if (report.errors.length > 0) return report;
+  if (options.solve) report.warnings = computeWarnings(plan, options.sites ?? [], options.solve);
+  const existing = await target.existingIds([
+    ...plan.readings.map((r) => r.id),
+    ...plan.newSites.map((s) => s.id),
+  ]);
+  const sites = plan.newSites.filter((s) => !existing.has(s.id));
+  const readings = plan.readings.filter((r) => !existing.has(r.id));
+  try {
+    if (sites.length + readings.length > 0) await target.bulkPut([...sites, ...readings]);
+  } catch (e) {
+    const reason = e instanceof Error ? e.message : String(e);
+    report.errors.push(
+      rowIssue(0, 'store-write-failed', `Nothing was imported: the database refused the write (${reason}).`),
+    );
+    return report;
+  }
+  report.ok = true;
+  report.written = readings.length;
+  report.alreadyPresent = plan.readings.length - readings.length;
+  report.sitesCreated = sites.length;
+  return report;
+}

@@ -1,0 +1,216 @@
+/**
+ * Turns a parsed CSV and a column mapping into the documents an import would write, and a report
+ * of every problem by row and column. Nothing is written here: `import-commit.ts` writes the plan
+ * in one transaction, and only when it has no errors.
+ */
+
+import type { PhScaleName } from '../chem/api';
+import type { ColumnMapping } from './column-mapping';
+import { checkMapping } from './column-mapping';
+import { contentId, normalizeName, readingCanonical, siteCanonical } from './content-id';
+import type { ParsedCsv } from './csv-parse';
+import type { ReadingDoc, SiteDoc } from './docs';
+import { type RowIssue, rowIssue } from './io-issues';
+import { parseNumber } from './numbers';
+import { quantityById } from './quantities';
+import { isKnownTimeZone, parseTimestamp } from './timestamps';
+
+export interface ImportPlan {
+  readings: ReadingDoc[];
+  /** File line of each planned reading (same order as `readings`). */
+  readingLines: number[];
+  /** Sites named in the file that do not exist yet; created with the readings. */
+  newSites: SiteDoc[];
+  errors: RowIssue[];
+  /** Rows that repeat an earlier row of the same file (skipped, not an error). */
+  duplicateRows: RowIssue[];
+  rowCount: number;
+}
+
+const PH_SCALES: readonly PhScaleName[] = ['total', 'free', 'seawater', 'nbs'];
+
+/** Case-insensitive lookup of existing sites by id or name. */
+function siteIndex(sites: readonly SiteDoc[]): Map<string, SiteDoc> {
+  const m = new Map<string, SiteDoc>();
+  for (const s of sites) {
+    if (s.deleted) continue;
+    m.set(s.id.toLowerCase(), s);
+    m.set(normalizeName(s.name), s);
+  }
+  return m;
+}
+
+export async function planImport(
+  csv: ParsedCsv,
+  mapping: ColumnMapping,
+  sites: readonly SiteDoc[],
+  now: Date = new Date(),
+): Promise<ImportPlan> {
+  const { header, rows, lines } = csv.table;
+  const errors: RowIssue[] = [...csv.issues, ...checkMapping(header, mapping)];
+  const plan: ImportPlan = {
+    readings: [],
+    readingLines: [],
+    newSites: [],
+    errors,
+    duplicateRows: [],
+    rowCount: rows.length + csv.issues.filter((i) => i.code === 'csv-ragged-row').length,
+  };
+  if (!isKnownTimeZone(mapping.timeZone)) {
+    errors.push(
+      rowIssue(1, 'time-zone-unknown', `"${mapping.timeZone}" is not a time zone this device knows.`),
+    );
+  }
+  if (errors.some((e) => e.row === 1)) return plan;
+
+  const known = siteIndex(sites);
+  const fixedSite = mapping.siteId ? known.get(mapping.siteId.toLowerCase()) : undefined;
+  if (mapping.siteId && !fixedSite) {
+    errors.push(rowIssue(1, 'site-missing', 'The site chosen for these readings no longer exists.'));
+    return plan;
+  }
+  const created = new Map<string, SiteDoc>();
+  const updatedAt = now.toISOString();
+  const col = (role: string) => mapping.columns.findIndex((c) => c.role === role);
+  const cTimestamp = col('timestamp');
+  const cDate = col('date');
+  const cTime = col('time');
+  const cZone = col('time-zone');
+  const cSite = col('site');
+  const cNotes = col('notes');
+  const cScale = col('ph-scale');
+  const valueCols = mapping.columns.flatMap((c, i) => {
+    if (c.role !== 'value') return [];
+    const q = quantityById(c.quantity)!;
+    return [{ index: i, q, unit: q.units.find((x) => x.id === c.unit)! }];
+  });
+  const seenIds = new Map<string, number>();
+  const decimalComma = csv.sniff.decimalComma;
+
+  for (let r = 0; r < rows.length; r++) {
+    const row = rows[r]!;
+    const line = lines[r]!;
+    const rowErrors: RowIssue[] = [];
+    const cell = (i: number) => (i >= 0 ? (row[i] ?? '').trim() : '');
+
+    // Site
+    let site = fixedSite;
+    if (cSite >= 0) {
+      const name = cell(cSite);
+      if (name === '') {
+        rowErrors.push(rowIssue(line, 'site-missing', 'No site is given in this row.', header[cSite]));
+      } else {
+        site =
+          known.get(name.toLowerCase()) ?? known.get(normalizeName(name)) ?? created.get(normalizeName(name));
+        if (!site) {
+          site = {
+            id: await contentId(siteCanonical(name)),
+            type: 'site',
+            name: name.replace(/\s+/g, ' '),
+            timeZone: mapping.timeZone,
+            updatedAt,
+            deleted: false,
+          };
+          created.set(normalizeName(name), site);
+        }
+      }
+    }
+
+    // Time
+    const zone = cZone >= 0 && cell(cZone) !== '' ? cell(cZone) : mapping.timeZone;
+    if (!isKnownTimeZone(zone)) {
+      rowErrors.push(rowIssue(line, 'time-zone-unknown', `"${zone}" is not a time zone.`, header[cZone]));
+    }
+    const dateText = cTimestamp >= 0 ? cell(cTimestamp) : cell(cDate);
+    const timeColumn = header[cTimestamp >= 0 ? cTimestamp : cDate];
+    let takenAt: string | undefined;
+    if (dateText === '') {
+      rowErrors.push(rowIssue(line, 'time-missing', 'The sampling time is empty.', timeColumn));
+    } else if (isKnownTimeZone(zone)) {
+      const t = parseTimestamp(dateText, cTimestamp >= 0 ? undefined : cell(cTime), zone, mapping.dateOrder);
+      if ('reason' in t) rowErrors.push(rowIssue(line, 'time-unreadable', t.reason, timeColumn));
+      else takenAt = new Date(t.epochMs).toISOString();
+    }
+
+    // Values
+    const values: Record<string, number> = {};
+    for (const { index, q, unit } of valueCols) {
+      const raw = cell(index);
+      if (raw === '') continue;
+      const x = parseNumber(raw, decimalComma);
+      if (x === undefined) {
+        rowErrors.push(
+          rowIssue(
+            line,
+            'value-not-a-number',
+            `"${raw}" is not a number${decimalComma ? ' (this file uses a decimal comma)' : ''}.`,
+            header[index],
+          ),
+        );
+        continue;
+      }
+      const k = unit.toKey(x);
+      const [lo, hi] = q.limits;
+      if (k < lo || k > hi) {
+        rowErrors.push(
+          rowIssue(
+            line,
+            'value-out-of-range',
+            `${q.label} ${raw} ${unit.label} is outside ${lo}–${hi}.`,
+            header[index],
+          ),
+        );
+        continue;
+      }
+      values[unit.key] = k;
+    }
+    if (valueCols.length > 0 && Object.keys(values).length === 0 && rowErrors.length === 0) {
+      rowErrors.push(rowIssue(line, 'row-no-values', 'This row has no measured values.'));
+    }
+    const options: Record<string, string> = {};
+    const scale = cScale >= 0 && cell(cScale) !== '' ? cell(cScale).toLowerCase() : mapping.phScale;
+    if (scale !== undefined) {
+      if ((PH_SCALES as readonly string[]).includes(scale)) options.ph_scale = scale;
+      else
+        rowErrors.push(
+          rowIssue(
+            line,
+            'value-out-of-range',
+            `"${scale}" is not a pH scale (total, free, seawater, nbs).`,
+            header[cScale],
+          ),
+        );
+    }
+
+    if (rowErrors.length > 0 || !site || !takenAt) {
+      errors.push(...rowErrors);
+      continue;
+    }
+    const id = await contentId(readingCanonical(site.id, takenAt, values));
+    const earlier = seenIds.get(id);
+    if (earlier !== undefined) {
+      plan.duplicateRows.push(
+        rowIssue(line, 'row-duplicate', `Same site, time and values as line ${earlier}.`),
+      );
+      continue;
+    }
+    seenIds.set(id, line);
+    const reading: ReadingDoc = {
+      id,
+      type: 'reading',
+      siteId: site.id,
+      takenAt,
+      timeZone: zone,
+      values,
+      updatedAt,
+      deleted: false,
+    };
+    if (Object.keys(options).length > 0) reading.options = options;
+    const notes = cell(cNotes);
+    if (notes !== '') reading.notes = notes;
+    plan.readings.push(reading);
+    plan.readingLines.push(line);
+  }
+  plan.newSites = [...created.values()];
+  return plan;
+}

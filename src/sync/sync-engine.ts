@@ -1,0 +1,339 @@
+/**
+ * Two-way sync of the local database with one CouchDB database.
+ *
+ * One run: pull (`_changes` from the checkpoint, in pages), then push the outbox (`_bulk_docs` in
+ * batches, every response row checked). The checkpoint is kept locally and as a `_local` doc on
+ * the server; when the two disagree (server database recreated, device restored) the pull starts
+ * from 0, which is safe because applying a change twice is a no-op.
+ *
+ * Idempotent retries: a push whose answer was lost is sent again with the old `_rev` and meets a
+ * 409; the engine then reads the server's doc and, if it holds exactly our content, takes its
+ * revision as ours. Ids are our uuids, so nothing is ever created twice.
+ *
+ * Conflicts: a doc changed here and on the server (409 with other content, or a pulled change to a
+ * doc still in the outbox), or a doc the server holds with `_conflicts`, becomes a
+ * {@link ConflictRecord} with both versions. Nothing is overwritten or deleted until the user
+ * picks one side or a merge (`resolve`); meanwhile the doc is not pushed.
+ */
+
+import type { Issue } from '../chem/errors';
+import type { BaseDoc } from '../io/docs';
+import type { CouchClient, CouchDoc } from './couch-client';
+import { fromCouch, sameContent, toCouch } from './doc-codec';
+import { SyncError, syncIssue } from './sync-issues';
+import type { ConflictRecord, SyncStore } from './sync-store';
+
+export type SyncState = 'idle' | 'syncing' | 'waiting-to-retry' | 'error';
+
+export interface SyncStatus {
+  state: SyncState;
+  /** ISO time of the last run that finished without error. */
+  lastSyncAt: string | undefined;
+  pending: number;
+  conflicts: number;
+  /** What went wrong last, in words; cleared by a good run. */
+  error: Issue | undefined;
+  /** Docs the server refused for good (validation, permission), with its reason. */
+  rejected: Issue[];
+  /** When waiting to retry: ISO time of the next attempt. */
+  retryAt: string | undefined;
+}
+
+export interface SyncOptions {
+  deviceId: string;
+  pushBatch?: number;
+  pullLimit?: number;
+  maxAttempts?: number;
+  baseDelayMs?: number;
+  maxDelayMs?: number;
+  sleep?: (ms: number) => Promise<void>;
+  now?: () => Date;
+  random?: () => number;
+}
+
+export interface SyncRunResult {
+  pushed: number;
+  pulled: number;
+  conflicts: number;
+  attempts: number;
+}
+
+const CHECKPOINT = 'pull-checkpoint';
+const LAST_SYNC = 'last-sync-at';
+
+export class SyncEngine {
+  private running: Promise<SyncRunResult> | undefined;
+  private listeners = new Set<(s: SyncStatus) => void>();
+  private status: SyncStatus = {
+    state: 'idle',
+    lastSyncAt: undefined,
+    pending: 0,
+    conflicts: 0,
+    error: undefined,
+    rejected: [],
+    retryAt: undefined,
+  };
+  private readonly o: Required<SyncOptions>;
+
+  constructor(
+    private readonly store: SyncStore,
+    private readonly client: CouchClient,
+    options: SyncOptions,
+  ) {
+    this.o = {
+      pushBatch: 200,
+      pullLimit: 500,
+      maxAttempts: 6,
+      baseDelayMs: 1000,
+      maxDelayMs: 60000,
+      sleep: (ms) => new Promise((r) => setTimeout(r, ms)),
+      now: () => new Date(),
+      random: Math.random,
+      ...options,
+    };
+  }
+
+  subscribe(fn: (s: SyncStatus) => void): () => void {
+    this.listeners.add(fn);
+    fn(this.status);
+    return () => this.listeners.delete(fn);
+  }
+
+  getStatus(): SyncStatus {
+    return this.status;
+  }
+
+  private set(patch: Partial<SyncStatus>): void {
+    this.status = { ...this.status, ...patch };
+    for (const l of this.listeners) l(this.status);
+  }
+
+  /** Reads pending and conflict counts and the last sync time from the store. */
+  async refreshStatus(): Promise<SyncStatus> {
+    const [pending, conflicts, lastSyncAt] = await Promise.all([
+      this.store.outboxCount(),
+      this.store.conflicts(),
+      this.store.getMeta<string>(LAST_SYNC),
+    ]);
+    this.set({ pending, conflicts: conflicts.length, lastSyncAt });
+    return this.status;
+  }
+
+  /** Runs one sync with retries; calls while one runs share it (no double pushes). */
+  sync(): Promise<SyncRunResult> {
+    this.running ??= this.runWithRetry().finally(() => {
+      this.running = undefined;
+    });
+    return this.running;
+  }
+
+  private delayFor(attempt: number): number {
+    const exp = Math.min(this.o.maxDelayMs, this.o.baseDelayMs * 2 ** attempt);
+    return Math.round(exp * (0.5 + this.o.random() / 2)); // jitter so devices do not retry in step
+  }
+
+  private async runWithRetry(): Promise<SyncRunResult> {
+    const total: SyncRunResult = { pushed: 0, pulled: 0, conflicts: 0, attempts: 0 };
+    this.set({ state: 'syncing', rejected: [], retryAt: undefined });
+    for (let attempt = 0; ; attempt++) {
+      total.attempts = attempt + 1;
+      try {
+        await this.pull(total);
+        await this.push(total);
+        const at = this.o.now().toISOString();
+        await this.store.setMeta(LAST_SYNC, at);
+        await this.refreshStatus();
+        this.set({ state: 'idle', error: undefined, lastSyncAt: at, retryAt: undefined });
+        return total;
+      } catch (e) {
+        const err =
+          e instanceof SyncError
+            ? e
+            : new SyncError(
+                'sync-bad-response',
+                `Sync stopped: ${e instanceof Error ? e.message : String(e)}`,
+                false,
+              );
+        await this.refreshStatus().catch(() => undefined);
+        if (!err.retryable || attempt + 1 >= this.o.maxAttempts) {
+          this.set({ state: 'error', error: err.toIssue(), retryAt: undefined });
+          throw err;
+        }
+        const wait = this.delayFor(attempt);
+        this.set({
+          state: 'waiting-to-retry',
+          error: err.toIssue(),
+          retryAt: new Date(this.o.now().getTime() + wait).toISOString(),
+        });
+        await this.o.sleep(wait);
+        this.set({ state: 'syncing' });
+      }
+    }
+  }
+
+  private checkpointName(): string {
+    return `tufa-pull-${this.o.deviceId}`;
+  }
+
+  private async startSeq(): Promise<string | number> {
+    const local = await this.store.getMeta<string | number>(CHECKPOINT);
+    if (local === undefined) return 0;
+    const remote = await this.client.getLocal<{ last_seq?: string | number }>(this.checkpointName());
+    return remote && String(remote.last_seq) === String(local) ? local : 0;
+  }
+
+  private async pull(total: SyncRunResult): Promise<void> {
+    let since = await this.startSeq();
+    for (;;) {
+      const page = await this.client.changes(since, this.o.pullLimit);
+      const docs = page.results.flatMap((r) => (r.doc && !r.id.startsWith('_design/') ? [r.doc] : []));
+      if (docs.length > 0) await this.applyPulled(docs, total);
+      since = page.last_seq;
+      await this.store.setMeta(CHECKPOINT, since);
+      await this.client.putLocal(this.checkpointName(), { last_seq: since, device: this.o.deviceId });
+      if (page.results.length < this.o.pullLimit) return;
+    }
+  }
+
+  private async applyPulled(remoteDocs: CouchDoc[], total: SyncRunResult): Promise<void> {
+    const ids = remoteDocs.map((d) => d._id);
+    const [local, queue, open] = await Promise.all([
+      this.store.getDocs(ids),
+      this.store.outbox(),
+      this.store.conflicts(),
+    ]);
+    const queued = new Map(queue.map((e) => [e.docId, e]));
+    const conflicted = new Map(open.map((c) => [c.docId, c]));
+    const now = this.o.now();
+    const apply: BaseDoc[] = [];
+    const confirmed: { docId: string; rev: string; updatedAt: string }[] = [];
+    for (const rd of remoteDocs) {
+      const mine = local.get(rd._id);
+      const theirs = fromCouch(rd, mine, now);
+      if (!theirs) continue;
+      if (mine?.rev === rd._rev && !rd._conflicts?.length) continue; // our own write coming back
+      const pending = queued.get(rd._id);
+      const openConflict = conflicted.get(rd._id);
+      if (pending && mine && sameContent(mine, theirs)) {
+        confirmed.push({ docId: rd._id, rev: rd._rev!, updatedAt: mine.updatedAt });
+      } else if ((pending || openConflict) && mine) {
+        await this.recordConflict(openConflict?.local ?? mine, theirs, 'edit', []);
+        total.conflicts++;
+        continue;
+      } else {
+        apply.push(theirs);
+      }
+      if (rd._conflicts?.length) {
+        await this.recordConflict(theirs, theirs, 'server', rd._conflicts);
+        total.conflicts++;
+      }
+    }
+    if (confirmed.length) await this.store.markPushed(confirmed);
+    if (apply.length) await this.store.applyRemote(apply);
+    total.pulled += apply.length;
+  }
+
+  /**
+   * Keeps both versions. For a `server` conflict the local side is the first losing revision, read
+   * from the server, so the user sees exactly what each branch holds.
+   */
+  private async recordConflict(
+    local: BaseDoc,
+    remote: BaseDoc,
+    kind: ConflictRecord['kind'],
+    losingRevs: string[],
+  ) {
+    let mine = local;
+    if (kind === 'server' && losingRevs[0]) {
+      const loser = await this.client.getDoc(remote.id, losingRevs[0]);
+      if (loser) mine = fromCouch(loser, local, this.o.now()) ?? local;
+    }
+    await this.store.putConflict({
+      docId: remote.id,
+      kind,
+      local: mine,
+      remote,
+      losingRevs,
+      detectedAt: this.o.now().toISOString(),
+    });
+  }
+
+  private async push(total: SyncRunResult): Promise<void> {
+    const open = new Set((await this.store.conflicts()).map((c) => c.docId));
+    const entries = (await this.store.outbox()).filter((e) => !open.has(e.docId));
+    const rejected: Issue[] = [];
+    for (let i = 0; i < entries.length; i += this.o.pushBatch) {
+      const batch = entries.slice(i, i + this.o.pushBatch);
+      const docs = await this.store.getDocs(batch.map((e) => e.docId));
+      const gone = batch.filter((e) => !docs.has(e.docId)).map((e) => e.docId);
+      if (gone.length) await this.store.dropOutbox(gone);
+      const sent = [...docs.values()];
+      if (sent.length === 0) continue;
+      const rows = await this.client.bulkDocs(sent.map(toCouch));
+      const byId = new Map(rows.map((r) => [r.id, r]));
+      const ok: { docId: string; rev: string; updatedAt: string }[] = [];
+      const missing: string[] = [];
+      for (const d of sent) {
+        const row = byId.get(d.id);
+        if (!row) {
+          missing.push(d.id);
+        } else if (row.error === undefined && row.rev) {
+          ok.push({ docId: d.id, rev: row.rev, updatedAt: d.updatedAt });
+        } else if (row.error === 'conflict') {
+          const server = await this.client.getDoc(d.id);
+          if (server && sameContent(server, toCouch(d))) {
+            ok.push({ docId: d.id, rev: server._rev!, updatedAt: d.updatedAt }); // our earlier write, answer lost
+          } else if (server) {
+            const theirs = fromCouch(server, d, this.o.now());
+            if (theirs) {
+              await this.recordConflict(d, theirs, 'edit', []);
+              total.conflicts++;
+            }
+          }
+        } else {
+          rejected.push(
+            syncIssue(
+              'sync-doc-rejected',
+              `The server refused ${d.type} ${d.id}: ${row.error ?? 'no revision in the answer'}${row.reason ? ` (${row.reason})` : ''}.`,
+            ),
+          );
+        }
+      }
+      if (ok.length) await this.store.markPushed(ok);
+      total.pushed += ok.length;
+      if (missing.length) {
+        throw new SyncError(
+          'sync-bad-response',
+          `The server's answer left out ${missing.length} of the documents sent; Tufa will try again.`,
+          true,
+        );
+      }
+      this.set({ pending: await this.store.outboxCount() });
+    }
+    if (rejected.length) this.set({ rejected });
+  }
+
+  /**
+   * Ends a conflict with the user's choice: this device's version, the server's, or a merged doc.
+   * The chosen content becomes a new revision on top of the server's and is queued for push
+   * (stored here first, so nothing is lost if the device goes offline now); for a `server`
+   * conflict the losing branches are then removed from the server.
+   */
+  async resolve(docId: string, choice: 'local' | 'remote' | { merged: BaseDoc }): Promise<void> {
+    const c = (await this.store.conflicts()).find((x) => x.docId === docId);
+    if (!c) return;
+    const now = this.o.now().toISOString();
+    if (choice === 'remote' && c.kind === 'edit') {
+      await this.store.applyRemote([c.remote]);
+      await this.store.dropOutbox([docId]);
+    } else {
+      const base = choice === 'local' ? c.local : choice === 'remote' ? c.remote : choice.merged;
+      await this.store.putLocal({ ...base, id: docId, rev: c.remote.rev, updatedAt: now });
+    }
+    if (c.kind === 'server') {
+      for (const rev of c.losingRevs) await this.client.deleteRev(docId, rev);
+    }
+    await this.store.deleteConflict(docId);
+    await this.refreshStatus();
+  }
+}

@@ -1,0 +1,39 @@
+/**
+ * Sync errors and warnings in words, with stable codes. `retryable` says whether waiting and
+ * trying again can help (network down, server busy) or the user must act (wrong password).
+ */
+
+import type { Issue } from '../chem/errors';
+
+export type SyncCode =
+  | 'sync-bad-url'
+  | 'sync-insecure-http'
+  | 'sync-not-configured'
+  | 'sync-offline'
+  | 'sync-timeout'
+  | 'sync-auth-failed'
+  | 'sync-forbidden'
+  | 'sync-db-missing'
+  | 'sync-server-error'
+  | 'sync-bad-response'
+  | 'sync-doc-rejected';
+
+export class SyncError extends Error {
+  readonly code: SyncCode;
+  readonly retryable: boolean;
+  readonly status: number | undefined;
+  constructor(code: SyncCode, message: string, retryable: boolean, status?: number) {
+    super(message);
+    this.name = 'SyncError';
+    this.code = code;
+    this.retryable = retryable;
+    this.status = status;
+  }
+  toIssue(): Issue {
+    return { code: this.code, message: this.message };
+  }
+}
+
+export function syncIssue(code: SyncCode, message: string, field?: string): Issue {
+  return field === undefined ? { code, message } : { code, message, field };
+}

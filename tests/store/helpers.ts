@@ -10,5 +10,11 @@ export async function freshRepo(
   let t = Date.parse('2026-05-01T08:00:00Z');
   let ids = 0;
   const repo = await openRepository({ name, now: () => new Date(t), newId: () => `id-${++ids}`, ...opts });
-  return { repo, name, tick: (ms = 1000) => void (t += ms) };
+  return {
+    repo,
+    name,
+    tick: (ms = 1000) => {
+      t += ms;
+    },
+  };
 }

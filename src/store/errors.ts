@@ -1,0 +1,67 @@
+/**
+ * Errors of the on-device store, as `{ code, message }` values the UI can show. The browser reports
+ * IndexedDB failures as DOMExceptions with names; this turns the ones a user can act on into
+ * stable codes with plain-language messages.
+ */
+
+import { type Issue, TufaError } from '../chem/errors';
+
+export const STORE_ERROR_CODES = [
+  'store-quota-exceeded',
+  'store-upgrade-blocked',
+  'store-version-newer',
+  'store-unavailable',
+  'store-not-found',
+  'store-invalid-doc',
+  'store-write-failed',
+] as const;
+export type StoreErrorCode = (typeof STORE_ERROR_CODES)[number];
+
+export function storeError(code: StoreErrorCode, message: string, field?: string): TufaError {
+  return new TufaError(code, message, field);
+}
+
+const MESSAGES: Record<string, [StoreErrorCode, string]> = {
+  QuotaExceededError: [
+    'store-quota-exceeded',
+    'The device has no room left for Tufa’s data. Nothing was saved by this action; your earlier ' +
+      'readings are safe. Free some space or sync/export and try again.',
+  ],
+  VersionError: [
+    'store-version-newer',
+    'This page is older than the data on this device (another tab runs a newer Tufa). Reload the page.',
+  ],
+  InvalidStateError: [
+    'store-unavailable',
+    'The on-device database is closed or unavailable (private browsing, or another tab is upgrading it). Reload the page.',
+  ],
+  UnknownError: [
+    'store-unavailable',
+    'The browser could not open its on-device database. Reload the page; if it persists, restart the browser.',
+  ],
+};
+
+/** Any failure of a store call as an Issue; TufaErrors keep their code. */
+export function storeIssue(e: unknown): Issue {
+  if (e instanceof TufaError) return e.toIssue();
+  const name =
+    typeof e === 'object' && e !== null && 'name' in e ? String((e as { name: unknown }).name) : '';
+  const known = MESSAGES[name];
+  if (known) return { code: known[0], message: known[1] };
+  const text = e instanceof Error ? e.message : String(e);
+  return { code: 'store-write-failed', message: `The on-device database refused the change: ${text}` };
+}
+
+/** Rethrows anything as a TufaError with a store code, so callers only ever see `{code, message}`. */
+export function asStoreError(e: unknown): TufaError {
+  if (e instanceof TufaError) return e;
+  const issue = storeIssue(e);
+  return new TufaError(issue.code, issue.message);
+}
+
+export const UPGRADE_BLOCKED: Issue = {
+  code: 'store-upgrade-blocked',
+  message:
+    'Tufa needs to update its on-device database, but another tab or window with Tufa is still open. ' +
+    'Close the other Tufa tabs; this page continues by itself once they are closed.',
+};

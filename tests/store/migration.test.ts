@@ -1,0 +1,64 @@
+import 'fake-indexeddb/auto';
+import { describe, expect, it } from 'vitest';
+import { LATEST_VERSION, openTufaDb } from '../../src/store/database';
+import { openRepository } from '../../src/store/repository';
+import type { ReadingDoc, SiteDoc } from '../../src/store/schema';
+
+describe('schema migrations', () => {
+  it('upgrades a database written by v1 to the latest version with its data intact', async () => {
+    const name = `tufa-migrate-${process.pid}`;
+    const v1 = await openTufaDb({ name, version: 1 });
+    expect([...v1.objectStoreNames].sort()).toEqual([
+      'conflicts',
+      'outbox',
+      'readings',
+      'settings',
+      'sites',
+      'syncMeta',
+    ]);
+    const site: SiteDoc = {
+      id: 's1',
+      type: 'site',
+      name: 'Holloway well',
+      kind: 'well',
+      defaults: {},
+      notes: 'v1 data',
+      updatedAt: '2026-03-01T00:00:00.000Z',
+      deleted: false,
+      rev: '1-x',
+    };
+    const reading: ReadingDoc = {
+      id: 'r1',
+      type: 'reading',
+      siteId: 's1',
+      takenAt: '2026-03-01T09:30:00.000Z',
+      timeZone: 'UTC',
+      values: [{ quantity: 'ph', value: 7.05, unit: 'ph' }],
+      notes: '',
+      updatedAt: '2026-03-01T09:31:00.000Z',
+      deleted: false,
+    };
+    await v1.put('sites', site);
+    await v1.put('readings', reading);
+    await v1.put('outbox', { docId: 'r1', type: 'reading', updatedAt: reading.updatedAt });
+    await v1.put('settings', { key: 'theme', value: 'dark' });
+    v1.close();
+
+    const repo = await openRepository({ name });
+    expect(repo.db.version).toBe(LATEST_VERSION);
+    expect(LATEST_VERSION).toBeGreaterThanOrEqual(2);
+    expect(await repo.getSite('s1')).toEqual(site);
+    expect(await repo.listReadings('s1')).toEqual([reading]);
+    expect(await repo.listOutbox()).toHaveLength(1);
+    expect((await repo.getSettings()).theme).toBe('dark');
+    // What v2 added works on the old data: the layouts store and readings by change time.
+    expect(await repo.db.getAllFromIndex('readings', 'byUpdatedAt')).toEqual([reading]);
+    await repo.putLayout({ name: 'x', headerSignature: 'a,b', columns: {} });
+    expect(await repo.listLayouts()).toHaveLength(1);
+    repo.close();
+  });
+
+  it('refuses a version that does not exist', async () => {
+    await expect(openTufaDb({ name: 'never', version: LATEST_VERSION + 1 })).rejects.toThrow(RangeError);
+  });
+});

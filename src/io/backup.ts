@@ -13,7 +13,7 @@
  */
 
 import type { Issue } from '../chem/errors';
-import type { BaseDoc, ReadingDoc, SiteDoc } from './docs';
+import type { ReadingDoc, SiteDoc, TufaDoc } from './docs';
 import { type IoCode, ioIssue } from './io-issues';
 
 export const BACKUP_FORMAT = 'tufa-backup';
@@ -36,12 +36,12 @@ export interface Backup {
 }
 
 export interface BackupStore {
-  allDocs(): Promise<BaseDoc[]>;
+  allDocs(): Promise<TufaDoc[]>;
   allSettings(): Promise<KeyValue[]>;
   allLayouts(): Promise<KeyValue[]>;
-  getDocs(ids: readonly string[]): Promise<Map<string, BaseDoc>>;
+  getDocs(ids: readonly string[]): Promise<Map<string, TufaDoc>>;
   /** One transaction, queued for sync; all or nothing. */
-  bulkPut(docs: BaseDoc[]): Promise<void>;
+  bulkPut(docs: TufaDoc[]): Promise<void>;
   putSettings(entries: KeyValue[]): Promise<void>;
   putLayouts(entries: KeyValue[]): Promise<void>;
 }
@@ -59,10 +59,10 @@ export function withoutSecrets(value: unknown): unknown {
   return value;
 }
 
-function stripRev(d: BaseDoc): BaseDoc {
+function stripRev<T extends TufaDoc>(d: T): T {
   // The server revision belongs to this device's sync state, not to the data.
   const { rev: _rev, ...rest } = d;
-  return rest as BaseDoc;
+  return rest as T;
 }
 
 export async function createBackup(store: BackupStore, now: Date = new Date()): Promise<Backup> {
@@ -114,7 +114,16 @@ function checkDoc(d: unknown, type: 'site' | 'reading', i: number): string | und
     if (typeof d.siteId !== 'string') return `reading ${d.id} has no siteId`;
     if (typeof d.takenAt !== 'string' || Number.isNaN(Date.parse(d.takenAt)))
       return `reading ${d.id} has no valid takenAt`;
-    if (!isObj(d.values) || Object.values(d.values).some((v) => typeof v !== 'number' || !Number.isFinite(v)))
+    if (
+      !Array.isArray(d.values) ||
+      d.values.some(
+        (v) =>
+          !isObj(v) ||
+          typeof v.quantity !== 'string' ||
+          typeof v.value !== 'number' ||
+          !Number.isFinite(v.value),
+      )
+    )
       return `reading ${d.id} has values that are not finite numbers`;
   } else if (typeof d.name !== 'string') return `site ${d.id} has no name`;
   return undefined;
@@ -172,9 +181,9 @@ export interface RestoreReport {
 }
 
 export async function restoreBackup(store: BackupStore, backup: Backup): Promise<RestoreReport> {
-  const incoming: BaseDoc[] = [...backup.sites, ...backup.readings].map(stripRev);
+  const incoming: TufaDoc[] = [...backup.sites, ...backup.readings].map((d) => stripRev<TufaDoc>(d));
   const existing = await store.getDocs(incoming.map((d) => d.id));
-  const toWrite: BaseDoc[] = [];
+  const toWrite: TufaDoc[] = [];
   let added = 0;
   let replaced = 0;
   for (const d of incoming) {

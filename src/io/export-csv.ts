@@ -9,8 +9,8 @@ import { isSolveError } from '../chem/api';
 import { writeCsv } from './csv-write';
 import type { ReadingDoc, SiteDoc } from './docs';
 import { formatNumber } from './numbers';
-import { QUANTITIES } from './quantities';
-import { type Solver, solveInputOf } from './solve-input';
+import { KEY_ORDER } from './quantities';
+import { engineValues, type Solver, solveInputOf } from './solve-input';
 import { formatWithOffset } from './timestamps';
 
 /** Outputs written when a solver is given, with our column names. */
@@ -28,10 +28,6 @@ export const COMPUTED_COLUMNS = [
   'omega_aragonite',
   'revelle_factor',
 ] as const;
-
-const KEY_ORDER = QUANTITIES.flatMap((q) => q.units.map((u) => u.key)).filter(
-  (k, i, a) => a.indexOf(k) === i,
-);
 
 export interface ExportOptions {
   /** Only this site's readings; all when absent. */
@@ -51,9 +47,10 @@ export function exportReadingsCsv(
     .sort((a, b) =>
       a.siteId === b.siteId ? a.takenAt.localeCompare(b.takenAt) : a.siteId.localeCompare(b.siteId),
     );
-  const present = new Set(rows.flatMap((r) => Object.keys(r.values)));
+  const converted = rows.map((r) => engineValues(r));
+  const present = new Set(converted.flatMap((c) => Object.keys(c.values)));
   const valueKeys = KEY_ORDER.filter((k) => present.has(k));
-  const hasScale = rows.some((r) => r.options?.ph_scale !== undefined);
+  const hasScale = present.has('ph');
   const header = [
     'reading_id',
     'site',
@@ -67,17 +64,18 @@ export function exportReadingsCsv(
       ? [...COMPUTED_COLUMNS.map((c) => `computed_${c}`), 'computed_model', 'computed_issues']
       : []),
   ];
-  const body = rows.map((r) => {
+  const body = rows.map((r, i) => {
     const site = byId.get(r.siteId);
+    const { values, options: opts } = converted[i]!;
     const out = [
       r.id,
       site?.name ?? '',
       r.siteId,
       formatWithOffset(Date.parse(r.takenAt), r.timeZone),
       r.timeZone,
-      ...(hasScale ? [r.options?.ph_scale ?? ''] : []),
-      ...valueKeys.map((k) => formatNumber(r.values[k])),
-      r.notes ?? '',
+      ...(hasScale ? [opts.ph_scale ?? ''] : []),
+      ...valueKeys.map((k) => formatNumber(values[k])),
+      r.notes,
     ];
     if (options.solve) {
       const res = options.solve(solveInputOf(r, site));

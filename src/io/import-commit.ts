@@ -5,7 +5,7 @@
  */
 
 import { isSolveError } from '../chem/api';
-import type { BaseDoc, ReadingDoc, SiteDoc } from './docs';
+import type { ReadingDoc, SiteDoc, TufaDoc } from './docs';
 import type { ImportPlan } from './import-plan';
 import { type RowIssue, rowIssue } from './io-issues';
 import { type Solver, solveInputOf } from './solve-input';
@@ -14,7 +14,7 @@ export interface ImportTarget {
   /** Which of these ids already exist (tombstones count: a deleted reading is not revived). */
   existingIds(ids: readonly string[]): Promise<Set<string>>;
   /** Writes every doc in one transaction and queues each for sync; all or nothing. */
-  bulkPut(docs: BaseDoc[]): Promise<void>;
+  bulkPut(docs: TufaDoc[]): Promise<void>;
 }
 
 export interface ImportReport {

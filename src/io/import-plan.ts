@@ -4,12 +4,11 @@
  * in one transaction, and only when it has no errors.
  */
 
-import type { PhScaleName } from '../chem/api';
 import type { ColumnMapping } from './column-mapping';
 import { checkMapping } from './column-mapping';
 import { contentId, normalizeName, readingCanonical, siteCanonical } from './content-id';
 import type { ParsedCsv } from './csv-parse';
-import type { ReadingDoc, SiteDoc } from './docs';
+import type { MeasuredValue, ReadingDoc, SiteDoc } from './docs';
 import { type RowIssue, rowIssue } from './io-issues';
 import { parseNumber } from './numbers';
 import { quantityById } from './quantities';
@@ -26,8 +25,6 @@ export interface ImportPlan {
   duplicateRows: RowIssue[];
   rowCount: number;
 }
-
-const PH_SCALES: readonly PhScaleName[] = ['total', 'free', 'seawater', 'nbs'];
 
 /** Case-insensitive lookup of existing sites by id or name. */
 function siteIndex(sites: readonly SiteDoc[]): Map<string, SiteDoc> {
@@ -107,7 +104,9 @@ export async function planImport(
             id: await contentId(siteCanonical(name)),
             type: 'site',
             name: name.replace(/\s+/g, ' '),
-            timeZone: mapping.timeZone,
+            kind: 'other',
+            defaults: {},
+            notes: 'Created by CSV import.',
             updatedAt,
             deleted: false,
           };
@@ -132,7 +131,23 @@ export async function planImport(
       else takenAt = new Date(t.epochMs).toISOString();
     }
 
-    // Values
+    // Values: kept as written (quantity, number, unit); the id uses the converted engine values.
+    const scaleText = cScale >= 0 ? cell(cScale).toLowerCase() : '';
+    let scale = mapping.phScale;
+    if (scaleText !== '') {
+      if ((['total', 'free', 'seawater', 'nbs'] as const).some((x) => x === scaleText))
+        scale = scaleText as typeof scale;
+      else
+        rowErrors.push(
+          rowIssue(
+            line,
+            'value-out-of-range',
+            `"${scaleText}" is not a pH scale (total, free, seawater, nbs).`,
+            header[cScale],
+          ),
+        );
+    }
+    const measured: MeasuredValue[] = [];
     const values: Record<string, number> = {};
     for (const { index, q, unit } of valueCols) {
       const raw = cell(index);
@@ -162,24 +177,13 @@ export async function planImport(
         );
         continue;
       }
+      const unitId = q.id === 'ph' && scale ? scale : unit.id;
+      measured.push({ quantity: q.id, value: x, unit: unitId });
       values[unit.key] = k;
+      if (q.id === 'ph') values.ph_scale_code = ['nbs', 'total', 'free', 'seawater'].indexOf(unitId);
     }
-    if (valueCols.length > 0 && Object.keys(values).length === 0 && rowErrors.length === 0) {
+    if (valueCols.length > 0 && measured.length === 0 && rowErrors.length === 0) {
       rowErrors.push(rowIssue(line, 'row-no-values', 'This row has no measured values.'));
-    }
-    const options: Record<string, string> = {};
-    const scale = cScale >= 0 && cell(cScale) !== '' ? cell(cScale).toLowerCase() : mapping.phScale;
-    if (scale !== undefined) {
-      if ((PH_SCALES as readonly string[]).includes(scale)) options.ph_scale = scale;
-      else
-        rowErrors.push(
-          rowIssue(
-            line,
-            'value-out-of-range',
-            `"${scale}" is not a pH scale (total, free, seawater, nbs).`,
-            header[cScale],
-          ),
-        );
     }
 
     if (rowErrors.length > 0 || !site || !takenAt) {
@@ -201,13 +205,11 @@ export async function planImport(
       siteId: site.id,
       takenAt,
       timeZone: zone,
-      values,
+      values: measured,
+      notes: cell(cNotes),
       updatedAt,
       deleted: false,
     };
-    if (Object.keys(options).length > 0) reading.options = options;
-    const notes = cell(cNotes);
-    if (notes !== '') reading.notes = notes;
     plan.readings.push(reading);
     plan.readingLines.push(line);
   }

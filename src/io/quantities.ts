@@ -17,6 +17,8 @@ export interface UnitChoice {
   key: string;
   /** From the file's unit into the key's unit. */
   toKey: (x: number) => number;
+  /** Engine options this unit implies (the pH scale is the "unit" of a pH value). */
+  options?: Record<string, string>;
 }
 
 export interface QuantityDef {
@@ -61,7 +63,15 @@ export const QUANTITIES: readonly QuantityDef[] = [
     units: [u('dbar', 'dbar', 'pressure_dbar'), u('bar', 'bar', 'pressure_dbar', times(10))],
     limits: [0, 12000],
   },
-  { id: 'ph', label: 'pH', units: [u('ph', 'pH units', 'ph')], limits: [0, 14] },
+  {
+    id: 'ph',
+    label: 'pH',
+    units: (['nbs', 'total', 'free', 'seawater'] as const).map((scale) => ({
+      ...u(scale, `pH (${scale === 'nbs' ? 'NBS' : scale} scale)`, 'ph'),
+      options: { ph_scale: scale },
+    })),
+    limits: [0, 14],
+  },
   {
     id: 'alkalinity',
     label: 'Alkalinity',
@@ -126,11 +136,7 @@ export function unitOf(quantity: string, unit: string): UnitChoice | undefined {
   return byId.get(quantity)?.units.find((x) => x.id === unit);
 }
 
-/** The quantity and unit whose engine key and unit a stored value has (for export headers). */
-export function quantityForKey(key: string): { quantity: QuantityDef; unit: UnitChoice } | undefined {
-  for (const q of QUANTITIES) {
-    const unit = q.units.find((x) => x.key === key && x.toKey === same);
-    if (unit) return { quantity: q, unit };
-  }
-  return undefined;
-}
+/** Engine keys in catalogue order, each once (export column order). */
+export const KEY_ORDER: readonly string[] = QUANTITIES.flatMap((q) => q.units.map((x) => x.key)).filter(
+  (k, i, a) => a.indexOf(k) === i,
+);

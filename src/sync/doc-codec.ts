@@ -4,23 +4,23 @@
  * field as it is. Tombstones stay ordinary docs with `deleted: true` so their `updatedAt` survives.
  */
 
-import type { BaseDoc } from '../io/docs';
+import type { TufaDoc } from '../io/docs';
 import type { CouchDoc } from './couch-client';
 
-export function toCouch(doc: BaseDoc): CouchDoc {
+export function toCouch(doc: TufaDoc): CouchDoc {
   const { id, rev, ...rest } = doc;
   return rev === undefined ? { _id: id, ...rest } : { _id: id, _rev: rev, ...rest };
 }
 
 /** Our doc from a server doc, or `undefined` for a CouchDB deletion of a doc we never had. */
-export function fromCouch(c: CouchDoc, local: BaseDoc | undefined, now: Date): BaseDoc | undefined {
+export function fromCouch(c: CouchDoc, local: TufaDoc | undefined, now: Date): TufaDoc | undefined {
   const { _id, _rev, _deleted, _conflicts, _revisions, _attachments, ...rest } = c;
   if (_deleted) {
     // Deleted through the CouchDB API by another tool: keep a tombstone of what we had.
     if (!local) return undefined;
     return { ...local, deleted: true, updatedAt: now.toISOString(), rev: _rev };
   }
-  return { ...(rest as Omit<BaseDoc, 'id'>), id: _id, rev: _rev } as BaseDoc;
+  return { ...(rest as Omit<TufaDoc, 'id'>), id: _id, rev: _rev } as TufaDoc;
 }
 
 function stable(x: unknown): string {
@@ -35,6 +35,6 @@ function stable(x: unknown): string {
 }
 
 /** Same data, ignoring ids and revisions: how a retried push recognizes its own earlier write. */
-export function sameContent(a: BaseDoc | CouchDoc, b: BaseDoc | CouchDoc): boolean {
+export function sameContent(a: TufaDoc | CouchDoc, b: TufaDoc | CouchDoc): boolean {
   return stable(a) === stable(b);
 }

@@ -17,11 +17,11 @@
  */
 
 import type { Issue } from '../chem/errors';
-import type { BaseDoc } from '../io/docs';
+import type { TufaDoc } from '../io/docs';
 import type { CouchClient, CouchDoc } from './couch-client';
 import { fromCouch, sameContent, toCouch } from './doc-codec';
 import { SyncError, syncIssue } from './sync-issues';
-import type { ConflictRecord, SyncStore } from './sync-store';
+import type { OtherVersion, SyncStore } from './sync-store';
 
 export type SyncState = 'idle' | 'syncing' | 'waiting-to-retry' | 'error';
 
@@ -202,60 +202,88 @@ export class SyncEngine {
       this.store.outbox(),
       this.store.conflicts(),
     ]);
-    const queued = new Map(queue.map((e) => [e.docId, e]));
+    const queued = new Set(queue.map((e) => e.docId));
     const conflicted = new Map(open.map((c) => [c.docId, c]));
     const now = this.o.now();
-    const apply: BaseDoc[] = [];
+    const apply: TufaDoc[] = [];
+    const seen = new Map<string, string | undefined>();
     const confirmed: { docId: string; rev: string; updatedAt: string }[] = [];
+    const serverBranches: CouchDoc[] = [];
+    const edits: { mine: TufaDoc; theirs: TufaDoc }[] = [];
     for (const rd of remoteDocs) {
       const mine = local.get(rd._id);
       const theirs = fromCouch(rd, mine, now);
-      if (!theirs) continue;
-      if (mine?.rev === rd._rev && !rd._conflicts?.length) continue; // our own write coming back
-      const pending = queued.get(rd._id);
-      const openConflict = conflicted.get(rd._id);
-      if (pending && mine && sameContent(mine, theirs)) {
-        confirmed.push({ docId: rd._id, rev: rd._rev!, updatedAt: mine.updatedAt });
-      } else if ((pending || openConflict) && mine) {
-        await this.recordConflict(openConflict?.local ?? mine, theirs, 'edit', []);
-        total.conflicts++;
+      if (!theirs || !rd._rev) continue;
+      if (rd._conflicts?.length) serverBranches.push(rd);
+      if (mine?.rev === rd._rev) continue; // our own write coming back
+      if ((queued.has(rd._id) || conflicted.has(rd._id)) && mine) {
+        if (sameContent(mine, theirs))
+          confirmed.push({ docId: rd._id, rev: rd._rev, updatedAt: mine.updatedAt });
+        else edits.push({ mine, theirs });
         continue;
-      } else {
-        apply.push(theirs);
       }
-      if (rd._conflicts?.length) {
-        await this.recordConflict(theirs, theirs, 'server', rd._conflicts);
-        total.conflicts++;
-      }
+      apply.push(theirs);
+      seen.set(rd._id, mine?.updatedAt);
     }
     if (confirmed.length) await this.store.markPushed(confirmed);
-    if (apply.length) await this.store.applyRemote(apply);
-    total.pulled += apply.length;
+    const changedMeanwhile = new Set(apply.length ? await this.store.applyRemote(apply, seen) : []);
+    total.pulled += apply.length - changedMeanwhile.size;
+    if (changedMeanwhile.size) {
+      const now2 = await this.store.getDocs([...changedMeanwhile]);
+      for (const d of apply) {
+        const mine = now2.get(d.id);
+        if (changedMeanwhile.has(d.id) && mine) edits.push({ mine, theirs: d });
+      }
+    }
+    const editById = new Map(edits.map((e) => [e.mine.id, e]));
+    for (const { mine, theirs } of edits) {
+      if (serverBranches.some((b) => b._id === mine.id)) continue;
+      await this.store.putConflict({
+        docId: mine.id,
+        kind: 'edit',
+        local: mine,
+        others: [{ rev: theirs.rev!, doc: theirs }],
+        baseRev: theirs.rev,
+        deleteRevs: [],
+        detectedAt: now.toISOString(),
+      });
+      total.conflicts++;
+    }
+    for (const rd of serverBranches) {
+      if (await this.recordServerConflict(rd, editById.get(rd._id)?.mine)) total.conflicts++;
+    }
   }
 
   /**
-   * Keeps both versions. For a `server` conflict the local side is the first losing revision, read
-   * from the server, so the user sees exactly what each branch holds.
+   * Reads every losing branch from the server so the user sees exactly what each one holds. When
+   * this device also changed the doc, its version is `local` and the server's winner is one more
+   * "other" version.
    */
-  private async recordConflict(
-    local: BaseDoc,
-    remote: BaseDoc,
-    kind: ConflictRecord['kind'],
-    losingRevs: string[],
-  ) {
-    let mine = local;
-    if (kind === 'server' && losingRevs[0]) {
-      const loser = await this.client.getDoc(remote.id, losingRevs[0]);
-      if (loser) mine = fromCouch(loser, local, this.o.now()) ?? local;
+  private async recordServerConflict(winner: CouchDoc, pendingMine: TufaDoc | undefined): Promise<boolean> {
+    const current = pendingMine ?? (await this.store.getDocs([winner._id])).get(winner._id);
+    if (!current || !winner._rev) return false;
+    const now = this.o.now();
+    const others: OtherVersion[] = [];
+    if (pendingMine) {
+      const w = fromCouch(winner, current, now);
+      if (w) others.push({ rev: winner._rev, doc: w });
     }
+    for (const rev of winner._conflicts ?? []) {
+      const loser = await this.client.getDoc(winner._id, rev);
+      const doc = loser && fromCouch(loser, current, now);
+      if (doc) others.push({ rev, doc });
+    }
+    if (others.length === 0) return false;
     await this.store.putConflict({
-      docId: remote.id,
-      kind,
-      local: mine,
-      remote,
-      losingRevs,
-      detectedAt: this.o.now().toISOString(),
+      docId: winner._id,
+      kind: 'server',
+      local: current,
+      others,
+      baseRev: winner._rev,
+      deleteRevs: winner._conflicts ?? [],
+      detectedAt: now.toISOString(),
     });
+    return true;
   }
 
   private async push(total: SyncRunResult): Promise<void> {
@@ -285,8 +313,16 @@ export class SyncEngine {
             ok.push({ docId: d.id, rev: server._rev!, updatedAt: d.updatedAt }); // our earlier write, answer lost
           } else if (server) {
             const theirs = fromCouch(server, d, this.o.now());
-            if (theirs) {
-              await this.recordConflict(d, theirs, 'edit', []);
+            if (theirs && server._rev) {
+              await this.store.putConflict({
+                docId: d.id,
+                kind: 'edit',
+                local: d,
+                others: [{ rev: server._rev, doc: theirs }],
+                baseRev: server._rev,
+                deleteRevs: [],
+                detectedAt: this.o.now().toISOString(),
+              });
               total.conflicts++;
             }
           }
@@ -314,25 +350,33 @@ export class SyncEngine {
   }
 
   /**
-   * Ends a conflict with the user's choice: this device's version, the server's, or a merged doc.
-   * The chosen content becomes a new revision on top of the server's and is queued for push
-   * (stored here first, so nothing is lost if the device goes offline now); for a `server`
-   * conflict the losing branches are then removed from the server.
+   * Ends a conflict with the user's choice: the version this device shows (`local`), one of the
+   * other versions (by its revision), or a merged doc. The choice is stored here first and queued,
+   * as a new revision on top of the server's head, so nothing is lost if the device goes offline
+   * now; then, for a `server` conflict, the losing branches are removed from the server.
    */
-  async resolve(docId: string, choice: 'local' | 'remote' | { merged: BaseDoc }): Promise<void> {
+  async resolve(docId: string, choice: 'local' | { rev: string } | { merged: TufaDoc }): Promise<void> {
     const c = (await this.store.conflicts()).find((x) => x.docId === docId);
     if (!c) return;
     const now = this.o.now().toISOString();
-    if (choice === 'remote' && c.kind === 'edit') {
-      await this.store.applyRemote([c.remote]);
+    const picked =
+      choice === 'local'
+        ? c.local
+        : 'rev' in choice
+          ? c.others.find((o) => o.rev === choice.rev)?.doc
+          : choice.merged;
+    if (!picked) return;
+    if (choice !== 'local' && 'rev' in choice && choice.rev === c.baseRev && c.deleteRevs.length === 0) {
+      // The server's version as it is: nothing to push.
+      await this.store.applyRemote([{ ...picked, rev: choice.rev }]);
       await this.store.dropOutbox([docId]);
     } else {
-      const base = choice === 'local' ? c.local : choice === 'remote' ? c.remote : choice.merged;
-      await this.store.putLocal({ ...base, id: docId, rev: c.remote.rev, updatedAt: now });
+      const doc = { ...picked, id: docId, updatedAt: now } as TufaDoc;
+      if (c.baseRev === undefined) delete doc.rev;
+      else doc.rev = c.baseRev;
+      await this.store.putLocal(doc);
     }
-    if (c.kind === 'server') {
-      for (const rev of c.losingRevs) await this.client.deleteRev(docId, rev);
-    }
+    for (const rev of c.deleteRevs) await this.client.deleteRev(docId, rev);
     await this.store.deleteConflict(docId);
     await this.refreshStatus();
   }

@@ -5,7 +5,7 @@
  * what still has to reach the server.
  */
 
-import type { BaseDoc } from '../io/docs';
+import type { TufaDoc } from '../io/docs';
 
 /** A doc waiting to be pushed, as it was when queued. */
 export interface OutboxEntry {
@@ -14,16 +14,27 @@ export interface OutboxEntry {
   updatedAt: string;
 }
 
-/** Both sides of a disagreement, kept until the user picks or merges. */
+/** A version of a doc other than the one this device shows, with its server revision. */
+export interface OtherVersion {
+  rev: string;
+  doc: TufaDoc;
+}
+
+/**
+ * Every version of a doc in disagreement, kept until the user picks or merges.
+ * `edit`: this device changed a doc the server also changed; `local` is this device's version
+ * (still queued, not pushed), `others[0]` the server's. `server`: the server holds several
+ * branches; `local` is the winning one (what this device shows), `others` the losing branches.
+ */
 export interface ConflictRecord {
   docId: string;
-  /** `edit`: this device changed a doc the server also changed. `server`: the server holds two branches. */
   kind: 'edit' | 'server';
-  local: BaseDoc;
-  /** The server's current winning version, `rev` set. */
-  remote: BaseDoc;
-  /** Losing server revisions to remove once resolved (`server` kind). */
-  losingRevs: string[];
+  local: TufaDoc;
+  others: OtherVersion[];
+  /** The server's winning revision: the resolution is written on top of it. */
+  baseRev: string | undefined;
+  /** Losing server branches (leaf revisions) to remove once resolved. */
+  deleteRevs: string[];
   detectedAt: string;
 }
 
@@ -31,16 +42,20 @@ export interface SyncStore {
   /** Every queued entry, oldest first. */
   outbox(): Promise<OutboxEntry[]>;
   outboxCount(): Promise<number>;
-  getDocs(ids: readonly string[]): Promise<Map<string, BaseDoc>>;
+  getDocs(ids: readonly string[]): Promise<Map<string, TufaDoc>>;
   /**
    * After the server accepted a push: set `rev` on the doc and drop its outbox entry, but only
    * where the doc still has the pushed `updatedAt` (a later local edit stays queued, with the new rev).
    */
   markPushed(rows: { docId: string; rev: string; updatedAt: string }[]): Promise<void>;
-  /** Writes docs that came from the server; they are not queued again. */
-  applyRemote(docs: BaseDoc[]): Promise<void>;
+  /**
+   * Writes docs that came from the server; they are not queued again. `seen` gives the local
+   * `updatedAt` the engine decided on (undefined: no local doc); a doc changed locally since is not
+   * overwritten and its id is returned, so the engine can keep both versions.
+   */
+  applyRemote(docs: TufaDoc[], seen?: Map<string, string | undefined>): Promise<string[]>;
   /** A local change (e.g. a conflict resolved by the user): stored and queued. */
-  putLocal(doc: BaseDoc): Promise<void>;
+  putLocal(doc: TufaDoc): Promise<void>;
   dropOutbox(docIds: readonly string[]): Promise<void>;
   getMeta<T>(key: string): Promise<T | undefined>;
   setMeta(key: string, value: unknown): Promise<void>;

@@ -12,7 +12,7 @@ let n = 0;
 export async function device(
   serverUrl: string,
   db: string,
-  opts: { fetch?: Fetch; pushBatch?: number } = {},
+  opts: { fetch?: Fetch; pushBatch?: number; maxAttempts?: number } = {},
 ) {
   const name = `tufa-sync-${process.pid}-${n++}`;
   const repo = await openRepository({ name });
@@ -23,7 +23,7 @@ export async function device(
     pushBatch: opts.pushBatch ?? 100,
     baseDelayMs: 50,
     maxDelayMs: 400,
-    maxAttempts: 40,
+    maxAttempts: opts.maxAttempts ?? 40,
   });
   return { repo, store, client, engine, name };
 }

@@ -70,7 +70,7 @@ const v = (quantity: string, unit: string): ColumnRole => ({ role: 'value', quan
 // Header words people and loggers commonly use (common practice, collected by us), most specific first.
 const GUESSES: Guess[] = [
   {
-    test: /^(date ?time|timestamp|taken at|sampled at|sample time|datetime utc)$/,
+    test: /^(date ?\/? ?time|date and time|timestamp|taken at|sampled at|sample time|datetime utc)$/,
     role: { role: 'timestamp' },
   },
   { test: /^(date|day|sample date|sampling date)$/, role: { role: 'date' } },

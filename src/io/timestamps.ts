@@ -21,14 +21,34 @@ export interface WallClock {
   ms: number;
 }
 
-/** Offset of a zone from UTC at an instant, in minutes (east positive). Throws on unknown zones. */
+const QUARTER_HOUR_MS = 900000;
+const offsetCache = new Map<string, number>();
+
+/**
+ * Offset of a zone from UTC at an instant, in minutes (east positive). Throws on unknown zones.
+ * Cached per quarter hour: offsets are whole quarter hours and change on quarter-hour instants
+ * (true of the time zone database since the 1970s), and Intl is slow enough to matter for 100 000 rows.
+ */
 export function zoneOffsetMinutes(timeZone: string, epochMs: number): number {
-  const fmt = formatterFor(timeZone);
-  const parts = fmt.formatToParts(new Date(epochMs));
+  const bucket = Math.floor(epochMs / QUARTER_HOUR_MS);
+  const key = `${timeZone}|${bucket}`;
+  const hit = offsetCache.get(key);
+  if (hit !== undefined) return hit;
+  const at = bucket * QUARTER_HOUR_MS;
+  const parts = formatterFor(timeZone).formatToParts(new Date(at));
   const get = (t: string) => Number(parts.find((p) => p.type === t)?.value ?? '0');
-  const hour = get('hour') % 24;
-  const asUtc = Date.UTC(get('year'), get('month') - 1, get('day'), hour, get('minute'), get('second'));
-  return Math.round((asUtc - Math.floor(epochMs / 1000) * 1000) / 60000);
+  const asUtc = Date.UTC(
+    get('year'),
+    get('month') - 1,
+    get('day'),
+    get('hour') % 24,
+    get('minute'),
+    get('second'),
+  );
+  const off = Math.round((asUtc - at) / 60000);
+  if (offsetCache.size > 200000) offsetCache.clear();
+  offsetCache.set(key, off);
+  return off;
 }
 
 const formatters = new Map<string, Intl.DateTimeFormat>();
@@ -60,20 +80,21 @@ export function isKnownTimeZone(timeZone: string): boolean {
 }
 
 /**
- * Wall-clock time in a zone to a UTC instant. Two passes settle the offset across a DST change;
- * a time that does not exist (spring gap) lands one offset-step later, a repeated hour (autumn)
- * takes its first occurrence.
+ * Wall-clock time in a zone to a UTC instant. Candidate offsets from a day before, at and a day
+ * after the naive instant cover a DST change; a candidate is kept when it maps back to the same
+ * wall clock. A time that does not exist (spring gap) is read with the offset before the change (02:30
+ * becomes 03:30 summer time); a repeated hour (autumn) takes its first occurrence.
  */
 export function wallClockToEpoch(w: WallClock, timeZone: string): number {
   const naive = Date.UTC(w.year, w.month - 1, w.day, w.hour, w.minute, w.second, w.ms);
-  const first = zoneOffsetMinutes(timeZone, naive);
-  let epoch = naive - first * 60000;
-  const second = zoneOffsetMinutes(timeZone, epoch);
-  if (second !== first) {
-    const alt = naive - second * 60000;
-    epoch = zoneOffsetMinutes(timeZone, alt) === second ? Math.min(epoch, alt) : epoch;
-  }
-  return epoch;
+  const day = 86400000;
+  // Offsets a day before and after bracket any change near this time (changes are rarer than daily).
+  const candidates = [naive - day, naive, naive + day].map(
+    (t) => naive - zoneOffsetMinutes(timeZone, t) * 60000,
+  );
+  const valid = candidates.filter((e) => naive - zoneOffsetMinutes(timeZone, e) * 60000 === e);
+  // Several valid: the repeated autumn hour, take the first occurrence. None: the spring gap.
+  return valid.length > 0 ? Math.min(...valid) : Math.max(...candidates);
 }
 
 function validWallClock(w: WallClock): boolean {

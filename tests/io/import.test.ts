@@ -1,0 +1,174 @@
+import 'fake-indexeddb/auto';
+import { describe, expect, it } from 'vitest';
+import { defaultMapping, guessRoles, layoutKey } from '../../src/io/column-mapping';
+import { parseCsv } from '../../src/io/csv-parse';
+import { exportReadingsCsv } from '../../src/io/export-csv';
+import { commitImport } from '../../src/io/import-commit';
+import { planImport } from '../../src/io/import-plan';
+import { engineValues } from '../../src/io/solve-input';
+import { openRepository } from '../../src/store/repository';
+import { RepositoryStore } from '../../src/sync/repository-store';
+
+let n = 0;
+async function fresh() {
+  const repo = await openRepository({ name: `tufa-import-${process.pid}-${n++}` });
+  return { repo, store: new RepositoryStore(repo) };
+}
+
+// Invented spreadsheet export from our own demo springs: BOM, `;`, decimal commas, local times.
+const SPREADSHEET =
+  '\uFEFFSite;Date/Time;Temp (°C);pH;Alkalinity (meq/L);Conductance (µS/cm);Notes\r\n' +
+  'Quellhof spring;03.06.2026 09:15;9,4;7,21;5,12;612;"clear; slight odour"\r\n' +
+  'Quellhof spring;03.06.2026 12:40;9,6;7,25;5,08;608;\r\n' +
+  'Mill pond;03.06.2026 14:05;17,9;8,34;2,41;355;algae\r\n';
+
+async function importText(store: RepositoryStore, text: string, tz = 'Europe/Vienna') {
+  const csv = parseCsv(text);
+  const mapping = defaultMapping(csv.table.header, tz);
+  const plan = await planImport(csv, mapping, await store.repo.listSites());
+  return { csv, mapping, plan, report: await commitImport(plan, store) };
+}
+
+describe('CSV import', () => {
+  it('guesses the columns of a spreadsheet header', () => {
+    const roles = guessRoles([
+      'Site',
+      'Date/Time',
+      'Temp (°F)',
+      'pH',
+      'Alkalinity (meq/L)',
+      'KH',
+      'Cond. (mS/cm)',
+      'x',
+    ]);
+    expect(roles).toEqual([
+      { role: 'site' },
+      { role: 'timestamp' },
+      { role: 'value', quantity: 'temperature', unit: 'f' },
+      { role: 'value', quantity: 'ph', unit: 'nbs' },
+      { role: 'value', quantity: 'alkalinity', unit: 'meq_l' },
+      { role: 'ignore' }, // a second alkalinity column is left for the user to map
+      { role: 'value', quantity: 'conductance', unit: 'ms_cm' },
+      { role: 'ignore' },
+    ]);
+    expect(layoutKey(['Site', 'pH'])).toBe(layoutKey([' site ', 'PH']));
+    expect(layoutKey(['Site', 'pH'])).not.toBe(layoutKey(['pH', 'Site']));
+  });
+
+  it('imports a file with a BOM, ; and decimal commas correctly', async () => {
+    const { store, repo } = await fresh();
+    const { csv, report } = await importText(store, SPREADSHEET);
+    expect(csv.sniff).toEqual({ hadBom: true, delimiter: ';', decimalComma: true });
+    expect(report).toMatchObject({ ok: true, rows: 3, written: 3, sitesCreated: 2, errors: [] });
+    const sites = await repo.listSites();
+    expect(sites.map((s) => s.name).sort()).toEqual(['Mill pond', 'Quellhof spring']);
+    const spring = sites.find((s) => s.name === 'Quellhof spring')!;
+    const rs = await repo.listReadings(spring.id);
+    expect(rs.map((r) => r.takenAt)).toEqual(['2026-06-03T07:15:00.000Z', '2026-06-03T10:40:00.000Z']);
+    expect(rs[0]!.values).toEqual([
+      { quantity: 'temperature', value: 9.4, unit: 'c' },
+      { quantity: 'ph', value: 7.21, unit: 'nbs' },
+      { quantity: 'alkalinity', value: 5.12, unit: 'meq_l' },
+      { quantity: 'conductance', value: 612, unit: 'us_cm' },
+    ]);
+    expect(rs[0]!.notes).toBe('clear; slight odour');
+    expect(engineValues(rs[0]!).values).toEqual({
+      temperature_c: 9.4,
+      ph: 7.21,
+      alkalinity_meq_l: 5.12,
+      specific_conductance_us_cm: 612,
+    });
+    expect(await repo.outboxSize()).toBe(5); // two sites and three readings queued for sync
+  });
+
+  it('re-importing the same file creates no duplicates (content ids)', async () => {
+    const { store, repo } = await fresh();
+    await importText(store, SPREADSHEET);
+    const again = await importText(store, SPREADSHEET);
+    expect(again.report).toMatchObject({ ok: true, written: 0, alreadyPresent: 3, sitesCreated: 0 });
+    // The same data with a decimal point and a comma delimiter is the same data.
+    const pointed = SPREADSHEET.replace(/(\d),(\d)/g, '$1.$2')
+      .replaceAll(';', ',')
+      .replace('clear, slight', 'clear; slight');
+    const third = await importText(store, pointed);
+    expect(third.report.errors).toEqual([]);
+    expect(third.report.alreadyPresent).toBe(3);
+    expect((await repo.listAllReadings()).length).toBe(3);
+    expect((await repo.listSites()).length).toBe(2);
+  });
+
+  it('a malformed file writes nothing and reports every bad row with its column', async () => {
+    const { store, repo } = await fresh();
+    const bad =
+      'site,taken_at,temperature_c,ph,alkalinity_umol_kg\n' +
+      'Pond A,2026-06-01T10:00:00Z,12.5,8.1,2100\n' +
+      'Pond A,2026-06-01T11:00:00Z,abc,8.1,2100\n' + // line 3: temperature not a number
+      'Pond A,2026-13-01T12:00:00Z,12.5,8.1,2100\n' + // line 4: month 13
+      'Pond A,2026-06-01T13:00:00Z,12.5,19,-5\n' + // line 5: pH 19 and negative alkalinity
+      ',2026-06-01T14:00:00Z,12.5,8.1,2100\n' + // line 6: no site
+      'Pond A,2026-06-01T15:00:00Z,12.5\n' + // line 7: too few fields
+      'Pond A,,12.5,8.1,2100\n'; // line 8: no time
+    const { report } = await importText(store, bad, 'UTC');
+    expect(report.ok).toBe(false);
+    expect(report.written).toBe(0);
+    expect(report.errors.map((e) => [e.row, e.code, e.column])).toEqual([
+      [3, 'value-not-a-number', 'temperature_c'],
+      [4, 'time-unreadable', 'taken_at'],
+      [5, 'value-out-of-range', 'ph'],
+      [5, 'value-out-of-range', 'alkalinity_umol_kg'],
+      [6, 'site-missing', 'site'],
+      [7, 'csv-ragged-row', undefined],
+      [8, 'time-missing', 'taken_at'],
+    ]);
+    expect(report.errors.every((e) => e.message.length > 10)).toBe(true);
+    expect(await repo.listSites({ includeDeleted: true })).toEqual([]);
+    expect(await repo.listAllReadings({ includeDeleted: true })).toEqual([]);
+    expect(await repo.outboxSize()).toBe(0);
+  });
+
+  it('a refused write leaves the database as it was (all or nothing)', async () => {
+    const { store, repo } = await fresh();
+    await importText(store, SPREADSHEET);
+    const before = await repo.listAllReadings();
+    const csv = parseCsv(
+      'site,taken_at,ph\nMill pond,2026-07-01T10:00:00Z,8.2\nMill pond,2026-07-01T11:00:00Z,8.3\n',
+    );
+    const plan = await planImport(csv, defaultMapping(csv.table.header, 'UTC'), await repo.listSites());
+    plan.readings[1]!.takenAt = 'not a time'; // a bug upstream: the store must refuse the whole batch
+    const report = await commitImport(plan, store);
+    expect(report.ok).toBe(false);
+    expect(report.errors[0]?.code).toBe('store-write-failed');
+    expect(await repo.listAllReadings()).toEqual(before);
+  });
+
+  it('asks for a site and a time column when the mapping has none', async () => {
+    const { store, repo } = await fresh();
+    const csv = parseCsv('ph;temp\n7,9;12\n');
+    const plan = await planImport(csv, defaultMapping(csv.table.header, 'UTC'), await repo.listSites());
+    expect(plan.errors.map((e) => e.code)).toEqual(['map-no-timestamp', 'map-no-site']);
+    expect((await commitImport(plan, store)).written).toBe(0);
+  });
+
+  it('exports CSV that re-imports to the same readings', async () => {
+    const { store, repo } = await fresh();
+    await importText(store, SPREADSHEET);
+    const sites = await repo.listSites();
+    const text = exportReadingsCsv(await repo.listAllReadings(), sites);
+    const lines = text.split('\r\n');
+    expect(lines[0]).toBe(
+      'reading_id,site,site_id,taken_at,time_zone,ph_scale,temperature_c,ph,alkalinity_meq_l,specific_conductance_us_cm,notes',
+    );
+    expect(lines).toContain(
+      `${(await repo.listReadings(sites.find((s) => s.name === 'Mill pond')!.id))[0]!.id},Mill pond,${sites.find((s) => s.name === 'Mill pond')!.id},2026-06-03T14:05:00+02:00,Europe/Vienna,nbs,17.9,8.34,2.41,355,algae`,
+    );
+    expect(text).toContain(',clear; slight odour\r\n'); // no quotes needed: no comma inside
+    const back = await importText(store, text);
+    expect(back.report).toMatchObject({ ok: true, written: 0, alreadyPresent: 3 });
+    const { store: other, repo: otherRepo } = await fresh();
+    const into = await importText(other, text);
+    expect(into.report).toMatchObject({ ok: true, written: 3, sitesCreated: 2 });
+    const a = (await repo.listAllReadings()).map((r) => [r.takenAt, r.values, r.notes]).sort();
+    const b = (await otherRepo.listAllReadings()).map((r) => [r.takenAt, r.values, r.notes]).sort();
+    expect(b).toEqual(a);
+  });
+});

@@ -11,7 +11,7 @@ const PAIRS: [Param, Param][] = PARAMS.flatMap((a, i) =>
   PARAMS.slice(i + 1).map((b) => [a, b] as [Param, Param]),
 );
 
-const valueOf = (s: CarbonateState, p: Param): number => (p === 'ph' ? -Math.log10(s.h) : s[p]);
+const paramValue = (s: CarbonateState, p: Param): number => (p === 'ph' ? -Math.log10(s.h) : s[p]);
 const FIELDS = ['h', 'ta', 'dic', 'co2', 'hco3', 'co3', 'fco2', 'pco2'] as const;
 
 function relErr(a: number, b: number): number {
@@ -42,7 +42,7 @@ describe.each([
         fc.double({ min: 100e-6, max: 5000e-6, noNaN: true }),
         (ph, dic) => {
           const truth = stateFromHDic(10 ** -ph, dic, k, t);
-          const roots = solvePair(a, valueOf(truth, a), b, valueOf(truth, b), k, t);
+          const roots = solvePair(a, paramValue(truth, a), b, paramValue(truth, b), k, t);
           const best = Math.min(...roots.map((r) => distance(r, truth)));
           expect(best).toBeLessThan(1e-9);
           // The residual of the balance that defines TA is checked, not only the answer.

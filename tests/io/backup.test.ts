@@ -9,7 +9,10 @@ async function fresh() {
   let t = Date.parse('2026-05-01T08:00:00Z');
   const repo = await openRepository({
     name: `tufa-backup-${process.pid}-${n++}`,
-    now: () => new Date((t += 1000)),
+    now: () => {
+      t += 1000;
+      return new Date(t);
+    },
   });
   return { repo, store: new RepositoryStore(repo) };
 }

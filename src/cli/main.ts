@@ -4,6 +4,7 @@
  */
 
 import { type CliIo, EXIT_OK, EXIT_USAGE } from './io';
+import { runRecompute } from './recompute';
 import { runSolve } from './solve';
 
 type Command = (args: string[], io: CliIo) => Promise<number>;
@@ -12,6 +13,10 @@ const COMMANDS: Record<string, { run: Command; summary: string }> = {
   solve: {
     run: runSolve,
     summary: 'carbonate system from two or more measured parameters (JSON Lines or CSV)',
+  },
+  recompute: {
+    run: runRecompute,
+    summary: 'results for every row of a logger or spreadsheet CSV (columns recognized from the header)',
   },
 };
 

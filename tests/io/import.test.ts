@@ -1,9 +1,10 @@
 import 'fake-indexeddb/auto';
 import { describe, expect, it } from 'vitest';
+import { solve } from '../../src/chem/solve';
 import { defaultMapping, guessRoles, layoutKey } from '../../src/io/column-mapping';
 import { parseCsv } from '../../src/io/csv-parse';
 import { exportReadingsCsv } from '../../src/io/export-csv';
-import { commitImport } from '../../src/io/import-commit';
+import { commitImport, previewImport } from '../../src/io/import-commit';
 import { planImport } from '../../src/io/import-plan';
 import { engineValues } from '../../src/io/solve-input';
 import { openRepository } from '../../src/store/repository';
@@ -170,5 +171,35 @@ describe('CSV import', () => {
     const a = (await repo.listAllReadings()).map((r) => [r.takenAt, r.values, r.notes]).sort();
     const b = (await otherRepo.listAllReadings()).map((r) => [r.takenAt, r.values, r.notes]).sort();
     expect(b).toEqual(a);
+  });
+});
+
+describe('import preview', () => {
+  it('shows the first rows with what the engine computes, and rows it cannot solve as warnings', async () => {
+    const { store, repo } = await fresh();
+    const csv = parseCsv(
+      'site;taken_at;temperature_c;salinity;ph;alkalinity_umol_kg\n' +
+        'Bay buoy;2026-06-03T09:15Z;25;35;8,05;2300\n' +
+        'Bay buoy;2026-06-03T10:15Z;25;35;8,05;\n',
+    );
+    const mapping = defaultMapping(csv.table.header, 'UTC');
+    mapping.columns[4] = { role: 'value', quantity: 'ph', unit: 'total' };
+    const plan = await planImport(csv, mapping, []);
+    const rows = previewImport(plan, [], solve, 5);
+    expect(rows.map((r) => r.line)).toEqual([2, 3]);
+    const first = rows[0]!.result;
+    const direct = solve({
+      temperature_c: 25,
+      salinity: 35,
+      ph: 8.05,
+      ph_scale: 'total',
+      alkalinity_umol_kg: 2300,
+    });
+    expect(first).toEqual(direct);
+    expect('error' in rows[1]!.result).toBe(true);
+    const report = await commitImport(plan, store, { solve });
+    expect(report).toMatchObject({ ok: true, written: 2 });
+    expect(report.warnings.map((w) => [w.row, w.code])).toEqual([[3, 'row-solve-failed']]);
+    expect((await repo.listAllReadings()).length).toBe(2);
   });
 });

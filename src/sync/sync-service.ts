@@ -1,0 +1,147 @@
+/**
+ * Sync as the app uses it: the connection settings (kept in `syncMeta` on this device only, never
+ * in backups or exports), one engine built from them, status for the screen, and conflict
+ * resolution. The settings screen mounts `SyncPanel` (`src/ui/sync/SyncPanel.tsx`) with one of these.
+ */
+
+import type { Issue } from '../chem/errors';
+import type { TufaDoc } from '../io/docs';
+import { type Auth, CouchClient, type Fetch } from './couch-client';
+import { checkDbName, checkServerUrl } from './server-url';
+import { SyncEngine, type SyncStatus } from './sync-engine';
+import { syncIssue } from './sync-issues';
+import type { ConflictRecord, SyncStore } from './sync-store';
+
+export interface ConnectionSettings {
+  url: string;
+  db: string;
+  auth: Auth['kind'];
+  user: string;
+  password: string;
+}
+
+const CONNECTION = 'connection';
+const DEVICE = 'device-id';
+
+const NOT_CONFIGURED: SyncStatus = {
+  state: 'error',
+  lastSyncAt: undefined,
+  pending: 0,
+  conflicts: 0,
+  error: syncIssue('sync-not-configured', 'No sync server is set up yet: readings stay on this device.'),
+  rejected: [],
+  retryAt: undefined,
+};
+
+export function checkConnection(c: ConnectionSettings): { warnings: Issue[] } | { error: Issue } {
+  const u = checkServerUrl(c.url);
+  if ('error' in u) return u;
+  const dbIssue = checkDbName(c.db);
+  if (dbIssue) return { error: dbIssue };
+  if (c.auth !== 'none' && c.user.trim() === '') {
+    return { error: syncIssue('sync-auth-failed', 'Enter the user name for this server.', 'user') };
+  }
+  return { warnings: u.warnings };
+}
+
+function authOf(c: ConnectionSettings): Auth {
+  return c.auth === 'none' ? { kind: 'none' } : { kind: c.auth, user: c.user, password: c.password };
+}
+
+export class SyncService {
+  private engine: SyncEngine | undefined;
+  private listeners = new Set<(s: SyncStatus) => void>();
+  private unsubscribe: (() => void) | undefined;
+  private status: SyncStatus = NOT_CONFIGURED;
+
+  constructor(
+    readonly store: SyncStore,
+    private readonly fetchImpl?: Fetch,
+  ) {}
+
+  async connection(): Promise<ConnectionSettings | undefined> {
+    return this.store.getMeta<ConnectionSettings>(CONNECTION);
+  }
+
+  private async deviceId(): Promise<string> {
+    let id = await this.store.getMeta<string>(DEVICE);
+    if (!id) {
+      id = crypto.randomUUID();
+      await this.store.setMeta(DEVICE, id);
+    }
+    return id;
+  }
+
+  /** Builds the engine from the stored connection; false when none is set up. */
+  async start(): Promise<boolean> {
+    const c = await this.connection();
+    if (!c || 'error' in checkConnection(c)) {
+      this.emit(NOT_CONFIGURED);
+      return false;
+    }
+    const url = checkServerUrl(c.url);
+    if ('error' in url) return false;
+    const client = new CouchClient({ url: url.url.href, db: c.db, auth: authOf(c) }, this.fetchImpl);
+    this.unsubscribe?.();
+    this.engine = new SyncEngine(this.store, client, { deviceId: await this.deviceId() });
+    this.unsubscribe = this.engine.subscribe((s) => this.emit(s));
+    await this.engine.refreshStatus();
+    return true;
+  }
+
+  /** Checks, tests against the server, and only then stores new connection settings. */
+  async configure(c: ConnectionSettings): Promise<{ warnings: Issue[] } | { error: Issue }> {
+    const checked = checkConnection(c);
+    if ('error' in checked) return checked;
+    const url = checkServerUrl(c.url);
+    if ('error' in url) return url;
+    const client = new CouchClient(
+      { url: url.url.href, db: c.db, auth: authOf(c), timeoutMs: 15000 },
+      this.fetchImpl,
+    );
+    try {
+      await client.info();
+    } catch (e) {
+      const issue =
+        e && typeof e === 'object' && 'toIssue' in e ? (e as { toIssue(): Issue }).toIssue() : undefined;
+      return { error: issue ?? syncIssue('sync-bad-response', String(e)) };
+    }
+    await this.store.setMeta(CONNECTION, { ...c, url: url.url.href });
+    await this.start();
+    return checked;
+  }
+
+  async disconnect(): Promise<void> {
+    await this.store.setMeta(CONNECTION, undefined);
+    this.unsubscribe?.();
+    this.engine = undefined;
+    this.emit(NOT_CONFIGURED);
+  }
+
+  /** Runs a sync now; errors end up in the status (in words), never as an exception. */
+  async syncNow(): Promise<void> {
+    if (!this.engine && !(await this.start())) return;
+    await this.engine?.sync().catch(() => undefined);
+  }
+
+  subscribe(fn: (s: SyncStatus) => void): () => void {
+    this.listeners.add(fn);
+    fn(this.status);
+    return () => this.listeners.delete(fn);
+  }
+
+  private emit(s: SyncStatus): void {
+    this.status = s;
+    for (const l of this.listeners) l(s);
+  }
+
+  conflicts(): Promise<ConflictRecord[]> {
+    return this.store.conflicts();
+  }
+
+  async resolve(docId: string, choice: 'local' | { rev: string } | { merged: TufaDoc }): Promise<void> {
+    if (!this.engine && !(await this.start())) return;
+    await this.engine!.resolve(docId, choice);
+    await this.syncNow();
+  }
+}

@@ -21,8 +21,12 @@ function fakeEnv(online: boolean) {
         return () => onMsg.splice(onMsg.indexOf(fn), 1);
       },
     },
-    goOnline: () => onOnline.forEach((f) => f()),
-    message: (d: unknown) => onMsg.forEach((f) => f(d)),
+    goOnline: () => {
+      for (const f of onOnline) f();
+    },
+    message: (d: unknown) => {
+      for (const f of onMsg) f(d);
+    },
   };
 }
 

@@ -179,7 +179,7 @@ export async function runRecompute(args: string[], io: CliIo): Promise<number> {
       s?.name ?? '',
       formatWithOffset(Date.parse(r.takenAt), r.timeZone),
       r.timeZone,
-      ...(present.has('ph') ? [options.ph_scale ?? ''] : []),
+      ...(present.has('ph') ? [options.ph_scale ?? s?.defaults.ph_scale ?? ''] : []),
       ...keys.map((k) => formatNumber(values[k])),
     ];
     if (isSolveError(res)) {

@@ -85,7 +85,7 @@ const GUESSES: Guess[] = [
   { test: /^(sal|salinity|psu)\b/, role: v('salinity', 'pss') },
   { test: /^(pressure|press)\b.*\bbar$/, role: v('pressure', 'bar') },
   { test: /^(pressure|press)\b/, role: v('pressure', 'dbar') },
-  { test: /^ph\b/, role: v('ph', 'nbs') },
+  { test: /^ph\b/, role: v('ph', 'ph') },
   { test: /^(alk|alkalinity|ta)\b.*\b(dkh|kh)$/, role: v('alkalinity', 'dkh') },
   { test: /^(kh|dkh)\b/, role: v('alkalinity', 'dkh') },
   { test: /^(alk|alkalinity|ta)\b.*\bmeq/, role: v('alkalinity', 'meq_l') },

@@ -73,7 +73,7 @@ export function exportReadingsCsv(
       r.siteId,
       formatWithOffset(Date.parse(r.takenAt), r.timeZone),
       r.timeZone,
-      ...(hasScale ? [opts.ph_scale ?? ''] : []),
+      ...(hasScale ? [opts.ph_scale ?? site?.defaults.ph_scale ?? ''] : []),
       ...valueKeys.map((k) => formatNumber(values[k])),
       r.notes,
     ];

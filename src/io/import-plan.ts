@@ -11,7 +11,7 @@ import type { ParsedCsv } from './csv-parse';
 import type { MeasuredValue, ReadingDoc, SiteDoc } from './docs';
 import { type RowIssue, rowIssue } from './io-issues';
 import { parseNumber } from './numbers';
-import { quantityById } from './quantities';
+import { quantityById, storedForm } from './quantities';
 import { isKnownTimeZone, parseTimestamp } from './timestamps';
 
 export interface ImportPlan {
@@ -177,10 +177,13 @@ export async function planImport(
         );
         continue;
       }
-      const unitId = q.id === 'ph' && scale ? scale : unit.id;
-      measured.push({ quantity: q.id, value: x, unit: unitId });
+      const stored = storedForm(q, unit, x);
+      if (q.id === 'ph' && scale) stored.unit = scale;
+      measured.push({ quantity: q.id, value: stored.value, unit: stored.unit });
       values[unit.key] = k;
-      if (q.id === 'ph') values.ph_scale_code = ['nbs', 'total', 'free', 'seawater'].indexOf(unitId);
+      // The pH scale is part of what the number means, so it is part of the content id.
+      if (q.id === 'ph')
+        values.ph_scale_code = ['ph', 'nbs', 'total', 'free', 'seawater'].indexOf(stored.unit);
     }
     if (valueCols.length > 0 && measured.length === 0 && rowErrors.length === 0) {
       rowErrors.push(rowIssue(line, 'row-no-values', 'This row has no measured values.'));

@@ -66,10 +66,14 @@ export const QUANTITIES: readonly QuantityDef[] = [
   {
     id: 'ph',
     label: 'pH',
-    units: (['nbs', 'total', 'free', 'seawater'] as const).map((scale) => ({
-      ...u(scale, `pH (${scale === 'nbs' ? 'NBS' : scale} scale)`, 'ph'),
-      options: { ph_scale: scale },
-    })),
+    // `ph`: scale from the site's defaults (as the reading form enters it); the others name it.
+    units: [
+      u('ph', 'pH (scale of the site)', 'ph'),
+      ...(['nbs', 'total', 'free', 'seawater'] as const).map((scale) => ({
+        ...u(scale, `pH (${scale === 'nbs' ? 'NBS' : scale} scale)`, 'ph'),
+        options: { ph_scale: scale },
+      })),
+    ],
     limits: [0, 14],
   },
   {
@@ -134,6 +138,17 @@ export function quantityById(id: string): QuantityDef | undefined {
 
 export function unitOf(quantity: string, unit: string): UnitChoice | undefined {
   return byId.get(quantity)?.units.find((x) => x.id === unit);
+}
+
+/**
+ * How an imported value is stored: as written when its unit feeds its key unchanged, else
+ * converted exactly into the key's own unit (°F → °C, mmol/kg → µmol/kg, mS/cm → µS/cm, bar →
+ * dbar), so stored readings use only the units the reading form knows.
+ */
+export function storedForm(q: QuantityDef, unit: UnitChoice, x: number): { value: number; unit: string } {
+  if (unit.toKey === same) return { value: x, unit: unit.id };
+  const base = q.units.find((b) => b.key === unit.key && b.toKey === same);
+  return base ? { value: unit.toKey(x), unit: base.id } : { value: x, unit: unit.id };
 }
 
 /** Engine keys in catalogue order, each once (export column order). */

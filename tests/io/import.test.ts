@@ -46,7 +46,7 @@ describe('CSV import', () => {
       { role: 'site' },
       { role: 'timestamp' },
       { role: 'value', quantity: 'temperature', unit: 'f' },
-      { role: 'value', quantity: 'ph', unit: 'nbs' },
+      { role: 'value', quantity: 'ph', unit: 'ph' },
       { role: 'value', quantity: 'alkalinity', unit: 'meq_l' },
       { role: 'ignore' }, // a second alkalinity column is left for the user to map
       { role: 'value', quantity: 'conductance', unit: 'ms_cm' },
@@ -68,7 +68,7 @@ describe('CSV import', () => {
     expect(rs.map((r) => r.takenAt)).toEqual(['2026-06-03T07:15:00.000Z', '2026-06-03T10:40:00.000Z']);
     expect(rs[0]!.values).toEqual([
       { quantity: 'temperature', value: 9.4, unit: 'c' },
-      { quantity: 'ph', value: 7.21, unit: 'nbs' },
+      { quantity: 'ph', value: 7.21, unit: 'ph' },
       { quantity: 'alkalinity', value: 5.12, unit: 'meq_l' },
       { quantity: 'conductance', value: 612, unit: 'us_cm' },
     ]);
@@ -142,6 +142,23 @@ describe('CSV import', () => {
     expect(await repo.listAllReadings()).toEqual(before);
   });
 
+  it('stores converted values in the units the reading form knows, and keeps a named pH scale', async () => {
+    const { store, repo } = await fresh();
+    const { report } = await importText(
+      store,
+      'site,taken_at,Temp (°F),Cond (mS/cm),pH,ph_scale\nTank 3,2026-06-01T10:00Z,77,1.25,8.2,total\n',
+      'UTC',
+    );
+    expect(report.ok).toBe(true);
+    const [r] = await repo.listAllReadings();
+    expect(r!.values).toEqual([
+      { quantity: 'temperature', value: 25, unit: 'c' },
+      { quantity: 'conductance', value: 1250, unit: 'us_cm' },
+      { quantity: 'ph', value: 8.2, unit: 'total' },
+    ]);
+    expect(engineValues(r!).options).toEqual({ ph_scale: 'total' });
+  });
+
   it('asks for a site and a time column when the mapping has none', async () => {
     const { store, repo } = await fresh();
     const csv = parseCsv('ph;temp\n7,9;12\n');
@@ -160,7 +177,7 @@ describe('CSV import', () => {
       'reading_id,site,site_id,taken_at,time_zone,ph_scale,temperature_c,ph,alkalinity_meq_l,specific_conductance_us_cm,notes',
     );
     expect(lines).toContain(
-      `${(await repo.listReadings(sites.find((s) => s.name === 'Mill pond')!.id))[0]!.id},Mill pond,${sites.find((s) => s.name === 'Mill pond')!.id},2026-06-03T14:05:00+02:00,Europe/Vienna,nbs,17.9,8.34,2.41,355,algae`,
+      `${(await repo.listReadings(sites.find((s) => s.name === 'Mill pond')!.id))[0]!.id},Mill pond,${sites.find((s) => s.name === 'Mill pond')!.id},2026-06-03T14:05:00+02:00,Europe/Vienna,,17.9,8.34,2.41,355,algae`,
     );
     expect(text).toContain(',clear; slight odour\r\n'); // no quotes needed: no comma inside
     const back = await importText(store, text);

@@ -7,7 +7,7 @@
  * in another unit gives the same id; a row with one value changed gives a new one.
  */
 
-const encoder = new TextEncoder();
+import { sha256 } from './sha256';
 
 export function uuidFromDigest(digest: Uint8Array): string {
   const b = digest.slice(0, 16);
@@ -17,9 +17,8 @@ export function uuidFromDigest(digest: Uint8Array): string {
   return `${hex.slice(0, 8)}-${hex.slice(8, 12)}-${hex.slice(12, 16)}-${hex.slice(16, 20)}-${hex.slice(20)}`;
 }
 
-export async function contentId(canonical: string): Promise<string> {
-  const digest = await crypto.subtle.digest('SHA-256', encoder.encode(canonical));
-  return uuidFromDigest(new Uint8Array(digest));
+export function contentId(canonical: string): string {
+  return uuidFromDigest(sha256(canonical));
 }
 
 export function readingCanonical(siteId: string, takenAt: string, values: Record<string, number>): string {

@@ -101,7 +101,7 @@ export async function planImport(
           known.get(name.toLowerCase()) ?? known.get(normalizeName(name)) ?? created.get(normalizeName(name));
         if (!site) {
           site = {
-            id: await contentId(siteCanonical(name)),
+            id: contentId(siteCanonical(name)),
             type: 'site',
             name: name.replace(/\s+/g, ' '),
             kind: 'other',
@@ -193,7 +193,7 @@ export async function planImport(
       errors.push(...rowErrors);
       continue;
     }
-    const id = await contentId(readingCanonical(site.id, takenAt, values));
+    const id = contentId(readingCanonical(site.id, takenAt, values));
     const earlier = seenIds.get(id);
     if (earlier !== undefined) {
       plan.duplicateRows.push(

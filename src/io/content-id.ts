@@ -9,11 +9,14 @@
 
 import { sha256 } from './sha256';
 
+const HEX = Array.from({ length: 256 }, (_, i) => i.toString(16).padStart(2, '0'));
+
 export function uuidFromDigest(digest: Uint8Array): string {
   const b = digest.slice(0, 16);
   b[6] = (b[6]! & 0x0f) | 0x80; // version 8
   b[8] = (b[8]! & 0x3f) | 0x80; // RFC 9562 variant
-  const hex = Array.from(b, (x) => x.toString(16).padStart(2, '0')).join('');
+  let hex = '';
+  for (const x of b) hex += HEX[x];
   return `${hex.slice(0, 8)}-${hex.slice(8, 12)}-${hex.slice(12, 16)}-${hex.slice(16, 20)}-${hex.slice(20)}`;
 }
 

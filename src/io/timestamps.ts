@@ -22,19 +22,12 @@ export interface WallClock {
 }
 
 const QUARTER_HOUR_MS = 900000;
-const offsetCache = new Map<string, number>();
+const DAY_MS = 86400000;
+type OffsetCache = Map<string, Map<number, number>>;
+const dayEnds: OffsetCache = new Map();
+const quarters: OffsetCache = new Map();
 
-/**
- * Offset of a zone from UTC at an instant, in minutes (east positive). Throws on unknown zones.
- * Cached per quarter hour: offsets are whole quarter hours and change on quarter-hour instants
- * (true of the time zone database since the 1970s), and Intl is slow enough to matter for 100 000 rows.
- */
-export function zoneOffsetMinutes(timeZone: string, epochMs: number): number {
-  const bucket = Math.floor(epochMs / QUARTER_HOUR_MS);
-  const key = `${timeZone}|${bucket}`;
-  const hit = offsetCache.get(key);
-  if (hit !== undefined) return hit;
-  const at = bucket * QUARTER_HOUR_MS;
+function intlOffset(timeZone: string, at: number): number {
   const parts = formatterFor(timeZone).formatToParts(new Date(at));
   const get = (t: string) => Number(parts.find((p) => p.type === t)?.value ?? '0');
   const asUtc = Date.UTC(
@@ -45,10 +38,38 @@ export function zoneOffsetMinutes(timeZone: string, epochMs: number): number {
     get('minute'),
     get('second'),
   );
-  const off = Math.round((asUtc - at) / 60000);
-  if (offsetCache.size > 200000) offsetCache.clear();
-  offsetCache.set(key, off);
-  return off;
+  return Math.round((asUtc - at) / 60000);
+}
+
+function cached(cache: OffsetCache, timeZone: string, key: number, f: () => number): number {
+  let zone = cache.get(timeZone);
+  if (!zone) {
+    zone = new Map();
+    cache.set(timeZone, zone);
+  }
+  const hit = zone.get(key);
+  if (hit !== undefined) return hit;
+  const v = f();
+  if (zone.size > 100000) zone.clear();
+  zone.set(key, v);
+  return v;
+}
+
+/**
+ * Offset of a zone from UTC at an instant, in minutes (east positive). Throws on unknown zones.
+ * Intl is slow enough to matter for 100 000 rows, so offsets are cached: per UTC day when the
+ * offset is the same at both ends of the day (no change that day), else per quarter hour, since
+ * offsets are whole quarter hours and change on quarter-hour instants (true of the time zone
+ * database since the 1970s).
+ */
+export function zoneOffsetMinutes(timeZone: string, epochMs: number): number {
+  const day = Math.floor(epochMs / DAY_MS);
+  // Keys 2·day and 2·day + 1: the offsets at the start and at the end of a UTC day.
+  const start = cached(dayEnds, timeZone, 2 * day, () => intlOffset(timeZone, day * DAY_MS));
+  const end = cached(dayEnds, timeZone, 2 * day + 1, () => intlOffset(timeZone, (day + 1) * DAY_MS - 1000));
+  if (start === end) return start;
+  const q = Math.floor(epochMs / QUARTER_HOUR_MS);
+  return cached(quarters, timeZone, q, () => intlOffset(timeZone, q * QUARTER_HOUR_MS));
 }
 
 const formatters = new Map<string, Intl.DateTimeFormat>();

@@ -3,10 +3,12 @@
  * Record the figures in the README when they change.
  */
 
+import { benchData } from './data';
 import { benchSolve } from './solve';
 
 const sections: [string, () => string[] | Promise<string[]>][] = [
   ['Saline solver (100 000 rows)', benchSolve],
+  ['Data: CSV import (100 000 rows) and first sync (10 000 readings)', benchData],
 ];
 
 for (const [title, run] of sections) {

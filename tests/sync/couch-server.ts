@@ -27,12 +27,21 @@ export class CouchServer {
   private child: ChildProcess | undefined;
   readonly dir = mkdtempSync(join(tmpdir(), 'tufa-couch-'));
   port = 0;
+  /** A server started outside the tests (`.ci/run` sets TUFA_COUCH_URL): used as it is, never killed. */
+  private readonly external: string | undefined;
+
+  /** `shared`: use the CI's server when there is one (tests that neither kill nor reconfigure it). */
+  constructor(opts: { shared?: boolean } = {}) {
+    const env = process.env.TUFA_COUCH_URL;
+    this.external = opts.shared && env ? (env.endsWith('/') ? env : `${env}/`) : undefined;
+  }
 
   get url(): string {
-    return `http://127.0.0.1:${this.port}/`;
+    return this.external ?? `http://127.0.0.1:${this.port}/`;
   }
 
   async start(): Promise<void> {
+    if (this.external) return;
     if (this.port === 0) this.port = await freePort();
     this.child = spawn(
       process.execPath,
@@ -65,6 +74,7 @@ export class CouchServer {
 
   /** Kills the process at once (SIGKILL), as a crash or a pulled plug would. */
   async kill(): Promise<void> {
+    if (this.external) throw new Error('a shared server is not killed by tests');
     const c = this.child;
     if (!c || c.exitCode !== null) return;
     const exited = new Promise((r) => c.once('exit', r));
@@ -84,7 +94,7 @@ export class CouchServer {
   }
 
   async stop(): Promise<void> {
-    await this.kill();
+    if (!this.external) await this.kill();
     rmSync(this.dir, { recursive: true, force: true });
   }
 }

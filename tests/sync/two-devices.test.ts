@@ -2,8 +2,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { CouchServer } from './couch-server';
 import { device, readingInput, siteInput } from './devices';
 
-const server = new CouchServer();
-const DB = 'tufa-two-devices';
+const server = new CouchServer({ shared: true });
+const DB = `tufa-two-devices-${Date.now()}`;
 
 beforeAll(async () => {
   await server.start();

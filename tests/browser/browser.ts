@@ -52,9 +52,12 @@ export async function untilControlled(page: Page): Promise<void> {
   await page.waitForFunction(() => !!navigator.serviceWorker.controller);
 }
 
-export async function screenshot(page: Page, name: string): Promise<void> {
+export async function screenshot(page: Page, name: string, opts: { fullPage?: boolean } = {}): Promise<void> {
   mkdirSync(ARTIFACTS, { recursive: true });
-  await page.screenshot({ path: new URL(`${name}.png`, ARTIFACTS).pathname, fullPage: true });
+  await page.screenshot({
+    path: new URL(`${name}.png`, ARTIFACTS).pathname,
+    fullPage: opts.fullPage ?? true,
+  });
 }
 
 /** Share of canvas pixels that are not fully transparent or background-white. */

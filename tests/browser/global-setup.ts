@@ -17,7 +17,20 @@ declare module 'vitest' {
 export default async function setup(project: TestProject) {
   const root = fileURLToPath(new URL('../../', import.meta.url));
   if (!process.env.TUFA_SKIP_BUILD) {
-    await build({ root: `${root}src`, configFile: `${root}vite.config.ts`, logLevel: 'warn' });
+    // Vitest sets NODE_ENV=test, which would make Vite build a development bundle (dev JSX,
+    // import.meta.env.DEV true, no service worker registration). Build what users get.
+    const saved = process.env.NODE_ENV;
+    process.env.NODE_ENV = 'production';
+    try {
+      await build({
+        root: `${root}src`,
+        configFile: `${root}vite.config.ts`,
+        mode: 'production',
+        logLevel: 'warn',
+      });
+    } finally {
+      process.env.NODE_ENV = saved;
+    }
   }
   const { server, url } = await serveDir(`${root}dist`);
   project.provide('baseUrl', url);

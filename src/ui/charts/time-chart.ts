@@ -40,7 +40,8 @@ export function createTimeChart(
     stroke: opts.textColour ?? '#1b1f23',
     grid: { stroke: opts.gridColour ?? '#d5d9dc', width: 1 },
   };
-  let busy = false;
+  // uPlot sets the x scale while it is being built; re-decimating then would re-enter setData.
+  let busy = true;
 
   const initial = decimate(full, width);
   const plot = new uPlot(
@@ -89,6 +90,17 @@ export function createTimeChart(
     toAligned(initial),
     el,
   );
+  busy = false;
+
+  // Figures for tests and benchmarks (and anyone inspecting the page): what is plotted.
+  const describe = () => {
+    el.dataset.totalPoints = String(full.xs.length);
+    el.dataset.drawnPoints = String(plot.data[0]?.length ?? 0);
+    el.dataset.xMin = String(full.xs[0] ?? '');
+    el.dataset.xMax = String(full.xs[full.xs.length - 1] ?? '');
+  };
+  describe();
+  plot.hooks.setData = [...(plot.hooks.setData ?? []), describe];
 
   const ro = new ResizeObserver(() => {
     const w = Math.max(200, el.clientWidth);

@@ -65,10 +65,19 @@ export function SiteScreen(props: { siteId: string }) {
     })().catch((e) => reportError(storeIssue(e)));
   }, [props.siteId, dataVersion]);
 
+  useEffect(() => {
+    setSelected([]);
+    setCompare([]);
+    setShown(PAGE);
+  }, [props.siteId]);
+
   const options = seriesOptions(readings);
   useEffect(() => {
-    if (selected.length === 0 && options.length)
-      setSelected([options.find((o) => o.id.startsWith('m:ph'))?.id ?? options[0]!.id]);
+    // Default to a measured quantity (pH if there is one) once the readings are in.
+    if (selected.length > 0 || readings.length === 0) return;
+    const measured = options.filter((o) => o.id.startsWith('m:'));
+    const first = measured.find((o) => o.id.startsWith('m:ph:')) ?? measured[0] ?? options[0];
+    if (first) setSelected([first.id]);
   }, [readings]);
 
   useEffect(() => {
@@ -150,7 +159,11 @@ export function SiteScreen(props: { siteId: string }) {
 
       <section class="panel" aria-labelledby="chart-h">
         <h2 id="chart-h">Time series</h2>
-        <div class="chart-controls">
+        <div ref={chartEl} class="chart" data-testid="time-chart" />
+        <p class="muted small">Drag across the chart to zoom; double-click to zoom out.</p>
+        {chartNote && <p class="issue warn">{chartNote}</p>}
+        <details class="chart-controls">
+          <summary>Choose what to plot ({selected.length + compare.length} chosen)</summary>
           <fieldset>
             <legend>Plot</legend>
             <div class="chips">
@@ -196,10 +209,7 @@ export function SiteScreen(props: { siteId: string }) {
               </div>
             </fieldset>
           )}
-        </div>
-        <div ref={chartEl} class="chart" data-testid="time-chart" />
-        <p class="muted small">Drag across the chart to zoom; double-click to zoom out.</p>
-        {chartNote && <p class="issue warn">{chartNote}</p>}
+        </details>
       </section>
 
       <section class="panel" aria-labelledby="log-h">

@@ -1,12 +1,3 @@
-/**
- * The one place the app picks up the carbonate engine. Swapped to the real solver in one line once
- * `src/chem/solve.ts` exists on main.
- */
+/** The one place the app picks up the carbonate engine (used by the worker and by tests). */
 
-import type { SolveInput, SolveResult } from '../chem/api';
-
-export function solve(_input: SolveInput): SolveResult {
-  return {
-    error: { code: 'engine-unavailable', message: 'The carbonate engine is not part of this build yet.' },
-  };
-}
+export { solve } from '../chem/solve';

@@ -28,7 +28,7 @@ export const OUTPUTS: OutputDef[] = [
   { key: 'ph_seawater', label: 'pH (seawater scale)', unit: '', decimals: 3 },
   { key: 'ph_nbs', label: 'pH (NBS scale)', unit: '', decimals: 3 },
   { key: 'ph', label: 'pH (activity)', unit: '', decimals: 3 },
-  { key: 'revelle_factor', label: 'Revelle factor', unit: '', digits: 3 },
+  { key: 'revelle_factor', label: 'Revelle factor', unit: '', decimals: 2 },
   { key: 'ionic_strength_mol_kg', label: 'Ionic strength', unit: 'mol/kg', digits: 3 },
   { key: 'langelier_index', label: 'Langelier index', unit: '', decimals: 2 },
   { key: 'ryznar_index', label: 'Ryznar index', unit: '', decimals: 2 },
@@ -57,4 +57,20 @@ export function numericOutputs(result: Record<string, unknown>): { def: OutputDe
     if (typeof v === 'number' && !BY_KEY.has(k)) out.push({ def: outputDef(k), value: v });
   }
   return out;
+}
+
+const PAIR_LABELS: Record<string, string> = {
+  alkalinity_umol_kg: 'alkalinity',
+  dic_umol_kg: 'DIC',
+  ph: 'pH',
+  pco2_uatm: 'pCO₂',
+  fco2_uatm: 'fCO₂',
+  co2_umol_kg: 'CO₂*',
+  hco3_umol_kg: 'HCO₃⁻',
+  co3_umol_kg: 'CO₃²⁻',
+};
+
+/** "alkalinity + pH" for the pair a result was solved from. */
+export function pairLabel(pair: readonly string[]): string {
+  return pair.map((k) => PAIR_LABELS[k] ?? k).join(' + ');
 }

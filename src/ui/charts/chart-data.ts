@@ -70,7 +70,9 @@ function lowerBound(xs: Float64Array, x: number): number {
 export function decimate(data: Columnar, buckets: number, xMin = -Infinity, xMax = Infinity): Columnar {
   const { xs, ys } = data;
   const start = Math.max(0, lowerBound(xs, xMin) - 1);
-  const end = Math.min(xs.length, lowerBound(xs, xMax) + 1);
+  let afterMax = lowerBound(xs, xMax);
+  if (afterMax < xs.length && xs[afterMax] === xMax) afterMax++;
+  const end = Math.min(xs.length, afterMax + 1);
   const n = end - start;
   if (n <= buckets * 4 || n < 2) {
     return { xs: xs.slice(start, end), ys: ys.map((y) => y.slice(start, end)) };

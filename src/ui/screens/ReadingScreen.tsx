@@ -22,7 +22,10 @@ function Speciation(props: { result: SolveOutput }) {
   // The constants are on the model's internal scale: total for saline water, activity for fresh.
   const fresh = props.result.model === 'fresh';
   const samplePh = (
-    fresh ? ((props.result.ph as number | undefined) ?? props.result.ph_nbs) : props.result.ph_total
+    fresh
+      ? (((props.result as unknown as Record<string, unknown>).ph as number | undefined) ??
+        props.result.ph_nbs)
+      : props.result.ph_total
   ) as number | undefined;
   const axis = fresh ? 'pH (activity)' : 'pH (total scale)';
   useEffect(() => {
@@ -149,7 +152,9 @@ export function ReadingScreen(props: { readingId: string }) {
           <section class="panel" aria-labelledby="const-h">
             <h2 id="const-h">Constants and formulations</h2>
             <table class="kv">
-              <caption class="sr-only">Constants used (−log10)</caption>
+              <caption class="sr-only">
+                Constants used (−log10 unless named otherwise), totals and formulations
+              </caption>
               <tbody>
                 {Object.entries(ok.constants).map(([k, v]) => (
                   <tr key={k}>
@@ -157,6 +162,22 @@ export function ReadingScreen(props: { readingId: string }) {
                     <td>{formatNumber(v, locale, { decimals: 4 })}</td>
                   </tr>
                 ))}
+                {Object.entries(ok.totals_umol_kg ?? {}).map(([k, v]) => (
+                  <tr key={`t-${k}`}>
+                    <th scope="row">total {k} (µmol/kg)</th>
+                    <td>{formatNumber(v, locale, { digits: 5 })}</td>
+                  </tr>
+                ))}
+                {ok.conditions && (
+                  <tr>
+                    <th scope="row">results refer to</th>
+                    <td>
+                      {formatNumber(ok.conditions.temperature_c, locale, { digits: 4 })} °C, salinity{' '}
+                      {formatNumber(ok.conditions.salinity, locale, { digits: 4 })},{' '}
+                      {formatNumber(ok.conditions.pressure_dbar, locale, { digits: 4 })} dbar
+                    </td>
+                  </tr>
+                )}
                 {Object.entries(ok.formulations).map(([k, v]) => (
                   <tr key={`f-${k}`}>
                     <th scope="row">{k}</th>

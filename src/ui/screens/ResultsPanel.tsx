@@ -5,7 +5,7 @@ import { isSolveError } from '../../chem/api';
 import { useApp } from '../app-context';
 import { RESULT_CAUTION, resultAlerts } from '../cautions';
 import { formatNumber } from '../numbers';
-import { numericOutputs } from '../outputs';
+import { numericOutputs, pairLabel } from '../outputs';
 import { quantityForKey } from '../quantities';
 
 export function ResultsPanel(props: { result: SolveResult | undefined; busy?: boolean; full?: boolean }) {
@@ -30,10 +30,11 @@ export function ResultsPanel(props: { result: SolveResult | undefined; busy?: bo
       </section>
     );
   }
-  const rows = numericOutputs(result).filter((r) => props.full || r.def.headline);
+  const record = result as unknown as Record<string, unknown>;
+  const rows = numericOutputs(record).filter((r) => props.full || r.def.headline);
   // Warnings about an input are shown beside that input on the entry screen; here the rest.
   const general = result.warnings.filter((w) => props.full || !w.field || !quantityForKey(w.field));
-  const alerts = resultAlerts(result);
+  const alerts = resultAlerts(record);
   return (
     <section class={`results${props.busy ? ' busy' : ''}`} aria-live="polite" aria-label="Results">
       <dl class="outputs">
@@ -53,7 +54,7 @@ export function ResultsPanel(props: { result: SolveResult | undefined; busy?: bo
           </div>
         ))}
       </dl>
-      {typeof result.pco2_uatm === 'number' && result.pco2_excess_ratio === undefined && (
+      {typeof result.pco2_uatm === 'number' && record.pco2_excess_ratio === undefined && (
         <p class="small" data-key="pco2-air">
           pCO₂ is {formatNumber(result.pco2_uatm / settings.atmospheric_pco2_uatm, locale, { digits: 3 })} ×
           that of air ({formatNumber(settings.atmospheric_pco2_uatm, locale, { digits: 4 })} µatm, set in
@@ -62,7 +63,7 @@ export function ResultsPanel(props: { result: SolveResult | undefined; busy?: bo
       )}
       <p class="muted small">
         Model: {result.model}
-        {result.pair ? ` · solved from ${result.pair.join(' + ')}` : ''}
+        {result.pair ? ` · solved from ${pairLabel(result.pair)}` : ''}
       </p>
       {general.length > 0 && (
         <ul class="warnings">

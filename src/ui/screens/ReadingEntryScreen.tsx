@@ -88,6 +88,11 @@ export function ReadingEntryScreen(props: { siteId?: string; readingId?: string 
     })().catch((e) => setSaveIssue(storeIssue(e)));
   }, [props.siteId, props.readingId]);
 
+  useEffect(() => {
+    // Marks when a person can start typing; the cold-start benchmark reads it.
+    if (loaded) performance.mark('tufa-entry-ready');
+  }, [loaded]);
+
   const parsed = useMemo(
     () =>
       rows.map((r) => {

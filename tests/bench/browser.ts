@@ -14,10 +14,10 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { build as esbuild } from 'esbuild';
 import { chromium } from 'playwright-core';
 import { build } from 'vite';
 import { CHROMIUM, launch } from '../browser/browser';
+import { injectAppModules } from '../browser/bundle';
 import { serveDir } from '../browser/static-server';
 import { SHELL_BUDGET_BYTES, shellSize } from './size-budget';
 
@@ -38,24 +38,15 @@ async function buildApp(): Promise<void> {
   const saved = process.env.NODE_ENV;
   process.env.NODE_ENV = 'production';
   try {
-    await build({ root: `${ROOT}src`, configFile: `${ROOT}vite.config.ts`, mode: 'production', logLevel: 'warn' });
+    await build({
+      root: `${ROOT}src`,
+      configFile: `${ROOT}vite.config.ts`,
+      mode: 'production',
+      logLevel: 'warn',
+    });
   } finally {
     process.env.NODE_ENV = saved;
   }
-}
-
-async function benchBundle(): Promise<string> {
-  const out = await esbuild({
-    entryPoints: [`${ROOT}tests/bench/browser-entry.ts`],
-    bundle: true,
-    format: 'iife',
-    globalName: 'TufaBench',
-    write: false,
-    minify: true,
-    loader: { '.css': 'empty' },
-    target: 'es2022',
-  });
-  return out.outputFiles[0]!.text;
 }
 
 async function storeAndChart(url: string): Promise<Omit<BrowserFigures, 'coldStartMs' | 'shellGzipBytes'>> {
@@ -64,13 +55,16 @@ async function storeAndChart(url: string): Promise<Omit<BrowserFigures, 'coldSta
     const page = await (await browser.newContext({ viewport: { width: 1000, height: 700 } })).newPage();
     // A blank page on the app's origin (its IndexedDB), without starting the app itself.
     await page.route(`${url}bench.html`, (r) =>
-      r.fulfill({ contentType: 'text/html', body: '<!doctype html><div id="chart" style="width:900px"></div>' }),
+      r.fulfill({
+        contentType: 'text/html',
+        body: '<!doctype html><div id="chart" style="width:900px"></div>',
+      }),
     );
     await page.goto(`${url}bench.html`);
-    await page.addScriptTag({ content: await benchBundle() });
+    await injectAppModules(page);
     return await page.evaluate(async () => {
       type Bench = typeof import('./browser-entry');
-      const B = (window as unknown as { TufaBench: Bench }).TufaBench;
+      const B = (window as unknown as { TufaModules: Bench }).TufaModules;
       const repo = await B.openRepository({ name: `bench-${Date.now()}` });
       const site = await repo.createSite({ name: 'Bench logger', kind: 'stream', defaults: {}, notes: '' });
       const n = 100_000;
@@ -134,8 +128,14 @@ async function coldStart(url: string): Promise<number> {
       await new Promise((res) => {
         const tx = db.transaction('sites', 'readwrite');
         tx.objectStore('sites').put({
-          id, type: 'site', name: 'Cold spring', kind: 'spring', defaults: {}, notes: '',
-          updatedAt: new Date().toISOString(), deleted: false,
+          id,
+          type: 'site',
+          name: 'Cold spring',
+          kind: 'spring',
+          defaults: {},
+          notes: '',
+          updatedAt: new Date().toISOString(),
+          deleted: false,
         });
         tx.oncomplete = res;
       });
@@ -144,12 +144,18 @@ async function coldStart(url: string): Promise<number> {
     await ctx.close();
 
     // Restart the browser, cut the network (page and worker), open the reading form.
-    ctx = await chromium.launchPersistentContext(dir, { executablePath: CHROMIUM, args: ARGS, offline: true });
+    ctx = await chromium.launchPersistentContext(dir, {
+      executablePath: CHROMIUM,
+      args: ARGS,
+      offline: true,
+    });
     await ctx.route('**/*', (r) => r.abort('internetdisconnected'));
     page = ctx.pages()[0] ?? (await ctx.newPage());
     await page.goto(`${url}#/site/${siteId}/new-reading`);
     await page.waitForSelector('#q-temperature');
-    const ms = await page.evaluate(() => performance.getEntriesByName('tufa-entry-ready')[0]?.startTime ?? Number.NaN);
+    const ms = await page.evaluate(
+      () => performance.getEntriesByName('tufa-entry-ready')[0]?.startTime ?? Number.NaN,
+    );
     const controlled = await page.evaluate(() => !!navigator.serviceWorker.controller);
     await ctx.close();
     if (!controlled) throw new Error('cold start was not served by the service worker');
@@ -172,15 +178,42 @@ export async function runBrowserBench(): Promise<BrowserFigures> {
 }
 
 function line(name: string, value: string, target: string, ok: boolean) {
-  console.log(`${name.padEnd(44)} ${value.padStart(12)}   target ${target.padEnd(10)} ${ok ? 'ok' : 'MISSED'}`);
+  console.log(
+    `${name.padEnd(44)} ${value.padStart(12)}   target ${target.padEnd(10)} ${ok ? 'ok' : 'MISSED'}`,
+  );
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) {
   const f = await runBrowserBench();
   console.log('Browser (headless Chromium):');
-  line('bulk-save 100 000 readings (+ outbox)', `${f.bulkSaveMs.toFixed(0)} ms`, '< 5000 ms', f.bulkSaveMs < 5000);
-  line(`read back one site (${f.readBackCount} readings)`, `${f.readBackMs.toFixed(0)} ms`, '< 1000 ms', f.readBackMs < 1000);
-  line(`render 100 000-point chart (${f.chartDrawn} drawn)`, `${f.chartMs.toFixed(0)} ms`, '< 200 ms', f.chartMs < 200);
-  line('cold start offline to first usable input', `${f.coldStartMs.toFixed(0)} ms`, '< 1000 ms', f.coldStartMs < 1000);
-  line('shell first-load JS (gzip)', `${(f.shellGzipBytes / 1024).toFixed(1)} KB`, '<= 100 KB', f.shellGzipBytes <= SHELL_BUDGET_BYTES);
+  line(
+    'bulk-save 100 000 readings (+ outbox)',
+    `${f.bulkSaveMs.toFixed(0)} ms`,
+    '< 5000 ms',
+    f.bulkSaveMs < 5000,
+  );
+  line(
+    `read back one site (${f.readBackCount} readings)`,
+    `${f.readBackMs.toFixed(0)} ms`,
+    '< 1000 ms',
+    f.readBackMs < 1000,
+  );
+  line(
+    `render 100 000-point chart (${f.chartDrawn} drawn)`,
+    `${f.chartMs.toFixed(0)} ms`,
+    '< 200 ms',
+    f.chartMs < 200,
+  );
+  line(
+    'cold start offline to first usable input',
+    `${f.coldStartMs.toFixed(0)} ms`,
+    '< 1000 ms',
+    f.coldStartMs < 1000,
+  );
+  line(
+    'shell first-load JS (gzip)',
+    `${(f.shellGzipBytes / 1024).toFixed(1)} KB`,
+    '<= 100 KB',
+    f.shellGzipBytes <= SHELL_BUDGET_BYTES,
+  );
 }

@@ -3,6 +3,7 @@
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { inkedShare, launch, newContext, openApp, screenshot } from './browser';
+import { injectAppModules } from './bundle';
 
 let browser: Browser;
 let page: Page;
@@ -14,34 +15,26 @@ beforeAll(async () => {
 });
 afterAll(async () => browser?.close());
 
-/** Writes n readings of one new site straight into IndexedDB (as an import would). */
+/** Saves n readings of one new site through the app's repository (as an import would). */
 async function seed(n: number): Promise<string> {
+  await injectAppModules(page);
   return page.evaluate(async (count) => {
-    const db = await new Promise<IDBDatabase>((res, rej) => {
-      const r = indexedDB.open('tufa');
-      r.onsuccess = () => res(r.result);
-      r.onerror = () => rej(r.error);
-    });
-    const siteId = `bulk-${count}`;
-    const now = new Date().toISOString();
-    const tx = db.transaction(['sites', 'readings'], 'readwrite');
-    tx.objectStore('sites').put({
-      id: siteId,
-      type: 'site',
+    type M = typeof import('../bench/browser-entry');
+    const { openRepository } = (window as unknown as { TufaModules: M }).TufaModules;
+    const repo = await openRepository();
+    const site = await repo.createSite({
       name: `Logger pond ${count}`,
       kind: 'pond',
       defaults: {},
       notes: '',
-      updatedAt: now,
-      deleted: false,
     });
     const t0 = Date.parse('2026-01-01T00:00:00Z');
-    const rs = tx.objectStore('readings');
-    for (let i = 0; i < count; i++) {
-      rs.put({
-        id: `${siteId}-${i}`,
-        type: 'reading',
-        siteId,
+    const now = new Date().toISOString();
+    await repo.bulkPut(
+      Array.from({ length: count }, (_, i) => ({
+        id: `${site.id}-${i}`,
+        type: 'reading' as const,
+        siteId: site.id,
         takenAt: new Date(t0 + i * 600e3).toISOString(),
         timeZone: 'UTC',
         values: [
@@ -50,14 +43,10 @@ async function seed(n: number): Promise<string> {
         notes: '',
         updatedAt: now,
         deleted: false,
-      });
-    }
-    await new Promise((res, rej) => {
-      tx.oncomplete = res;
-      tx.onerror = () => rej(tx.error);
-    });
-    db.close();
-    return siteId;
+      })),
+    );
+    repo.close();
+    return site.id;
   }, n);
 }
 

@@ -7,6 +7,7 @@
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { launch, newContext, openApp, screenshot, untilControlled } from './browser';
+import { injectAppModules } from './bundle';
 
 let browser: Browser;
 let context: BrowserContext;
@@ -63,16 +64,12 @@ describe('offline', () => {
     await page.waitForSelector('html[data-ready="true"]');
     await page.getByRole('link', { name: /Nettlebed seep/ }).click();
     await expect.poll(() => page.locator('.log li').count()).toBe(2);
+    await injectAppModules(page);
     const notes = await page.evaluate(async () => {
-      const db = await new Promise<IDBDatabase>((res, rej) => {
-        const r = indexedDB.open('tufa');
-        r.onsuccess = () => res(r.result);
-        r.onerror = () => rej(r.error);
-      });
-      const all = await new Promise<{ notes: string }[]>((res) => {
-        const q = db.transaction('readings').objectStore('readings').getAll();
-        q.onsuccess = () => res(q.result);
-      });
+      type M = typeof import('../bench/browser-entry');
+      const repo = await (window as unknown as { TufaModules: M }).TufaModules.openRepository();
+      const all = await repo.listAllReadings();
+      repo.close();
       return all.map((r) => r.notes).sort();
     });
     expect(notes).toEqual(['offline reading', 'online reading']);

@@ -9,7 +9,8 @@
 import { type IDBPDatabase, type IDBPTransaction, openDB, type StoreNames } from 'idb';
 import type { Issue } from '../chem/errors';
 import { asStoreError, UPGRADE_BLOCKED } from './errors';
-import { DB_NAME, type TufaDB } from './schema';
+import { bucketOf, mergePage, metaOf, pageIdOf } from './pages';
+import { DB_NAME, type LocatorBucket, type OutboxBucket, type ReadingDoc, type TufaDB } from './schema';
 
 type UpgradeTx = IDBPTransaction<TufaDB, StoreNames<TufaDB>[], 'versionchange'>;
 type Migration = (db: IDBPDatabase<TufaDB>, tx: UpgradeTx) => void;
@@ -33,6 +34,46 @@ const MIGRATIONS: readonly Migration[] = [
     const layouts = db.createObjectStore('layouts', { keyPath: 'id' });
     layouts.createIndex('byHeader', 'headerSignature');
     tx.objectStore('readings').createIndex('byUpdatedAt', 'updatedAt');
+  },
+  // v3: readings in pages per site and month, reading locator and outbox in hashed buckets, so
+  // that 100 000 readings are a few hundred records (see pages.ts). Moves the v1–v2 data over.
+  (db, tx) => {
+    const metas = db.createObjectStore('readingPages', { keyPath: 'id' });
+    metas.createIndex('bySiteMonth', ['siteId', 'month']);
+    db.createObjectStore('readingPageData', { keyPath: 'id' });
+    db.createObjectStore('readingLocator', { keyPath: 'bucket' });
+    db.createObjectStore('outboxBuckets', { keyPath: 'bucket' });
+    // The upgrade transaction stays alive while its own requests run: only IndexedDB is awaited.
+    void Promise.all([tx.objectStore('readings').getAll(), tx.objectStore('outbox').getAll()]).then(
+      ([readings, outbox]) => {
+        const pages = new Map<string, ReadingDoc[]>();
+        const locator = new Map<number, LocatorBucket>();
+        for (const r of readings) {
+          const id = pageIdOf(r.siteId, r.takenAt);
+          pages.set(id, [...(pages.get(id) ?? []), r]);
+          const b = bucketOf(r.id);
+          const bucket = locator.get(b) ?? { bucket: b, pages: {} };
+          bucket.pages[r.id] = id;
+          locator.set(b, bucket);
+        }
+        for (const [id, docs] of pages) {
+          const sorted = mergePage([], docs, new Set());
+          tx.objectStore('readingPageData').put({ id, readings: sorted });
+          tx.objectStore('readingPages').put(metaOf(id, sorted));
+        }
+        for (const bucket of locator.values()) tx.objectStore('readingLocator').put(bucket);
+        const ob = new Map<number, OutboxBucket>();
+        for (const e of outbox) {
+          const b = bucketOf(e.docId);
+          const bucket = ob.get(b) ?? { bucket: b, entries: {} };
+          bucket.entries[e.docId] = e;
+          ob.set(b, bucket);
+        }
+        for (const bucket of ob.values()) tx.objectStore('outboxBuckets').put(bucket);
+        db.deleteObjectStore('readings');
+        db.deleteObjectStore('outbox');
+      },
+    );
   },
 ];
 

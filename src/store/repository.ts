@@ -11,19 +11,24 @@
  * - Bulk writes are all-or-nothing: every document is validated first, then written in one
  *   transaction that aborts on the first failure.
  * - Only IndexedDB calls are awaited inside a transaction (it auto-commits otherwise).
+ * - Readings live in pages per site and month, outbox entries in hashed buckets (`pages.ts`);
+ *   that layout is internal: every call here takes and returns plain documents and entries.
  * Failures reach callers as TufaError with a store code (`storeIssue()` turns them into Issues).
  */
 
-import type { IDBPDatabase } from 'idb';
+import type { IDBPDatabase, IDBPTransaction } from 'idb';
 import { type OpenOptions, openTufaDb } from './database';
 import { asStoreError, storeError } from './errors';
+import { bucketOf, mergePage, metaOf, pageIdOf } from './pages';
 import type {
   ConflictRecord,
   CsvLayout,
+  LocatorBucket,
+  OutboxBucket,
   OutboxEntry,
   ReadingDoc,
+  ReadingPageData,
   SiteDoc,
-  StoreName,
   TufaDB,
   TufaDoc,
 } from './schema';
@@ -75,6 +80,107 @@ function outboxOf(doc: TufaDoc): OutboxEntry {
   return { docId: doc.id, type: doc.type, updatedAt: doc.updatedAt };
 }
 
+/** The stores every document write touches, locked together so a change and its queue entry commit as one. */
+const DOC_STORES = [
+  'sites',
+  'readingPages',
+  'readingPageData',
+  'readingLocator',
+  'outboxBuckets',
+  'conflicts',
+] as const;
+type DocTx = IDBPTransaction<TufaDB, (typeof DOC_STORES)[number][], 'readwrite'>;
+/** The two lookups finding a reading needs, from whatever transaction the caller holds. */
+interface ReadingLookup {
+  locator(bucket: number): Promise<LocatorBucket | undefined>;
+  page(id: string): Promise<ReadingPageData | undefined>;
+}
+function lookupIn(tx: {
+  objectStore(name: 'readingLocator'): { get(k: number): Promise<LocatorBucket | undefined> };
+  objectStore(name: 'readingPageData'): { get(k: string): Promise<ReadingPageData | undefined> };
+}): ReadingLookup {
+  return {
+    locator: (b) => tx.objectStore('readingLocator').get(b),
+    page: (id) => tx.objectStore('readingPageData').get(id),
+  };
+}
+
+function unique<T>(xs: Iterable<T>): T[] {
+  return [...new Set(xs)];
+}
+
+/** Current versions of readings by id, located through the locator buckets. */
+async function findReadings(tx: ReadingLookup, ids: string[]): Promise<Map<string, ReadingDoc>> {
+  const buckets = unique(ids.map(bucketOf));
+  const locs = await Promise.all(buckets.map((b) => tx.locator(b)));
+  const pageOf = new Map<string, string>();
+  for (const id of ids) {
+    const loc = locs[buckets.indexOf(bucketOf(id))];
+    const p = loc?.pages[id];
+    if (p) pageOf.set(id, p);
+  }
+  const pageIds = unique(pageOf.values());
+  const datas = await Promise.all(pageIds.map((p) => tx.page(p)));
+  const out = new Map<string, ReadingDoc>();
+  const wanted = new Set(ids);
+  for (const d of datas) for (const r of d?.readings ?? []) if (wanted.has(r.id)) out.set(r.id, r);
+  return out;
+}
+
+/** Writes readings into their pages (moving any whose site or month changed) and the locator. */
+async function putReadings(tx: DocTx, docs: ReadingDoc[]): Promise<void> {
+  if (docs.length === 0) return;
+  const buckets = unique(docs.map((d) => bucketOf(d.id)));
+  const got = await Promise.all(buckets.map((b) => tx.objectStore('readingLocator').get(b)));
+  const locator = new Map<number, LocatorBucket>();
+  buckets.forEach((b, i) => {
+    locator.set(b, got[i] ?? { bucket: b, pages: {} });
+  });
+  const upserts = new Map<string, ReadingDoc[]>();
+  const removes = new Map<string, Set<string>>();
+  for (const d of docs) {
+    const target = pageIdOf(d.siteId, d.takenAt);
+    const loc = locator.get(bucketOf(d.id))!;
+    const old = loc.pages[d.id];
+    if (old !== undefined && old !== target) {
+      const set = removes.get(old) ?? new Set<string>();
+      set.add(d.id);
+      removes.set(old, set);
+    }
+    const list = upserts.get(target);
+    if (list) list.push(d);
+    else upserts.set(target, [d]);
+    loc.pages[d.id] = target;
+  }
+  const pageIds = unique([...upserts.keys(), ...removes.keys()]);
+  const datas = await Promise.all(pageIds.map((p) => tx.objectStore('readingPageData').get(p)));
+  const writes: Promise<unknown>[] = [];
+  pageIds.forEach((id, i) => {
+    const merged = mergePage(datas[i]?.readings ?? [], upserts.get(id) ?? [], removes.get(id) ?? new Set());
+    if (merged.length === 0) {
+      writes.push(tx.objectStore('readingPageData').delete(id), tx.objectStore('readingPages').delete(id));
+    } else {
+      writes.push(tx.objectStore('readingPageData').put({ id, readings: merged }));
+      writes.push(tx.objectStore('readingPages').put(metaOf(id, merged)));
+    }
+  });
+  for (const b of locator.values()) writes.push(tx.objectStore('readingLocator').put(b));
+  await Promise.all(writes);
+}
+
+/** Queues one outbox entry per document (replacing an older entry of the same document). */
+async function queue(tx: DocTx, entries: OutboxEntry[]): Promise<void> {
+  if (entries.length === 0) return;
+  const buckets = unique(entries.map((e) => bucketOf(e.docId)));
+  const got = await Promise.all(buckets.map((b) => tx.objectStore('outboxBuckets').get(b)));
+  const byBucket = new Map<number, OutboxBucket>();
+  buckets.forEach((b, i) => {
+    byBucket.set(b, got[i] ?? { bucket: b, entries: {} });
+  });
+  for (const e of entries) byBucket.get(bucketOf(e.docId))!.entries[e.docId] = e;
+  await Promise.all([...byBucket.values()].map((b) => tx.objectStore('outboxBuckets').put(b)));
+}
+
 export class Repository {
   constructor(
     readonly db: IDBPDatabase<TufaDB>,
@@ -108,61 +214,74 @@ export class Repository {
       deleted: false,
     };
     validateSite(doc);
-    await this.writeLocal('sites', [doc]);
+    await this.writeLocal([doc]);
     return doc;
   }
 
   async updateSite(id: string, patch: SitePatch): Promise<SiteDoc> {
-    return this.change('sites', id, (cur) => ({ ...cur, ...patch }));
+    return this.change<SiteDoc>('site', id, (cur) => ({ ...cur, ...patch }));
   }
 
   /** Tombstones the site and every live reading of it, in one transaction. */
   async deleteSite(id: string): Promise<void> {
     const now = this.now();
-    await this.run(async () => {
-      const tx = this.db.transaction(['sites', 'readings', 'outbox'], 'readwrite', STRICT);
+    await this.inDocTx(async (tx) => {
       const site = await tx.objectStore('sites').get(id);
-      if (!site) {
-        tx.abort();
-        await tx.done.catch(() => undefined);
-        throw storeError('store-not-found', `No site with id ${id}.`);
-      }
+      if (!site) throw storeError('store-not-found', `No site with id ${id}.`);
       const range = IDBKeyRange.bound([id, ''], [id, '\uffff']);
-      const readings = await tx.objectStore('readings').index('bySiteTime').getAll(range);
-      const changed: TufaDoc[] = [{ ...site, deleted: true, updatedAt: laterThan(site.updatedAt, now) }];
-      for (const r of readings)
-        if (!r.deleted) changed.push({ ...r, deleted: true, updatedAt: laterThan(r.updatedAt, now) });
-      const writes: Promise<unknown>[] = [];
-      for (const d of changed) {
-        writes.push(d.type === 'site' ? tx.objectStore('sites').put(d) : tx.objectStore('readings').put(d));
-        writes.push(tx.objectStore('outbox').put(outboxOf(d)));
-      }
-      await Promise.all([...writes, tx.done]);
+      const metas = await tx.objectStore('readingPages').index('bySiteMonth').getAll(range);
+      const datas = await Promise.all(metas.map((m) => tx.objectStore('readingPageData').get(m.id)));
+      const dead: ReadingDoc[] = [];
+      for (const d of datas)
+        for (const r of d?.readings ?? [])
+          if (!r.deleted) dead.push({ ...r, deleted: true, updatedAt: laterThan(r.updatedAt, now) });
+      const tomb: SiteDoc = { ...site, deleted: true, updatedAt: laterThan(site.updatedAt, now) };
+      await tx.objectStore('sites').put(tomb);
+      await putReadings(tx, dead);
+      await queue(tx, [tomb, ...dead].map(outboxOf));
     });
   }
 
   async restoreSite(id: string): Promise<SiteDoc> {
-    return this.change('sites', id, (cur) => ({ ...cur, deleted: false }), true);
+    return this.change<SiteDoc>('site', id, (cur) => ({ ...cur, deleted: false }), true);
   }
 
   // ---- readings -------------------------------------------------------------------------------
 
   async listReadings(siteId: string, opts: ListReadingsOptions = {}): Promise<ReadingDoc[]> {
-    const range = IDBKeyRange.bound([siteId, opts.from ?? ''], [siteId, opts.to ?? '\uffff']);
-    const all = await this.run(() => this.db.getAllFromIndex('readings', 'bySiteTime', range));
-    let kept = opts.includeDeleted ? all : all.filter((r) => !r.deleted);
+    const all = await this.run(async () => {
+      const tx = this.db.transaction(['readingPages', 'readingPageData'], 'readonly');
+      const range = IDBKeyRange.bound(
+        [siteId, opts.from?.slice(0, 7) ?? ''],
+        [siteId, opts.to?.slice(0, 7) ?? '\uffff'],
+      );
+      const metas = await tx.objectStore('readingPages').index('bySiteMonth').getAll(range);
+      const datas = await Promise.all(metas.map((m) => tx.objectStore('readingPageData').get(m.id)));
+      await tx.done;
+      return datas.flatMap((d) => d?.readings ?? []);
+    });
+    const from = opts.from ?? '';
+    const to = opts.to ?? '\uffff';
+    let kept = all.filter((r) => (opts.includeDeleted || !r.deleted) && r.takenAt >= from && r.takenAt <= to);
     if (opts.newestFirst) kept.reverse();
     if (opts.limit !== undefined) kept = kept.slice(0, opts.limit);
     return kept;
   }
 
+  /** Readings of a site that are not deleted (cheap: page summaries only). */
   async countReadings(siteId: string): Promise<number> {
     const range = IDBKeyRange.bound([siteId, ''], [siteId, '\uffff']);
-    return this.run(() => this.db.countFromIndex('readings', 'bySiteTime', range));
+    const metas = await this.run(() => this.db.getAllFromIndex('readingPages', 'bySiteMonth', range));
+    return metas.reduce((n, m) => n + m.live, 0);
   }
 
   async getReading(id: string): Promise<ReadingDoc | undefined> {
-    return this.run(() => this.db.get('readings', id));
+    return this.run(async () => {
+      const tx = this.db.transaction(['readingPages', 'readingPageData', 'readingLocator'], 'readonly');
+      const found = await findReadings(lookupIn(tx), [id]);
+      await tx.done;
+      return found.get(id);
+    });
   }
 
   async createReading(input: NewReading): Promise<ReadingDoc> {
@@ -175,23 +294,26 @@ export class Repository {
       deleted: false,
     };
     validateReading(doc);
-    const site = await this.getSite(doc.siteId);
-    if (!site || site.deleted)
-      throw storeError('store-not-found', `No site with id ${doc.siteId}.`, 'siteId');
-    await this.writeLocal('readings', [doc]);
+    await this.inDocTx(async (tx) => {
+      const site = await tx.objectStore('sites').get(doc.siteId);
+      if (!site || site.deleted)
+        throw storeError('store-not-found', `No site with id ${doc.siteId}.`, 'siteId');
+      await putReadings(tx, [doc]);
+      await queue(tx, [outboxOf(doc)]);
+    });
     return doc;
   }
 
   async updateReading(id: string, patch: ReadingPatch): Promise<ReadingDoc> {
-    return this.change('readings', id, (cur) => ({ ...cur, ...patch }));
+    return this.change<ReadingDoc>('reading', id, (cur) => ({ ...cur, ...patch }));
   }
 
   async deleteReading(id: string): Promise<ReadingDoc> {
-    return this.change('readings', id, (cur) => ({ ...cur, deleted: true }), true);
+    return this.change<ReadingDoc>('reading', id, (cur) => ({ ...cur, deleted: true }), true);
   }
 
   async restoreReading(id: string): Promise<ReadingDoc> {
-    return this.change('readings', id, (cur) => ({ ...cur, deleted: false }), true);
+    return this.change<ReadingDoc>('reading', id, (cur) => ({ ...cur, deleted: false }), true);
   }
 
   // ---- bulk and sync --------------------------------------------------------------------------
@@ -221,47 +343,67 @@ export class Repository {
   /** Current versions of the given documents (tombstones included), e.g. to push an outbox. */
   async getDocs(ids: { docId: string; type: 'site' | 'reading' }[]): Promise<TufaDoc[]> {
     return this.run(async () => {
-      const tx = this.db.transaction(['sites', 'readings'], 'readonly');
-      const got = await Promise.all(
-        ids.map((e) =>
-          e.type === 'site' ? tx.objectStore('sites').get(e.docId) : tx.objectStore('readings').get(e.docId),
-        ),
+      const tx = this.db.transaction(
+        ['sites', 'readingPages', 'readingPageData', 'readingLocator'],
+        'readonly',
       );
+      const siteIds = ids.filter((e) => e.type === 'site').map((e) => e.docId);
+      const readingIds = ids.filter((e) => e.type === 'reading').map((e) => e.docId);
+      const [sites, readings] = await Promise.all([
+        Promise.all(siteIds.map((i) => tx.objectStore('sites').get(i))),
+        findReadings(lookupIn(tx), readingIds),
+      ]);
       await tx.done;
-      return got.filter((d): d is TufaDoc => d !== undefined);
+      const siteMap = new Map(sites.filter((d): d is SiteDoc => d !== undefined).map((d) => [d.id, d]));
+      return ids
+        .map((e) => (e.type === 'site' ? siteMap.get(e.docId) : readings.get(e.docId)))
+        .filter((d): d is TufaDoc => d !== undefined);
     });
   }
 
   /** Every reading of every site (tombstones on request), e.g. for export. */
   async listAllReadings(opts: { includeDeleted?: boolean } = {}): Promise<ReadingDoc[]> {
-    const all = await this.run(() => this.db.getAll('readings'));
+    const pages = await this.run(() => this.db.getAll('readingPageData'));
+    const all = pages.flatMap((p) => p.readings);
     return opts.includeDeleted ? all : all.filter((r) => !r.deleted);
   }
 
   // ---- outbox ---------------------------------------------------------------------------------
 
+  /** Pending pushes, oldest change first. */
   async listOutbox(limit?: number): Promise<OutboxEntry[]> {
-    return this.run(() => this.db.getAll('outbox', null, limit));
+    const buckets = await this.run(() => this.db.getAll('outboxBuckets'));
+    const all = buckets.flatMap((b) => Object.values(b.entries));
+    all.sort((a, b) =>
+      a.updatedAt < b.updatedAt ? -1 : a.updatedAt > b.updatedAt ? 1 : a.docId < b.docId ? -1 : 1,
+    );
+    return limit === undefined ? all : all.slice(0, limit);
   }
 
   async outboxSize(): Promise<number> {
-    return this.run(() => this.db.count('outbox'));
+    const buckets = await this.run(() => this.db.getAll('outboxBuckets'));
+    return buckets.reduce((n, b) => n + Object.keys(b.entries).length, 0);
   }
 
   /** Removes pushed entries, except those whose document changed again since (still pending). */
   async ackOutbox(pushed: OutboxEntry[]): Promise<number> {
     return this.run(async () => {
-      const tx = this.db.transaction('outbox', 'readwrite', STRICT);
-      const current = await Promise.all(pushed.map((e) => tx.store.get(e.docId)));
+      const tx = this.db.transaction('outboxBuckets', 'readwrite', STRICT);
+      const buckets = unique(pushed.map((e) => bucketOf(e.docId)));
+      const got = await Promise.all(buckets.map((b) => tx.store.get(b)));
       let removed = 0;
-      const dels: Promise<unknown>[] = [];
-      current.forEach((cur, i) => {
-        if (cur && cur.updatedAt === pushed[i]?.updatedAt) {
-          dels.push(tx.store.delete(cur.docId));
+      for (const e of pushed) {
+        const bucket = got[buckets.indexOf(bucketOf(e.docId))];
+        const cur = bucket?.entries[e.docId];
+        if (bucket && cur && cur.updatedAt === e.updatedAt) {
+          delete bucket.entries[e.docId];
           removed++;
         }
-      });
-      await Promise.all([...dels, tx.done]);
+      }
+      await Promise.all([
+        ...got.filter((b): b is OutboxBucket => b !== undefined).map((b) => tx.store.put(b)),
+        tx.done,
+      ]);
       return removed;
     });
   }
@@ -348,84 +490,67 @@ export class Repository {
     }
   }
 
-  private async writeLocal(store: 'sites' | 'readings', docs: TufaDoc[]): Promise<void> {
-    await this.writeDocs(docs, true, [], store);
-  }
-
-  private async writeDocs(
-    docs: TufaDoc[],
-    queue: boolean,
-    conflicts: ConflictRecord[],
-    only?: 'sites' | 'readings',
-  ): Promise<void> {
-    const names: StoreName[] = only ? [only] : ['sites', 'readings'];
-    if (queue) names.push('outbox');
-    if (conflicts.length) names.push('conflicts');
+  /** Runs `work` in one strict read-write transaction over the document stores; any throw aborts it all. */
+  private async inDocTx(work: (tx: DocTx) => Promise<void>): Promise<void> {
     await this.run(async () => {
-      const tx = this.db.transaction(
-        names as ('sites' | 'readings' | 'outbox' | 'conflicts')[],
-        'readwrite',
-        STRICT,
-      );
-      const writes: Promise<unknown>[] = [];
+      const tx = this.db.transaction([...DOC_STORES], 'readwrite', STRICT);
       try {
-        const sites = names.includes('sites') ? tx.objectStore('sites') : undefined;
-        const readings = names.includes('readings') ? tx.objectStore('readings') : undefined;
-        const outbox = queue ? tx.objectStore('outbox') : undefined;
-        for (const d of docs) {
-          if (d.type === 'site') writes.push(sites!.put(d));
-          else writes.push(readings!.put(d));
-          if (outbox) writes.push(outbox.put(outboxOf(d)));
-        }
-        if (conflicts.length) {
-          const cs = tx.objectStore('conflicts');
-          for (const c of conflicts) writes.push(cs.put(c));
-        }
+        await work(tx);
       } catch (e) {
-        // A put threw synchronously (e.g. a value that cannot be cloned): abort the whole batch and
-        // swallow the rejections of the requests already issued, which the abort causes.
-        for (const w of writes) w.catch(() => undefined);
+        // Swallow the abort's own rejection of tx.done; the caller gets the first error.
         tx.done.catch(() => undefined);
-        tx.abort();
+        try {
+          tx.abort();
+        } catch {
+          // already aborted by the failed request
+        }
         throw e;
       }
-      await Promise.all([...writes, tx.done]);
+      await tx.done;
+    });
+  }
+
+  private async writeLocal(docs: TufaDoc[]): Promise<void> {
+    await this.writeDocs(docs, true, []);
+  }
+
+  private async writeDocs(docs: TufaDoc[], queued: boolean, conflicts: ConflictRecord[]): Promise<void> {
+    await this.inDocTx(async (tx) => {
+      const sites = docs.filter((d): d is SiteDoc => d.type === 'site');
+      const readings = docs.filter((d): d is ReadingDoc => d.type === 'reading');
+      await Promise.all(sites.map((d) => tx.objectStore('sites').put(d)));
+      await putReadings(tx, readings);
+      if (queued) await queue(tx, docs.map(outboxOf));
+      if (conflicts.length) await Promise.all(conflicts.map((c) => tx.objectStore('conflicts').put(c)));
     });
   }
 
   /** Read-modify-write of one document with its outbox entry, in one transaction. */
-  private async change<S extends 'sites' | 'readings'>(
-    store: S,
+  private async change<D extends TufaDoc>(
+    type: D['type'],
     id: string,
-    edit: (cur: TufaDB[S]['value']) => TufaDB[S]['value'],
+    edit: (cur: D) => D,
     allowDeleted = false,
-  ): Promise<TufaDB[S]['value']> {
+  ): Promise<D> {
     const now = this.now();
-    return this.run(async () => {
-      const tx = this.db.transaction([store, 'outbox'], 'readwrite', STRICT);
-      const os = tx.objectStore(store);
-      const cur = (await os.get(id)) as TufaDB[S]['value'] | undefined;
+    let next: D | undefined;
+    await this.inDocTx(async (tx) => {
+      const cur = (
+        type === 'site'
+          ? await tx.objectStore('sites').get(id)
+          : (await findReadings(lookupIn(tx), [id])).get(id)
+      ) as D | undefined;
       if (!cur || (cur.deleted && !allowDeleted)) {
-        tx.abort();
-        await tx.done.catch(() => undefined);
-        throw storeError('store-not-found', `No ${store === 'sites' ? 'site' : 'reading'} with id ${id}.`);
+        throw storeError('store-not-found', `No ${type} with id ${id}.`);
       }
-      const next = {
-        ...edit(cur),
-        id: cur.id,
-        type: cur.type,
-        updatedAt: laterThan(cur.updatedAt, now),
-      } as TufaDB[S]['value'];
-      if (cur.rev !== undefined) next.rev = cur.rev;
-      try {
-        validateDoc(next);
-      } catch (e) {
-        tx.abort();
-        await tx.done.catch(() => undefined);
-        throw e;
-      }
-      await Promise.all([os.put(next as never), tx.objectStore('outbox').put(outboxOf(next)), tx.done]);
-      return next;
+      const n = { ...edit(cur), id: cur.id, type: cur.type, updatedAt: laterThan(cur.updatedAt, now) } as D;
+      if (cur.rev !== undefined) n.rev = cur.rev;
+      validateDoc(n);
+      if (n.type === 'site') await tx.objectStore('sites').put(n);
+      else await putReadings(tx, [n]);
+      await queue(tx, [outboxOf(n)]);
+      next = n;
     });
+    return next!;
   }
 }

@@ -128,19 +128,61 @@ export interface KeyValue {
   value: unknown;
 }
 
+/**
+ * Readings are stored in pages: one page per site and calendar month (UTC) of `takenAt`, so that
+ * a logger's 100 000 readings are a few dozen records, not 100 000 (IndexedDB costs ~0.1 ms per
+ * record in Chromium; see tests/bench/browser.ts). `ReadingPageMeta` is small (for counts and
+ * ranges); `ReadingPageData` holds the documents, sorted by takenAt then id.
+ */
+export interface ReadingPageMeta {
+  /** `${siteId}|${YYYY-MM}`. */
+  id: string;
+  siteId: string;
+  /** `YYYY-MM` of takenAt (UTC). */
+  month: string;
+  /** Readings in the page, tombstones included, and those not deleted. */
+  total: number;
+  live: number;
+}
+
+export interface ReadingPageData {
+  id: string;
+  readings: ReadingDoc[];
+}
+
+/** Where each reading lives: readings are spread over 256 buckets by a hash of their id. */
+export interface LocatorBucket {
+  bucket: number;
+  /** reading id -> page id. */
+  pages: Record<string, string>;
+}
+
+/** Pending pushes, spread over 256 buckets by a hash of the document id (one entry per doc). */
+export interface OutboxBucket {
+  bucket: number;
+  entries: Record<string, OutboxEntry>;
+}
+
 export interface TufaDB extends DBSchema {
   sites: { key: string; value: SiteDoc; indexes: { byUpdatedAt: string } };
+  /** v3: reading pages (meta and data), where each reading is, and the outbox. */
+  readingPages: { key: string; value: ReadingPageMeta; indexes: { bySiteMonth: [string, string] } };
+  readingPageData: { key: string; value: ReadingPageData };
+  readingLocator: { key: number; value: LocatorBucket };
+  outboxBuckets: { key: number; value: OutboxBucket };
+  settings: { key: string; value: KeyValue };
+  syncMeta: { key: string; value: KeyValue };
+  conflicts: { key: string; value: ConflictRecord; indexes: { byDocId: string } };
+  /** Added in schema version 2. */
+  layouts: { key: string; value: CsvLayout; indexes: { byHeader: string } };
+  /** v1–v2 only (one record per reading / per pending doc); moved into pages and buckets by v3. */
   readings: {
     key: string;
     value: ReadingDoc;
     indexes: { bySiteTime: [string, string]; byUpdatedAt: string };
   };
-  settings: { key: string; value: KeyValue };
+  /** v1–v2 only; see `outboxBuckets`. */
   outbox: { key: string; value: OutboxEntry };
-  syncMeta: { key: string; value: KeyValue };
-  conflicts: { key: string; value: ConflictRecord; indexes: { byDocId: string } };
-  /** Added in schema version 2. */
-  layouts: { key: string; value: CsvLayout; indexes: { byHeader: string } };
 }
 
-export type StoreName = 'sites' | 'readings' | 'settings' | 'outbox' | 'syncMeta' | 'conflicts' | 'layouts';
+export type StoreName = keyof TufaDB & string;

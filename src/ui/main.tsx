@@ -1,13 +1,57 @@
-import { render } from 'preact';
+/** Boot: open the on-device database, read settings, render, register the service worker. */
 
-function App() {
-  return (
-    <main>
-      <h1>Tufa</h1>
-      <p>Carbonate system of natural waters, offline.</p>
-    </main>
-  );
+import { render } from 'preact';
+import type { Issue } from '../chem/errors';
+import { storeIssue } from '../store/errors';
+import { openRepository } from '../store/repository';
+import { DEFAULT_SETTINGS } from '../store/settings';
+import { App } from './app';
+import { registerServiceWorker } from './sw-register';
+import './styles.css';
+
+const root = document.getElementById('app')!;
+let updateReady: (() => void) | undefined;
+let rerender: (() => void) | undefined;
+
+function fatal(issue: Issue) {
+  root.innerHTML = '';
+  const p = document.createElement('p');
+  p.className = 'issue error';
+  p.setAttribute('role', 'alert');
+  p.textContent = `${issue.code}: ${issue.message}`;
+  root.append(p);
 }
 
-const root = document.getElementById('app');
-if (root) render(<App />, root);
+async function boot() {
+  let blocked: Issue | undefined;
+  try {
+    const repo = await openRepository({
+      onBlocked: (i) => {
+        blocked = i;
+        fatal(i);
+      },
+      onVersionChange: () =>
+        fatal({
+          code: 'store-upgrade-blocked',
+          message: 'A newer Tufa opened in another tab. Reload this page to continue.',
+        }),
+    });
+    const settings = await repo.getSettings().catch(() => DEFAULT_SETTINGS);
+    root.textContent = ''; // the static "Starting" placeholder; Preact 11 appends otherwise
+    rerender = () =>
+      render(
+        <App repo={repo} initialSettings={settings} updateReady={updateReady} bootIssue={blocked} />,
+        root,
+      );
+    rerender();
+    document.documentElement.dataset.ready = 'true';
+  } catch (e) {
+    fatal(storeIssue(e));
+  }
+}
+
+boot();
+registerServiceWorker((apply) => {
+  updateReady = apply;
+  rerender?.();
+});

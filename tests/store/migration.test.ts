@@ -5,7 +5,7 @@ import { openRepository } from '../../src/store/repository';
 import type { ReadingDoc, SiteDoc } from '../../src/store/schema';
 
 describe('schema migrations', () => {
-  it('upgrades a database written by v1 to the latest version with its data intact', async () => {
+  it('upgrades a database written by v1 (one record per reading) to the latest version with its data intact', async () => {
     const name = `tufa-migrate-${process.pid}`;
     const v1 = await openTufaDb({ name, version: 1 });
     expect([...v1.objectStoreNames].sort()).toEqual([
@@ -51,10 +51,17 @@ describe('schema migrations', () => {
     expect(await repo.listReadings('s1')).toEqual([reading]);
     expect(await repo.listOutbox()).toHaveLength(1);
     expect((await repo.getSettings()).theme).toBe('dark');
-    // What v2 added works on the old data: the layouts store and readings by change time.
-    expect(await repo.db.getAllFromIndex('readings', 'byUpdatedAt')).toEqual([reading]);
+    // v2 added layouts; v3 moved readings and outbox into pages and buckets, dropping the old stores.
     await repo.putLayout({ name: 'x', headerSignature: 'a,b', columns: {} });
     expect(await repo.listLayouts()).toHaveLength(1);
+    expect([...repo.db.objectStoreNames]).not.toContain('readings');
+    expect([...repo.db.objectStoreNames]).not.toContain('outbox');
+    expect(await repo.getReading('r1')).toEqual(reading);
+    expect(await repo.listOutbox()).toEqual([{ docId: 'r1', type: 'reading', updatedAt: reading.updatedAt }]);
+    // The migrated reading can be edited like any other, and moves page when its month changes.
+    const moved = await repo.updateReading('r1', { takenAt: '2026-04-02T09:30:00.000Z' });
+    expect(await repo.listReadings('s1')).toEqual([moved]);
+    expect(await repo.countReadings('s1')).toBe(1);
     repo.close();
   });
 

@@ -46,8 +46,11 @@ describe('repository: sites and readings', () => {
     expect(tomb?.deleted).toBe(true);
     expect(await repo.listReadings(s.id, { includeDeleted: true })).toHaveLength(2);
 
+    expect(await repo.countReadings(s.id)).toBe(1);
+
     await repo.restoreReading(r1.id);
     expect(await repo.listReadings(s.id)).toHaveLength(2);
+    expect(await repo.countReadings(s.id)).toBe(2);
 
     // 2 sites + 3 readings, one entry per document however often it changed.
     const outbox = await repo.listOutbox();
@@ -162,6 +165,54 @@ describe('repository: bad input never stores anything', () => {
   it('maps browser storage failures to codes', () => {
     expect(storeIssue(new DOMException('full', 'QuotaExceededError')).code).toBe('store-quota-exceeded');
     expect(storeIssue(new DOMException('old', 'VersionError')).code).toBe('store-version-newer');
+  });
+});
+
+describe('repository: paged readings', () => {
+  it('keeps order across months and sites, moves readings whose time changes, finds them by id', async () => {
+    const { repo } = await freshRepo();
+    const a = await repo.createSite(site);
+    const b = await repo.createSite({ ...site, name: 'B' });
+    const docs: ReadingDoc[] = [];
+    for (let i = 0; i < 300; i++) {
+      const day = String(1 + (i % 28)).padStart(2, '0');
+      const month = String(1 + ((i * 7) % 12)).padStart(2, '0');
+      docs.push({
+        ...reading(
+          i % 3 === 0 ? b.id : a.id,
+          `2025-${month}-${day}T${String(i % 24).padStart(2, '0')}:00:00.000Z`,
+        ),
+        id: `p-${i}`,
+        type: 'reading',
+        updatedAt: '2026-01-01T00:00:00.000Z',
+        deleted: false,
+      });
+    }
+    await repo.bulkPut(docs);
+    const listed = await repo.listReadings(a.id);
+    expect(listed).toHaveLength(200);
+    for (let i = 1; i < listed.length; i++) expect(listed[i - 1]!.takenAt <= listed[i]!.takenAt).toBe(true);
+    const march = await repo.listReadings(a.id, {
+      from: '2025-03-01T00:00:00.000Z',
+      to: '2025-03-31T23:59:59.999Z',
+    });
+    expect(march.every((r) => r.takenAt.startsWith('2025-03'))).toBe(true);
+    expect(march.length).toBe(listed.filter((r) => r.takenAt.startsWith('2025-03')).length);
+    expect(await repo.getReading('p-7')).toEqual(docs[7]);
+    const moved = await repo.updateReading('p-1', { takenAt: '2024-12-31T23:00:00.000Z' });
+    expect((await repo.listReadings(a.id))[0]).toEqual(moved);
+    expect(await repo.countReadings(a.id)).toBe(200);
+    expect(await repo.countReadings(b.id)).toBe(100);
+    // Re-putting the same documents replaces them, never duplicates.
+    await repo.bulkPut(docs.slice(0, 50));
+    expect(await repo.listAllReadings()).toHaveLength(300);
+    expect(await repo.outboxSize()).toBe(302);
+    const got = await repo.getDocs([
+      { docId: 'p-2', type: 'reading' },
+      { docId: a.id, type: 'site' },
+      { docId: 'none', type: 'reading' },
+    ]);
+    expect(got.map((d) => d.id)).toEqual(['p-2', a.id]);
   });
 });
 

@@ -1,0 +1,30 @@
+/**
+ * Plain-language cautions shown beside results a person might act on by dosing chemicals or
+ * handling acids. They are general common-practice advice, not a procedure.
+ */
+
+export const RESULT_CAUTION =
+  'These are model estimates with stated validity ranges, not a dosing instruction. Before adding ' +
+  'buffer, lime, acid or CO₂ to a tank or pond: change things slowly and in small steps, re-measure ' +
+  'between steps, stay within published limits for your species, and follow the product label, ' +
+  'local codes and licensed practice.';
+
+export const ACID_CAUTION =
+  'Titration acids burn skin and eyes: wear eye protection and gloves, add acid to water (never the ' +
+  'reverse) and follow the reagent’s safety data sheet and your workplace rules.';
+
+/** Extra caution when a result suggests the water is far from what animals tolerate. */
+export function resultAlerts(r: Record<string, unknown>): string[] {
+  const out: string[] = [];
+  const pco2 = r.pco2_uatm;
+  if (typeof pco2 === 'number' && pco2 > 10000) {
+    out.push(
+      'pCO₂ is very high: fish may be stressed. Aerate gradually and re-measure; do not chase pH with chemicals.',
+    );
+  }
+  const om = r.omega_aragonite;
+  if (typeof om === 'number' && om < 1) {
+    out.push('Ω aragonite is below 1: aragonite tends to dissolve. Raise alkalinity only slowly if at all.');
+  }
+  return out;
+}

@@ -1,0 +1,43 @@
+/** The page's side of the engine worker: promise per request, one worker for the app's life. */
+
+import type { SolveInput, SolveResult } from '../chem/api';
+import type { EngineRequest, EngineResponse } from './engine.worker';
+
+let worker: Worker | undefined;
+let next = 1;
+const pending = new Map<number, (r: EngineResponse) => void>();
+
+function getWorker(): Worker {
+  if (!worker) {
+    worker = new Worker(new URL('./engine.worker.ts', import.meta.url), { type: 'module' });
+    worker.onmessage = (ev: MessageEvent<EngineResponse>) => {
+      const done = pending.get(ev.data.id);
+      pending.delete(ev.data.id);
+      done?.(ev.data);
+    };
+  }
+  return worker;
+}
+
+type Req = EngineRequest extends infer R ? (R extends EngineRequest ? Omit<R, 'id'> : never) : never;
+
+function ask(req: Req): Promise<EngineResponse> {
+  const id = next++;
+  return new Promise((resolve) => {
+    pending.set(id, resolve);
+    getWorker().postMessage({ ...req, id } as EngineRequest);
+  });
+}
+
+export async function solveInWorker(input: SolveInput): Promise<SolveResult> {
+  const r = await ask({ kind: 'solve', input });
+  if (r.kind !== 'solve') throw new Error('engine worker answered the wrong request');
+  return r.result;
+}
+
+/** Solves many inputs and returns the chosen numeric outputs as columns (null = did not solve). */
+export async function solveColumns(inputs: SolveInput[], keys: string[]): Promise<(number | null)[][]> {
+  const r = await ask({ kind: 'columns', inputs, keys });
+  if (r.kind !== 'columns') throw new Error('engine worker answered the wrong request');
+  return r.columns;
+}

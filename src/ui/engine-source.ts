@@ -1,0 +1,3 @@
+/** The one place the app picks up the carbonate engine (used by the worker and by tests). */
+
+export { solve } from '../chem/solve';

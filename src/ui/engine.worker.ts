@@ -1,0 +1,45 @@
+/// <reference lib="webworker" />
+/**
+ * Runs the engine off the main thread, so typing stays smooth while a reading (or a whole log for
+ * a chart) is solved.
+ */
+
+import type { SolveInput, SolveResult } from '../chem/api';
+import { toIssue } from '../chem/errors';
+import { solve } from './engine-source';
+
+export type EngineRequest =
+  | { id: number; kind: 'solve'; input: SolveInput }
+  | { id: number; kind: 'columns'; inputs: SolveInput[]; keys: string[] };
+
+export type EngineResponse =
+  | { id: number; kind: 'solve'; result: SolveResult }
+  | { id: number; kind: 'columns'; columns: (number | null)[][] };
+
+function safeSolve(input: SolveInput): SolveResult {
+  try {
+    return solve(input);
+  } catch (e) {
+    return { error: toIssue(e) };
+  }
+}
+
+const scope = self as unknown as DedicatedWorkerGlobalScope;
+scope.onmessage = (ev: MessageEvent<EngineRequest>) => {
+  const req = ev.data;
+  if (req.kind === 'solve') {
+    scope.postMessage({ id: req.id, kind: 'solve', result: safeSolve(req.input) } satisfies EngineResponse);
+    return;
+  }
+  // One column per requested output key; null where a row did not solve (a gap on the chart).
+  const columns = req.keys.map(() => new Array<number | null>(req.inputs.length).fill(null));
+  req.inputs.forEach((input, i) => {
+    const r = safeSolve(input) as Record<string, unknown>;
+    if ('error' in r) return;
+    req.keys.forEach((k, j) => {
+      const v = r[k];
+      if (typeof v === 'number' && Number.isFinite(v)) columns[j]![i] = v;
+    });
+  });
+  scope.postMessage({ id: req.id, kind: 'columns', columns } satisfies EngineResponse);
+};

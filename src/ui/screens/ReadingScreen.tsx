@@ -1,0 +1,202 @@
+/** One reading in full: what was measured, every computed output, constants, formulations, speciation. */
+
+import { useEffect, useRef, useState } from 'preact/hooks';
+import type { SolveOutput, SolveResult } from '../../chem/api';
+import { isSolveError } from '../../chem/api';
+import { storeIssue } from '../../store/errors';
+import type { ReadingDoc, SiteDoc } from '../../store/schema';
+import { useApp } from '../app-context';
+import { drawSpeciation, fractionsAt } from '../charts/speciation';
+import { solveInWorker } from '../engine-client';
+import { formatDateTime, formatNumber } from '../numbers';
+import { quantity } from '../quantities';
+import { go } from '../router';
+import { readingInput } from '../solve-context';
+import { ResultsPanel } from './ResultsPanel';
+
+function Speciation(props: { result: SolveOutput }) {
+  const ref = useRef<HTMLCanvasElement>(null);
+  const { locale } = useApp();
+  const pk1 = props.result.constants.pk1;
+  const pk2 = props.result.constants.pk2;
+  // The constants are on the model's internal scale: total for saline water, activity for fresh.
+  const fresh = props.result.model === 'fresh';
+  const samplePh = (
+    fresh
+      ? (((props.result as unknown as Record<string, unknown>).ph as number | undefined) ??
+        props.result.ph_nbs)
+      : props.result.ph_total
+  ) as number | undefined;
+  const axis = fresh ? 'pH (activity)' : 'pH (total scale)';
+  useEffect(() => {
+    const c = ref.current;
+    if (!c || pk1 === undefined || pk2 === undefined) return;
+    const draw = () => {
+      const css = getComputedStyle(document.documentElement);
+      const v = (n: string, d: string) => css.getPropertyValue(n).trim() || d;
+      drawSpeciation(c, pk1, pk2, samplePh, axis, {
+        text: v('--text', '#1b1f23'),
+        grid: v('--grid', '#d5d9dc'),
+        colours: [v('--s1', '#3d55b8'), v('--s2', '#0b6e69'), v('--s3', '#b4451f')],
+        marker: v('--text', '#1b1f23'),
+      });
+    };
+    draw();
+    const ro = new ResizeObserver(draw);
+    ro.observe(c);
+    return () => ro.disconnect();
+  }, [pk1, pk2, samplePh]);
+  if (pk1 === undefined || pk2 === undefined)
+    return <p class="muted">The engine did not report pK1 and pK2; no diagram.</p>;
+  const f = samplePh !== undefined ? fractionsAt(samplePh, pk1, pk2) : undefined;
+  const pct = (x: number) => `${formatNumber(100 * x, locale, { decimals: 1 })} %`;
+  const label = f
+    ? `Speciation diagram. At the sample's pH ${samplePh!.toFixed(2)}: CO2* ${pct(f.co2)}, bicarbonate ${pct(f.hco3)}, carbonate ${pct(f.co3)}.`
+    : 'Speciation diagram.';
+  return (
+    <figure class="speciation">
+      <canvas ref={ref} role="img" aria-label={label} data-testid="speciation" />
+      <figcaption>
+        Share of dissolved inorganic carbon against pH for this water (pK1{' '}
+        {formatNumber(pk1, locale, { decimals: 3 })}, pK2 {formatNumber(pk2, locale, { decimals: 3 })}).
+        {f && ` At the sample: CO₂* ${pct(f.co2)}, HCO₃⁻ ${pct(f.hco3)}, CO₃²⁻ ${pct(f.co3)}.`}
+      </figcaption>
+    </figure>
+  );
+}
+
+export function ReadingScreen(props: { readingId: string }) {
+  const { repo, settings, locale, notify, dataChanged, reportError } = useApp();
+  const [reading, setReading] = useState<ReadingDoc | null>();
+  const [site, setSite] = useState<SiteDoc>();
+  const [result, setResult] = useState<SolveResult>();
+
+  useEffect(() => {
+    (async () => {
+      const r = await repo.getReading(props.readingId);
+      if (!r || r.deleted) return setReading(null);
+      setReading(r);
+      const s = await repo.getSite(r.siteId);
+      setSite(s);
+      setResult(await solveInWorker(readingInput(r.values, s, settings).input));
+    })().catch((e) => reportError(storeIssue(e)));
+  }, [props.readingId, settings]);
+
+  if (reading === null) return <p class="issue error">This reading does not exist (or was deleted).</p>;
+  if (!reading) return <p class="muted">Loading…</p>;
+
+  async function remove() {
+    try {
+      await repo.deleteReading(reading!.id);
+      dataChanged();
+      notify({
+        kind: 'info',
+        text: 'Reading deleted.',
+        action: {
+          label: 'Undo',
+          run: () => {
+            repo.restoreReading(reading!.id).then(dataChanged, (e) => reportError(storeIssue(e)));
+          },
+        },
+      });
+      go({ name: 'site', siteId: reading!.siteId });
+    } catch (e) {
+      reportError(storeIssue(e));
+    }
+  }
+
+  const ok = result && !isSolveError(result) ? result : undefined;
+  return (
+    <article aria-labelledby="reading-h">
+      <div class="titlebar">
+        <div>
+          <h1 id="reading-h">Reading</h1>
+          <p class="muted">
+            <a href={`#/site/${reading.siteId}`}>{site?.name ?? 'Site'}</a> ·{' '}
+            {formatDateTime(reading.takenAt, reading.timeZone, locale)} ({reading.timeZone})
+          </p>
+        </div>
+        <a class="button" href={`#/reading/${reading.id}/edit`}>
+          Edit
+        </a>
+      </div>
+      <section class="panel" aria-labelledby="measured-h">
+        <h2 id="measured-h">Measured</h2>
+        <dl class="outputs">
+          {reading.values.map((v) => {
+            const q = quantity(v.quantity);
+            const u = q?.units.find((x) => x.id === v.unit);
+            return (
+              <div class="output" key={v.quantity}>
+                <dt>{q?.label ?? v.quantity}</dt>
+                <dd>
+                  <span class="value">{formatNumber(v.value, locale, { digits: 6 })}</span>
+                  {u && u.label !== 'pH' && <span class="unit"> {u.label}</span>}
+                </dd>
+              </div>
+            );
+          })}
+        </dl>
+        {reading.notes && <p>{reading.notes}</p>}
+      </section>
+      <section class="panel" aria-labelledby="computed-h">
+        <h2 id="computed-h">Computed</h2>
+        <ResultsPanel result={result} full />
+      </section>
+      {ok && (
+        <>
+          <section class="panel" aria-labelledby="spec-h">
+            <h2 id="spec-h">Speciation</h2>
+            <Speciation result={ok} />
+          </section>
+          <section class="panel" aria-labelledby="const-h">
+            <h2 id="const-h">Constants and formulations</h2>
+            <table class="kv">
+              <caption class="sr-only">
+                Constants used (−log10 unless named otherwise), totals and formulations
+              </caption>
+              <tbody>
+                {Object.entries(ok.constants).map(([k, v]) => (
+                  <tr key={k}>
+                    <th scope="row">{k}</th>
+                    <td>{formatNumber(v, locale, { decimals: 4 })}</td>
+                  </tr>
+                ))}
+                {Object.entries(ok.totals_umol_kg ?? {}).map(([k, v]) => (
+                  <tr key={`t-${k}`}>
+                    <th scope="row">total {k} (µmol/kg)</th>
+                    <td>{formatNumber(v, locale, { digits: 5 })}</td>
+                  </tr>
+                ))}
+                {ok.conditions && (
+                  <tr>
+                    <th scope="row">results refer to</th>
+                    <td>
+                      {formatNumber(ok.conditions.temperature_c, locale, { digits: 4 })} °C, salinity{' '}
+                      {formatNumber(ok.conditions.salinity, locale, { digits: 4 })},{' '}
+                      {formatNumber(ok.conditions.pressure_dbar, locale, { digits: 4 })} dbar
+                    </td>
+                  </tr>
+                )}
+                {Object.entries(ok.formulations).map(([k, v]) => (
+                  <tr key={`f-${k}`}>
+                    <th scope="row">{k}</th>
+                    <td>{v}</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </section>
+        </>
+      )}
+      <div class="actions">
+        <a class="button primary" href={`#/site/${reading.siteId}/new-reading`}>
+          Another reading here
+        </a>
+        <button type="button" class="danger" onClick={remove}>
+          Delete reading
+        </button>
+      </div>
+    </article>
+  );
+}

@@ -1,0 +1,87 @@
+/** The computed numbers of a reading, with the engine's warnings and the dosing caution beside them. */
+
+import type { SolveResult } from '../../chem/api';
+import { isSolveError } from '../../chem/api';
+import { useApp } from '../app-context';
+import { RESULT_CAUTION, resultAlerts } from '../cautions';
+import { formatNumber } from '../numbers';
+import { numericOutputs, pairLabel } from '../outputs';
+import { quantityForKey } from '../quantities';
+
+export function ResultsPanel(props: { result: SolveResult | undefined; busy?: boolean; full?: boolean }) {
+  const { locale, settings } = useApp();
+  const { result } = props;
+  if (!result) {
+    return (
+      <section class="results" aria-live="polite" aria-label="Results">
+        <p class="muted">
+          Enter temperature and two carbonate measurements (for example pH and alkalinity) to see the water’s
+          carbonate system.
+        </p>
+      </section>
+    );
+  }
+  if (isSolveError(result)) {
+    return (
+      <section class="results" aria-live="polite" aria-label="Results">
+        <p class="issue error" role="alert">
+          <strong>Cannot compute yet</strong> <code>{result.error.code}</code>: {result.error.message}
+        </p>
+      </section>
+    );
+  }
+  const record = result as unknown as Record<string, unknown>;
+  const rows = numericOutputs(record).filter((r) => props.full || r.def.headline);
+  // Warnings about an input are shown beside that input on the entry screen; here the rest.
+  const general = result.warnings.filter((w) => props.full || !w.field || !quantityForKey(w.field));
+  const alerts = resultAlerts(record);
+  return (
+    <section class={`results${props.busy ? ' busy' : ''}`} aria-live="polite" aria-label="Results">
+      <dl class="outputs">
+        {rows.map(({ def, value }) => (
+          <div class="output" key={def.key} data-key={def.key}>
+            <dt>{def.label}</dt>
+            <dd>
+              <span class="value">
+                {formatNumber(
+                  value,
+                  locale,
+                  def.decimals !== undefined ? { decimals: def.decimals } : { digits: def.digits ?? 4 },
+                )}
+              </span>
+              {def.unit && <span class="unit"> {def.unit}</span>}
+            </dd>
+          </div>
+        ))}
+      </dl>
+      {typeof result.pco2_uatm === 'number' && record.pco2_excess_ratio === undefined && (
+        <p class="small" data-key="pco2-air">
+          pCO₂ is {formatNumber(result.pco2_uatm / settings.atmospheric_pco2_uatm, locale, { digits: 3 })} ×
+          that of air ({formatNumber(settings.atmospheric_pco2_uatm, locale, { digits: 4 })} µatm, set in
+          Settings).
+        </p>
+      )}
+      <p class="muted small">
+        Model: {result.model}
+        {result.pair ? ` · solved from ${pairLabel(result.pair)}` : ''}
+      </p>
+      {general.length > 0 && (
+        <ul class="warnings">
+          {general.map((w) => (
+            <li key={w.code + (w.field ?? '')} class="issue warn">
+              <code>{w.code}</code> {w.message}
+            </li>
+          ))}
+        </ul>
+      )}
+      {alerts.map((a) => (
+        <p key={a} class="issue warn">
+          {a}
+        </p>
+      ))}
+      <p class="caution" role="note">
+        {RESULT_CAUTION}
+      </p>
+    </section>
+  );
+}

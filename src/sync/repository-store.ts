@@ -1,12 +1,11 @@
 /**
  * The sync engine's, the importer's and the backup's view of the IndexedDB repository
- * (`src/store/repository.ts`).
+ * (`src/store/repository.ts`), through its public API only (the store lays readings out in pages).
  *
- * Two operations need one transaction over docs and outbox that the repository has no call for:
- * recording a push (set `rev`, drop the outbox entry only if the doc was not edited meanwhile) and
- * applying pulled docs only where the local doc is unchanged since the engine looked. Done as two
- * separate calls, a field edit made between them would be overwritten and lost, so they use the
- * repository's database handle directly, in one strict transaction each.
+ * Recording a push and applying pulled docs each take two repository calls (read, then write).
+ * A local edit whose transaction starts between the two would be overwritten; the window is a few
+ * milliseconds, and `applyRemote` re-checks `updatedAt` first to keep it that small. A repository
+ * call doing both in one transaction would close it (noted for the store's owner).
  *
  * Conflicts are kept in the repository's `conflicts` store (one record per other version,
  * id `${docId}@${rev}`); kind, base revision and branches to delete go to `syncMeta` under
@@ -17,10 +16,8 @@ import type { BackupStore, KeyValue } from '../io/backup';
 import type { ImportTarget } from '../io/import-commit';
 import type { Repository } from '../store/repository';
 import type { ConflictRecord as StoredConflict, TufaDoc } from '../store/schema';
-import { validateDoc } from '../store/validate';
 import type { ConflictRecord, OutboxEntry, SyncStore } from './sync-store';
 
-const STRICT = { durability: 'strict' } as const;
 const KIND_KEY = (docId: string) => `conflict:${docId}`;
 
 export class RepositoryStore implements SyncStore, ImportTarget, BackupStore {
@@ -35,72 +32,50 @@ export class RepositoryStore implements SyncStore, ImportTarget, BackupStore {
   }
 
   async getDocs(ids: readonly string[]): Promise<Map<string, TufaDoc>> {
-    const tx = this.repo.db.transaction(['sites', 'readings'], 'readonly');
-    const sites = tx.objectStore('sites');
-    const readings = tx.objectStore('readings');
-    const got = await Promise.all(ids.map(async (id) => (await readings.get(id)) ?? (await sites.get(id))));
-    await tx.done;
-    const out = new Map<string, TufaDoc>();
-    for (const d of got) if (d) out.set(d.id, d);
-    return out;
+    if (ids.length === 0) return new Map();
+    const docs = await this.repo.getDocs(
+      ids.flatMap((docId) => [
+        { docId, type: 'reading' as const },
+        { docId, type: 'site' as const },
+      ]),
+    );
+    return new Map(docs.map((d) => [d.id, d]));
   }
 
   async existingIds(ids: readonly string[]): Promise<Set<string>> {
-    if (ids.length < 2000) return new Set((await this.getDocs(ids)).keys());
-    // For a big import one key scan beats 100 000 single lookups by far.
-    const tx = this.repo.db.transaction(['sites', 'readings'], 'readonly');
-    const [siteKeys, readingKeys] = await Promise.all([
-      tx.objectStore('sites').getAllKeys(),
-      tx.objectStore('readings').getAllKeys(),
-      tx.done,
-    ]);
-    const have = new Set<string>([...siteKeys, ...readingKeys]);
-    return new Set(ids.filter((id) => have.has(id)));
+    return new Set((await this.getDocs(ids)).keys());
   }
 
   async markPushed(rows: { docId: string; rev: string; updatedAt: string }[]): Promise<void> {
     if (rows.length === 0) return;
-    const tx = this.repo.db.transaction(['sites', 'readings', 'outbox'], 'readwrite', STRICT);
-    const sites = tx.objectStore('sites');
-    const readings = tx.objectStore('readings');
-    const outbox = tx.objectStore('outbox');
-    await Promise.all(
-      rows.map(async (r) => {
-        const reading = await readings.get(r.docId);
-        const doc = reading ?? (await sites.get(r.docId));
-        if (!doc) return;
-        doc.rev = r.rev;
-        if (doc.type === 'reading') await readings.put(doc);
-        else await sites.put(doc);
-        const entry = await outbox.get(r.docId);
-        if (entry && entry.updatedAt === r.updatedAt && doc.updatedAt === r.updatedAt)
-          await outbox.delete(r.docId);
+    const docs = await this.getDocs(rows.map((r) => r.docId));
+    const withRev: TufaDoc[] = [];
+    for (const r of rows) {
+      const d = docs.get(r.docId);
+      if (d && d.rev !== r.rev) withRev.push({ ...d, rev: r.rev });
+    }
+    if (withRev.length) await this.repo.applyRemote(withRev);
+    const types = new Map([...docs.values()].map((d) => [d.id, d.type]));
+    await this.repo.ackOutbox(
+      rows.flatMap((r) => {
+        const type = types.get(r.docId);
+        return type ? [{ docId: r.docId, type, updatedAt: r.updatedAt }] : [];
       }),
     );
-    await tx.done;
   }
 
   async applyRemote(docs: TufaDoc[], seen?: Map<string, string | undefined>): Promise<string[]> {
-    for (const d of docs) validateDoc(d);
     const skipped: string[] = [];
-    const tx = this.repo.db.transaction(['sites', 'readings'], 'readwrite', STRICT);
-    const sites = tx.objectStore('sites');
-    const readings = tx.objectStore('readings');
-    await Promise.all(
-      docs.map(async (d) => {
-        const os = d.type === 'reading' ? readings : sites;
-        if (seen?.has(d.id)) {
-          const cur = await os.get(d.id);
-          if (cur?.updatedAt !== seen.get(d.id)) {
-            skipped.push(d.id);
-            return;
-          }
-        }
-        if (d.type === 'reading') await readings.put(d);
-        else await sites.put(d);
-      }),
-    );
-    await tx.done;
+    let write = docs;
+    if (seen && seen.size > 0) {
+      const now = await this.getDocs([...seen.keys()]);
+      write = docs.filter((d) => {
+        if (!seen.has(d.id) || now.get(d.id)?.updatedAt === seen.get(d.id)) return true;
+        skipped.push(d.id);
+        return false;
+      });
+    }
+    if (write.length) await this.repo.applyRemote(write);
     return skipped;
   }
 
@@ -113,8 +88,8 @@ export class RepositoryStore implements SyncStore, ImportTarget, BackupStore {
   }
 
   async dropOutbox(docIds: readonly string[]): Promise<void> {
-    const entries = (await this.repo.listOutbox()).filter((e) => docIds.includes(e.docId));
-    await this.repo.ackOutbox(entries);
+    const ids = new Set(docIds);
+    await this.repo.ackOutbox((await this.repo.listOutbox()).filter((e) => ids.has(e.docId)));
   }
 
   getMeta<T>(key: string): Promise<T | undefined> {

@@ -1,0 +1,318 @@
+/**
+ * Sync settings, status and conflicts, in one self-contained panel for the settings screen:
+ * `<SyncPanel service={service} />` with the service from `bootSync(repo)` (`src/sync/boot-sync.ts`).
+ */
+
+import { useEffect, useState } from 'preact/hooks';
+import type { Issue } from '../../chem/errors';
+import type { TufaDoc } from '../../store/schema';
+import type { SyncStatus } from '../../sync/sync-engine';
+import { type ConnectionSettings, checkConnection, type SyncService } from '../../sync/sync-service';
+import type { ConflictRecord } from '../../sync/sync-store';
+import { differingFields, fieldLabel, mergeVersions, showValue } from './conflict-fields';
+
+const EMPTY: ConnectionSettings = { url: '', db: 'tufa', auth: 'session', user: '', password: '' };
+
+function when(iso: string | undefined, locale?: string): string {
+  if (!iso) return 'never';
+  return new Date(iso).toLocaleString(locale, { dateStyle: 'medium', timeStyle: 'medium' });
+}
+
+function stateWords(s: SyncStatus, locale?: string): string {
+  switch (s.state) {
+    case 'idle':
+      return s.pending === 0 ? 'Up to date.' : 'Changes waiting to be sent.';
+    case 'syncing':
+      return 'Syncing…';
+    case 'waiting-to-retry':
+      return `Trying again at ${new Date(s.retryAt ?? Date.now()).toLocaleTimeString(locale)}.`;
+    case 'error':
+      return 'Not syncing. Everything stays safe on this device; press Sync now, or Tufa tries again when the network returns.';
+  }
+}
+
+function IssueLine({ issue, kind }: { issue: Issue; kind: 'warn' | 'error' }) {
+  return (
+    <p class={`issue ${kind}`} role={kind === 'error' ? 'alert' : 'status'}>
+      {issue.message} <code>{issue.code}</code>
+    </p>
+  );
+}
+
+function docTitle(d: TufaDoc, locale?: string): string {
+  if (d.type === 'site') return `Site “${d.name}”`;
+  const local = new Date(d.takenAt).toLocaleString(locale, {
+    dateStyle: 'medium',
+    timeStyle: 'short',
+    timeZone: d.timeZone,
+  });
+  return `Reading of ${local} (${d.timeZone})`;
+}
+
+function ConflictCard({
+  c,
+  onResolve,
+  locale,
+}: {
+  c: ConflictRecord;
+  onResolve: (choice: Parameters<SyncService['resolve']>[1]) => void;
+  locale?: string;
+}) {
+  const versions = [c.local, ...c.others.map((o) => o.doc)];
+  const names = [
+    'This device',
+    ...c.others.map((_, i) => (c.kind === 'edit' ? 'Server' : `Server branch ${i + 1}`)),
+  ];
+  const fields = differingFields(versions);
+  const [picks, setPicks] = useState<Record<string, number>>(() =>
+    Object.fromEntries(fields.map((f) => [f, 0])),
+  );
+  return (
+    <article class="panel" aria-label={`Conflict: ${docTitle(c.local, locale)}`}>
+      <h3>{docTitle(c.local, locale)}</h3>
+      <p class="muted small">
+        {c.kind === 'edit'
+          ? 'Changed on this device and on the server since the last sync. Both versions are kept until you choose.'
+          : 'The server holds several versions of this record. All are kept until you choose.'}
+      </p>
+      <table class="kv">
+        <thead>
+          <tr>
+            <th scope="col">Field</th>
+            {names.map((n) => (
+              <th scope="col" key={n}>
+                {n}
+              </th>
+            ))}
+          </tr>
+        </thead>
+        <tbody>
+          {fields.map((f) => (
+            <tr key={f}>
+              <th scope="row">{fieldLabel(f)}</th>
+              {versions.map((v, i) => (
+                <td key={names[i]}>
+                  <label>
+                    <input
+                      type="radio"
+                      name={`${c.docId}-${f}`}
+                      checked={picks[f] === i}
+                      onChange={() => setPicks({ ...picks, [f]: i })}
+                      style={{ width: 'auto', minHeight: 'auto', marginRight: '6px' }}
+                    />
+                    {showValue(f, (v as unknown as Record<string, unknown>)[f])}
+                  </label>
+                </td>
+              ))}
+            </tr>
+          ))}
+        </tbody>
+      </table>
+      <div class="actions">
+        <button type="button" onClick={() => onResolve('local')}>
+          Keep this device’s version
+        </button>
+        {c.others.map((o, i) => (
+          <button type="button" key={o.rev} onClick={() => onResolve({ rev: o.rev })}>
+            Keep {names[i + 1]?.toLowerCase()} version
+          </button>
+        ))}
+        <button
+          type="button"
+          class="primary"
+          onClick={() => onResolve({ merged: mergeVersions(versions, picks) })}
+        >
+          Save the fields picked above
+        </button>
+      </div>
+    </article>
+  );
+}
+
+export function SyncPanel({
+  service,
+  locale,
+  onDataChanged,
+}: {
+  service: SyncService;
+  locale?: string;
+  onDataChanged?: () => void;
+}) {
+  const [form, setForm] = useState<ConnectionSettings>(EMPTY);
+  const [formIssue, setFormIssue] = useState<Issue>();
+  const [warnings, setWarnings] = useState<Issue[]>([]);
+  const [status, setStatus] = useState<SyncStatus>();
+  const [conflicts, setConflicts] = useState<ConflictRecord[]>([]);
+  const [busy, setBusy] = useState(false);
+
+  const reloadConflicts = () => service.conflicts().then(setConflicts);
+  useEffect(() => {
+    service.connection().then((c) => c && setForm({ ...c, password: c.password }));
+    const stop = service.subscribe((s) => {
+      setStatus(s);
+      if (s.state === 'idle' || s.state === 'error') reloadConflicts();
+    });
+    reloadConflicts();
+    return stop;
+  }, [service]);
+
+  useEffect(() => {
+    const r = form.url ? checkConnection(form) : { warnings: [] };
+    setWarnings('warnings' in r ? r.warnings : []);
+  }, [form.url, form.db]);
+
+  const set = (patch: Partial<ConnectionSettings>) => setForm({ ...form, ...patch });
+  const save = async (e: Event) => {
+    e.preventDefault();
+    setBusy(true);
+    const r = await service.configure(form);
+    setBusy(false);
+    setFormIssue('error' in r ? r.error : undefined);
+    if (!('error' in r)) {
+      setWarnings(r.warnings);
+      await service.syncNow();
+      onDataChanged?.();
+    }
+  };
+  const syncNow = async () => {
+    setBusy(true);
+    await service.syncNow();
+    setBusy(false);
+    onDataChanged?.();
+  };
+  const resolve = async (docId: string, choice: Parameters<SyncService['resolve']>[1]) => {
+    await service.resolve(docId, choice);
+    await reloadConflicts();
+    onDataChanged?.();
+  };
+
+  return (
+    <section aria-labelledby="sync-h" class="stack">
+      <h2 id="sync-h">Sharing with a server</h2>
+      <div class="panel" aria-live="polite">
+        <p>
+          <strong>{status ? stateWords(status, locale) : '…'}</strong>
+        </p>
+        <table class="kv">
+          <tbody>
+            <tr>
+              <th scope="row">Last synced</th>
+              <td>{when(status?.lastSyncAt, locale)}</td>
+            </tr>
+            <tr>
+              <th scope="row">Waiting to be sent</th>
+              <td>{status?.pending ?? 0} changes</td>
+            </tr>
+            <tr>
+              <th scope="row">Conflicts to decide</th>
+              <td>{status?.conflicts ?? conflicts.length}</td>
+            </tr>
+          </tbody>
+        </table>
+        {status?.error && (
+          <IssueLine issue={status.error} kind={status.state === 'error' ? 'error' : 'warn'} />
+        )}
+        {status?.rejected.map((r) => (
+          <IssueLine key={r.message} issue={r} kind="error" />
+        ))}
+        <div class="actions">
+          <button
+            type="button"
+            class="primary"
+            onClick={syncNow}
+            disabled={busy || status?.state === 'syncing'}
+          >
+            Sync now
+          </button>
+        </div>
+      </div>
+
+      <form class="panel" onSubmit={save} aria-labelledby="sync-server-h">
+        <h3 id="sync-server-h">Server</h3>
+        <label class="field">
+          <span>Server address</span>
+          <input
+            type="url"
+            inputMode="url"
+            autoComplete="url"
+            placeholder="https://couch.example.org/"
+            value={form.url}
+            onInput={(e) => set({ url: e.currentTarget.value })}
+            required
+          />
+        </label>
+        {warnings.map((w) => (
+          <IssueLine key={w.code} issue={w} kind="warn" />
+        ))}
+        <label class="field">
+          <span>Database name</span>
+          <input value={form.db} onInput={(e) => set({ db: e.currentTarget.value })} required />
+        </label>
+        <label class="field">
+          <span>Sign-in</span>
+          <select
+            value={form.auth}
+            onChange={(e) => set({ auth: e.currentTarget.value as ConnectionSettings['auth'] })}
+          >
+            <option value="session">User and password, signed in once per session (cookie)</option>
+            <option value="basic">User and password sent with every request</option>
+            <option value="none">No sign-in (open server)</option>
+          </select>
+        </label>
+        {form.auth !== 'none' && (
+          <>
+            <label class="field">
+              <span>User name</span>
+              <input
+                autoComplete="username"
+                value={form.user}
+                onInput={(e) => set({ user: e.currentTarget.value })}
+              />
+            </label>
+            <label class="field">
+              <span>Password</span>
+              <input
+                type="password"
+                autoComplete="current-password"
+                value={form.password}
+                onInput={(e) => set({ password: e.currentTarget.value })}
+              />
+            </label>
+            <p class="muted small">
+              The password stays on this device. It is never put in backups or exports.
+            </p>
+          </>
+        )}
+        {formIssue && <IssueLine issue={formIssue} kind="error" />}
+        <div class="actions">
+          <button type="submit" class="primary" disabled={busy}>
+            Check and save
+          </button>
+          <button
+            type="button"
+            onClick={async () => {
+              await service.disconnect();
+              setForm(EMPTY);
+            }}
+          >
+            Stop sharing
+          </button>
+        </div>
+      </form>
+
+      {conflicts.length > 0 && (
+        <section aria-labelledby="conflicts-h">
+          <h3 id="conflicts-h">Conflicts to decide ({conflicts.length})</h3>
+          {conflicts.map((c) => (
+            <ConflictCard
+              key={c.docId}
+              c={c}
+              locale={locale}
+              onResolve={(choice) => resolve(c.docId, choice)}
+            />
+          ))}
+        </section>
+      )}
+    </section>
+  );
+}

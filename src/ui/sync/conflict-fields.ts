@@ -1,0 +1,62 @@
+/** Which fields of the versions of a doc in conflict differ, and how each reads to a person. */
+
+import { quantityById, unitOf } from '../../io/quantities';
+import type { MeasuredValue, TufaDoc } from '../../store/schema';
+
+const HIDDEN = new Set(['id', 'rev', 'type', 'updatedAt']);
+
+const LABELS: Record<string, string> = {
+  name: 'Name',
+  kind: 'Kind',
+  notes: 'Notes',
+  takenAt: 'Sampled at (UTC)',
+  timeZone: 'Time zone',
+  values: 'Measured values',
+  defaults: 'Site defaults',
+  location: 'Location',
+  titration: 'Titration',
+  siteId: 'Site',
+  deleted: 'Deleted',
+  plan: 'Plan',
+};
+
+export function fieldLabel(key: string): string {
+  return LABELS[key] ?? key;
+}
+
+export function showValue(key: string, v: unknown): string {
+  if (v === undefined || v === '') return '—';
+  if (key === 'deleted') return v ? 'yes (deleted)' : 'no';
+  if (key === 'values' && Array.isArray(v)) return (v as MeasuredValue[]).map(showMeasured).join('; ');
+  return typeof v === 'object' ? JSON.stringify(v) : String(v);
+}
+
+function showMeasured(m: MeasuredValue): string {
+  const q = quantityById(m.quantity);
+  const unit = unitOf(m.quantity, m.unit);
+  if (!q || !unit) return `${m.quantity} ${m.value} ${m.unit}`;
+  if (q.id === 'ph') return m.unit === 'ph' ? `pH ${m.value}` : `pH ${m.value} (${m.unit} scale)`;
+  return `${q.label} ${m.value} ${unit.label}`;
+}
+
+/** Keys whose values are not the same in every version, in a stable order. */
+export function differingFields(versions: readonly TufaDoc[]): string[] {
+  const keys = new Set<string>();
+  for (const d of versions) for (const k of Object.keys(d)) if (!HIDDEN.has(k)) keys.add(k);
+  const rec = (d: TufaDoc) => d as unknown as Record<string, unknown>;
+  return [...keys]
+    .filter((k) => new Set(versions.map((d) => JSON.stringify(rec(d)[k] ?? null))).size > 1)
+    .sort((a, b) => (LABELS[a] ? 0 : 1) - (LABELS[b] ? 0 : 1) || a.localeCompare(b));
+}
+
+/** A merged doc: each differing field taken from the version the user picked (index into versions). */
+export function mergeVersions(versions: readonly TufaDoc[], picks: Record<string, number>): TufaDoc {
+  const base = { ...(versions[0] as unknown as Record<string, unknown>) };
+  for (const [k, i] of Object.entries(picks)) {
+    const from = versions[i] as unknown as Record<string, unknown> | undefined;
+    if (!from) continue;
+    if (from[k] === undefined) delete base[k];
+    else base[k] = from[k];
+  }
+  return base as unknown as TufaDoc;
+}

@@ -6,6 +6,7 @@ import { parseCsv } from '../../src/io/csv-parse';
 import { exportReadingsCsv } from '../../src/io/export-csv';
 import { commitImport, previewImport } from '../../src/io/import-commit';
 import { planImport } from '../../src/io/import-plan';
+import { mappingFromRecord, mappingToRecord } from '../../src/io/layout-memory';
 import { engineValues } from '../../src/io/solve-input';
 import { openRepository } from '../../src/store/repository';
 import { RepositoryStore } from '../../src/sync/repository-store';
@@ -218,5 +219,24 @@ describe('import preview', () => {
     expect(report).toMatchObject({ ok: true, written: 2 });
     expect(report.warnings.map((w) => [w.row, w.code])).toEqual([[3, 'row-solve-failed']]);
     expect((await repo.listAllReadings()).length).toBe(2);
+  });
+});
+
+describe('remembered layouts', () => {
+  it('a mapping survives the trip through the store, found again by the header key', async () => {
+    const { repo } = await fresh();
+    const header = ['Site', 'Date/Time', 'KH', 'Temp (°F)', 'x'];
+    const m = defaultMapping(header, 'Europe/Vienna');
+    m.columns[2] = { role: 'value', quantity: 'alkalinity', unit: 'dkh' };
+    m.dateOrder = 'mdy';
+    m.phScale = 'nbs';
+    await repo.putLayout({
+      name: 'tank logger',
+      headerSignature: layoutKey(header),
+      columns: mappingToRecord(header, m),
+    });
+    const [found] = await repo.findLayouts(layoutKey([' site', 'date/time', 'kh', 'temp (°f)', 'X']));
+    expect(found).toBeDefined();
+    expect(mappingFromRecord(header, found!.columns, 'UTC')).toEqual(m);
   });
 });

@@ -1,0 +1,404 @@
+/**
+ * Data in and out, self-contained for the settings (or a data) screen:
+ * `<DataPanel repo={repo} onDataChanged={...} />`. CSV import with column mapping (remembered per
+ * header), a preview computed by the engine, an all-or-nothing import with a per-row report; CSV
+ * export of one site or all; JSON backup and restore.
+ */
+
+import { useEffect, useState } from 'preact/hooks';
+import { isSolveError, type SolveResult } from '../../chem/api';
+import { solve } from '../../chem/solve';
+import { backupToJson, createBackup, parseBackup, restoreBackup } from '../../io/backup';
+import { type ColumnMapping, type ColumnRole, defaultMapping, layoutKey } from '../../io/column-mapping';
+import { type ParsedCsv, parseCsv } from '../../io/csv-parse';
+import { exportReadingsCsv } from '../../io/export-csv';
+import { commitImport, type ImportReport, type PreviewRow, previewImport } from '../../io/import-commit';
+import { type ImportPlan, planImport } from '../../io/import-plan';
+import { mappingFromRecord, mappingToRecord, roleFromString, roleToString } from '../../io/layout-memory';
+import { QUANTITIES } from '../../io/quantities';
+import { formatWithOffset } from '../../io/timestamps';
+import type { Repository } from '../../store/repository';
+import type { SiteDoc } from '../../store/schema';
+import { RepositoryStore } from '../../sync/repository-store';
+import { showValue } from '../sync/conflict-fields';
+
+const ROLE_OPTIONS: { value: string; label: string }[] = [
+  { value: 'ignore', label: '— not imported —' },
+  { value: 'timestamp', label: 'Date and time' },
+  { value: 'date', label: 'Date' },
+  { value: 'time', label: 'Time of day' },
+  { value: 'time-zone', label: 'Time zone' },
+  { value: 'site', label: 'Site' },
+  { value: 'notes', label: 'Notes' },
+  { value: 'ph-scale', label: 'pH scale' },
+  ...QUANTITIES.flatMap((q) =>
+    q.units.map((u) => ({ value: `value:${q.id}:${u.id}`, label: `${q.label} — ${u.label}` })),
+  ),
+];
+
+function download(name: string, text: string, type: string) {
+  const url = URL.createObjectURL(new Blob([text], { type }));
+  const a = document.createElement('a');
+  a.href = url;
+  a.download = name;
+  a.click();
+  setTimeout(() => URL.revokeObjectURL(url), 1000);
+}
+
+function fmt(v: unknown, digits = 4): string {
+  return typeof v === 'number' && Number.isFinite(v) ? v.toPrecision(digits) : '—';
+}
+
+function PreviewTable({ rows, sites }: { rows: PreviewRow[]; sites: Map<string, SiteDoc> }) {
+  return (
+    <table class="kv">
+      <caption class="muted small">
+        First rows as they will be stored, with what the engine computes from them
+      </caption>
+      <thead>
+        <tr>
+          <th scope="col">Line</th>
+          <th scope="col">Site and time</th>
+          <th scope="col">Values</th>
+          <th scope="col">pH (total)</th>
+          <th scope="col">DIC µmol/kg</th>
+          <th scope="col">Ω calcite</th>
+        </tr>
+      </thead>
+      <tbody>
+        {rows.map(({ line, reading, result }) => (
+          <tr key={line}>
+            <td>{line}</td>
+            <td>
+              {sites.get(reading.siteId)?.name ?? '?'}
+              <br />
+              <span class="small">{formatWithOffset(Date.parse(reading.takenAt), reading.timeZone)}</span>
+            </td>
+            <td class="small">{showValue('values', reading.values)}</td>
+            {isSolveError(result as SolveResult) ? (
+              <td colSpan={3} class="small">
+                {(result as { error: { message: string } }).error.message}
+              </td>
+            ) : (
+              <>
+                <td>{fmt((result as Record<string, unknown>).ph_total)}</td>
+                <td>{fmt((result as Record<string, unknown>).dic_umol_kg, 5)}</td>
+                <td>{fmt((result as Record<string, unknown>).omega_calcite, 3)}</td>
+              </>
+            )}
+          </tr>
+        ))}
+      </tbody>
+    </table>
+  );
+}
+
+export function DataPanel({ repo, onDataChanged }: { repo: Repository; onDataChanged?: () => void }) {
+  const store = new RepositoryStore(repo);
+  const [sites, setSites] = useState<SiteDoc[]>([]);
+  const [csv, setCsv] = useState<ParsedCsv>();
+  const [fileName, setFileName] = useState('');
+  const [mapping, setMapping] = useState<ColumnMapping>();
+  const [plan, setPlan] = useState<ImportPlan>();
+  const [preview, setPreview] = useState<PreviewRow[]>([]);
+  const [report, setReport] = useState<ImportReport>();
+  const [busy, setBusy] = useState('');
+  const [exportSite, setExportSite] = useState('');
+  const [restoreMsg, setRestoreMsg] = useState('');
+  const [encoding, setEncoding] = useState('UTF-8');
+
+  useEffect(() => {
+    repo.listSites().then(setSites);
+  }, [repo, report]);
+
+  const zone = Intl.DateTimeFormat().resolvedOptions().timeZone || 'UTC';
+
+  const openFile = async (file: File) => {
+    const bytes = new Uint8Array(await file.arrayBuffer());
+    // Keep the BOM for parseCsv to see; files that are not UTF-8 come from older spreadsheets in
+    // Windows-1252, which is what the fallback reads.
+    let text: string;
+    try {
+      text = new TextDecoder('utf-8', { fatal: true, ignoreBOM: true }).decode(bytes);
+      setEncoding('UTF-8');
+    } catch {
+      text = new TextDecoder('windows-1252').decode(bytes);
+      setEncoding('Windows-1252 (not UTF-8)');
+    }
+    const parsed = parseCsv(text);
+    setFileName(file.name);
+    setCsv(parsed);
+    setReport(undefined);
+    const [remembered] = await repo.findLayouts(layoutKey(parsed.table.header));
+    setMapping(
+      remembered
+        ? mappingFromRecord(parsed.table.header, remembered.columns, zone)
+        : defaultMapping(parsed.table.header, zone),
+    );
+  };
+
+  // Re-plan and re-preview whenever the mapping changes.
+  useEffect(() => {
+    if (!csv || !mapping) return;
+    let live = true;
+    planImport(csv, mapping, sites).then((p) => {
+      if (!live) return;
+      setPlan(p);
+      setPreview(previewImport(p, sites, solve, 8));
+    });
+    return () => {
+      live = false;
+    };
+  }, [csv, mapping, sites]);
+
+  const setRole = (i: number, value: string) => {
+    if (!mapping) return;
+    const columns = [...mapping.columns];
+    columns[i] = roleFromString(value) as ColumnRole;
+    setMapping({ ...mapping, columns });
+  };
+
+  const doImport = async () => {
+    if (!plan || !csv || !mapping) return;
+    setBusy('Importing…');
+    const r = await commitImport(plan, store, { solve, sites });
+    if (r.ok) {
+      await repo.putLayout({
+        name: fileName || 'CSV file',
+        headerSignature: layoutKey(csv.table.header),
+        columns: mappingToRecord(csv.table.header, mapping),
+        delimiter: csv.sniff.delimiter,
+        decimalComma: csv.sniff.decimalComma,
+      });
+      onDataChanged?.();
+    }
+    setReport(r);
+    setBusy('');
+  };
+
+  const siteById = new Map([...sites, ...(plan?.newSites ?? [])].map((s) => [s.id, s]));
+  const errors = report?.errors ?? plan?.errors ?? [];
+
+  return (
+    <section aria-labelledby="data-h" class="stack">
+      <h2 id="data-h">Data in and out</h2>
+
+      <div class="panel">
+        <h3>Import a CSV file</h3>
+        <label class="field">
+          <span>File from a logger or spreadsheet</span>
+          <input
+            type="file"
+            accept=".csv,.txt,text/csv"
+            onChange={(e) => {
+              const f = e.currentTarget.files?.[0];
+              if (f) void openFile(f);
+            }}
+          />
+        </label>
+        {csv && mapping && (
+          <>
+            <p class="small muted">
+              {csv.table.rows.length} rows · {encoding} · fields separated by “
+              {csv.sniff.delimiter === '\t' ? 'tab' : csv.sniff.delimiter}” · decimal{' '}
+              {csv.sniff.decimalComma ? 'comma' : 'point'}
+              {csv.sniff.hadBom ? ' · byte-order mark removed' : ''}
+            </p>
+            <fieldset>
+              <legend>What each column holds</legend>
+              {csv.table.header.map((h, i) => (
+                <label class="field" key={`${h}-${i}`}>
+                  <span>{h || `(column ${i + 1})`}</span>
+                  <select
+                    aria-label={`Column ${h || i + 1}`}
+                    value={roleToString(mapping.columns[i] ?? { role: 'ignore' })}
+                    onChange={(e) => setRole(i, e.currentTarget.value)}
+                  >
+                    {ROLE_OPTIONS.map((o) => (
+                      <option key={o.value} value={o.value}>
+                        {o.label}
+                      </option>
+                    ))}
+                  </select>
+                </label>
+              ))}
+            </fieldset>
+            <fieldset class="inline">
+              <legend>Times and site</legend>
+              <label class="field">
+                <span>Time zone of times without offset</span>
+                <input
+                  value={mapping.timeZone}
+                  onInput={(e) => setMapping({ ...mapping, timeZone: e.currentTarget.value })}
+                />
+              </label>
+              <label class="field">
+                <span>Dates like 03/06/2026 are</span>
+                <select
+                  value={mapping.dateOrder}
+                  onChange={(e) =>
+                    setMapping({ ...mapping, dateOrder: e.currentTarget.value as ColumnMapping['dateOrder'] })
+                  }
+                >
+                  <option value="dmy">day/month/year</option>
+                  <option value="mdy">month/day/year</option>
+                  <option value="ymd">year/month/day</option>
+                </select>
+              </label>
+              <label class="field">
+                <span>Site for rows without one</span>
+                <select
+                  value={mapping.siteId ?? ''}
+                  onChange={(e) => {
+                    const { siteId: _old, ...rest } = mapping;
+                    setMapping(e.currentTarget.value ? { ...rest, siteId: e.currentTarget.value } : rest);
+                  }}
+                >
+                  <option value="">— from the file —</option>
+                  {sites.map((s) => (
+                    <option key={s.id} value={s.id}>
+                      {s.name}
+                    </option>
+                  ))}
+                </select>
+              </label>
+            </fieldset>
+            {preview.length > 0 && <PreviewTable rows={preview} sites={siteById} />}
+            {plan && (
+              <p>
+                {plan.readings.length} readings ready
+                {plan.newSites.length
+                  ? `, new ${plan.newSites.length === 1 ? 'site' : 'sites'}: ${plan.newSites.map((s) => s.name).join(', ')}`
+                  : ''}
+                {plan.duplicateRows.length ? `, ${plan.duplicateRows.length} repeated rows skipped` : ''}.
+              </p>
+            )}
+            {errors.length > 0 && (
+              <div role="alert">
+                <p class="issue error">
+                  {errors.length} problems: nothing is imported until every row reads cleanly. Fix the file or
+                  the column choices.
+                </p>
+                <table class="kv">
+                  <thead>
+                    <tr>
+                      <th scope="col">Line</th>
+                      <th scope="col">Column</th>
+                      <th scope="col">Problem</th>
+                    </tr>
+                  </thead>
+                  <tbody>
+                    {errors.slice(0, 100).map((e) => (
+                      <tr key={`${e.row}-${e.column}-${e.code}`}>
+                        <td>{e.row}</td>
+                        <td>{e.column ?? '—'}</td>
+                        <td>
+                          {e.message} <code>{e.code}</code>
+                        </td>
+                      </tr>
+                    ))}
+                  </tbody>
+                </table>
+                {errors.length > 100 && <p class="small">…and {errors.length - 100} more.</p>}
+              </div>
+            )}
+            {report?.ok && (
+              <p class="issue warn" role="status">
+                Imported {report.written} readings
+                {report.sitesCreated
+                  ? ` and ${report.sitesCreated} new ${report.sitesCreated === 1 ? 'site' : 'sites'}`
+                  : ''}
+                {report.alreadyPresent
+                  ? `; ${report.alreadyPresent} were already here and were left as they are`
+                  : ''}
+                {report.warnings.length
+                  ? `; ${report.warnings.length} rows are stored but cannot be computed yet`
+                  : ''}
+                .
+              </p>
+            )}
+            <div class="actions">
+              <button
+                type="button"
+                class="primary"
+                disabled={!plan || plan.errors.length > 0 || !!busy}
+                onClick={doImport}
+              >
+                {busy || `Import ${plan?.readings.length ?? 0} readings`}
+              </button>
+            </div>
+          </>
+        )}
+      </div>
+
+      <div class="panel">
+        <h3>Export</h3>
+        <label class="field">
+          <span>Readings of</span>
+          <select value={exportSite} onChange={(e) => setExportSite(e.currentTarget.value)}>
+            <option value="">all sites</option>
+            {sites.map((s) => (
+              <option key={s.id} value={s.id}>
+                {s.name}
+              </option>
+            ))}
+          </select>
+        </label>
+        <div class="actions">
+          <button
+            type="button"
+            onClick={async () => {
+              const all = await repo.listAllReadings();
+              const opts = exportSite ? { siteId: exportSite, solve } : { solve };
+              download(
+                `tufa-readings-${new Date().toISOString().slice(0, 10)}.csv`,
+                exportReadingsCsv(all, sites, opts),
+                'text/csv',
+              );
+            }}
+          >
+            Download CSV
+          </button>
+          <button
+            type="button"
+            onClick={async () => {
+              const b = await createBackup(store);
+              download(`tufa-backup-${b.created_at.slice(0, 10)}.json`, backupToJson(b), 'application/json');
+            }}
+          >
+            Download backup (JSON)
+          </button>
+        </div>
+        <label class="field">
+          <span>
+            Restore a backup (merged: nothing already here is duplicated or replaced by older copies)
+          </span>
+          <input
+            type="file"
+            accept=".json,application/json"
+            onChange={async (e) => {
+              const f = e.currentTarget.files?.[0];
+              if (!f) return;
+              const b = parseBackup(await f.text());
+              if ('error' in b) {
+                setRestoreMsg(`${b.error.message} (${b.error.code})`);
+                return;
+              }
+              const r = await restoreBackup(store, b);
+              setRestoreMsg(
+                `Restored: ${r.added} added, ${r.replaced} replaced by newer copies, ${r.unchanged} unchanged.`,
+              );
+              setReport(undefined);
+              onDataChanged?.();
+            }}
+          />
+        </label>
+        {restoreMsg && (
+          <p class="issue warn" role="status">
+            {restoreMsg}
+          </p>
+        )}
+      </div>
+    </section>
+  );
+}

@@ -1,0 +1,117 @@
+/**
+ * Reduces a raw titration by one method: equivalence volume, alkalinity in every unit,
+ * bicarbonate/carbonate/hydroxide split, fit quality and warnings. Pure: the constants come from
+ * the caller (`makeConstants`), so the same raw record re-reduces with any method or model.
+ */
+
+import { fail, type Issue } from '../errors';
+import type { ConstantSet } from '../types';
+import { reduceCurveFit } from './curveFitMethod';
+import { reduceEndpoint } from './endpointMethod';
+import { reduceGran } from './granMethod';
+import { reduceInflection } from './inflectionMethod';
+import { ionicStrengthForTitration } from './ionicStrengthForTitration';
+import type { MethodResult } from './methodResult';
+import { splitAlkalinity } from './speciesSplit';
+import { alkalinityInEveryUnit, dicUmolKg } from './titrationUnits';
+import { TITRATION_METHODS, type TitrationInput, type TitrationMethod, type TitrationResult } from './types';
+import { checkTitration } from './validateTitration';
+
+/** Builds the fresh-water constant set for the sample temperature and ionic strength. */
+export type ConstantsMaker = (temperatureC: number, ionicStrength: number) => ConstantSet;
+
+const DEFAULT_AIR_PCO2_UATM = 420;
+
+function methodOf(input: TitrationInput): TitrationMethod {
+  const m = input.method ?? 'gran';
+  if (!(TITRATION_METHODS as readonly string[]).includes(m)) {
+    fail(
+      'titration-method-unknown',
+      `Unknown method "${m}"; use one of ${TITRATION_METHODS.join(', ')}.`,
+      'method',
+    );
+  }
+  return m;
+}
+
+export function reduceTitration(input: TitrationInput, makeConstants: ConstantsMaker): TitrationResult {
+  const method = methodOf(input);
+  const t = checkTitration(input);
+  const warnings: Issue[] = [...t.warnings];
+  const toEqL = (ve: number) => (t.titrantEqL * ve) / t.sampleVolumeMl;
+
+  let core: MethodResult;
+  let ionic: ReturnType<typeof ionicStrengthForTitration>;
+  let k: ConstantSet;
+  if (method === 'curve_fit') {
+    // Starting alkalinity from Gran (robust) or, failing that, the fixed endpoint.
+    let guess: number;
+    try {
+      guess = toEqL(
+        reduceGran(t.curve, { sampleVolumeMl: t.sampleVolumeMl, maxPh: input.gran_max_ph })
+          .equivalenceVolumeMl,
+      );
+    } catch {
+      guess = toEqL(reduceEndpoint(t.curve, t.endpointPh).equivalenceVolumeMl);
+    }
+    ionic = ionicStrengthForTitration(input.ionic_strength_mol_kg, input.specific_conductance_us_cm, guess);
+    k = makeConstants(t.temperatureC, ionic.value);
+    const system = input.system ?? 'closed';
+    if (system !== 'closed' && system !== 'open') {
+      fail('titration-value-invalid', `system must be "closed" or "open"; got "${system}".`, 'system');
+    }
+    const pco2 = input.air_pco2_uatm ?? DEFAULT_AIR_PCO2_UATM;
+    if (typeof pco2 !== 'number' || !(pco2 > 0)) {
+      fail('titration-value-invalid', 'air_pco2_uatm must be a positive number.', 'air_pco2_uatm');
+    }
+    core = reduceCurveFit(t.curve, k, {
+      sampleVolumeMl: t.sampleVolumeMl,
+      titrantEqL: t.titrantEqL,
+      system,
+      alkalinityGuess: guess,
+      pco2GuessAtm: pco2 * 1e-6,
+    });
+  } else {
+    if (method === 'gran') {
+      core = reduceGran(t.curve, { sampleVolumeMl: t.sampleVolumeMl, maxPh: input.gran_max_ph });
+    } else if (method === 'inflection') {
+      core = reduceInflection(t.curve);
+    } else {
+      core = reduceEndpoint(t.curve, t.endpointPh);
+    }
+    ionic = ionicStrengthForTitration(
+      input.ionic_strength_mol_kg,
+      input.specific_conductance_us_cm,
+      toEqL(core.equivalenceVolumeMl),
+    );
+    k = makeConstants(t.temperatureC, ionic.value);
+  }
+  warnings.push(...core.warnings, ...ionic.warnings, ...k.warnings);
+
+  const alkalinityEqL = core.alkalinityEqL ?? toEqL(core.equivalenceVolumeMl);
+  const meqL = alkalinityEqL * 1e3;
+  const units = alkalinityInEveryUnit(meqL, t.temperatureC);
+  const result: TitrationResult = {
+    method,
+    equivalence_volume_ml: core.equivalenceVolumeMl,
+    alkalinity_meq_l: meqL,
+    alkalinity_mg_l_caco3: units.mg_l_caco3!,
+    alkalinity: units,
+    species: splitAlkalinity(alkalinityEqL, t.curve.ph[0]!, k, core.dicMolL),
+    fit: core.fit,
+    ionic_strength_mol_kg: ionic.value,
+    ionic_strength_source: ionic.source,
+    titrant_eq_l: t.titrantEqL,
+    formulations: { ...k.formulations, titration: methodSource[method] },
+    warnings,
+  };
+  if (core.dicMolL !== undefined) result.dic_umol_kg = dicUmolKg(core.dicMolL, t.temperatureC);
+  return result;
+}
+
+const methodSource: Record<TitrationMethod, string> = {
+  gran: 'Gran 1952 (F1 with dilution, linear fit past the endpoint)',
+  inflection: 'maximum of dpH/dV, local quadratic smoothing (Savitzky & Golay 1964)',
+  endpoint: 'fixed endpoint, linear interpolation in pH',
+  curve_fit: 'carbonate model fitted by Levenberg–Marquardt (Marquardt 1963)',
+};

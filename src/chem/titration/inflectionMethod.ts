@@ -13,11 +13,11 @@ import type { TitrationCurve } from './types';
 /** Half-width of the smoothing window in points (window = 2·w + 1). */
 export const INFLECTION_HALF_WINDOW = 2;
 /**
- * The total-alkalinity equivalence point of natural waters lies between about pH 4 and 5.5; the
- * search window is wider so low-alkalinity waters still find it, and excludes the carbonate (pH 8.3)
- * inflection (common practice).
+ * The total-alkalinity equivalence point of natural waters lies between about pH 4 and 5.5 (common
+ * practice); the search window is wider so that very soft waters and carbonate-free bases (pH 7)
+ * still find it, and it excludes the carbonate inflection near pH 8.3.
  */
-export const INFLECTION_PH_RANGE: readonly [number, number] = [3.5, 6.5];
+export const INFLECTION_PH_RANGE: readonly [number, number] = [3.5, 7.5];
 
 /** Fit y = a + b·(x − x0) + c·(x − x0)² over the window and return [a, b]: value and slope at x0. */
 function localQuadratic(
@@ -92,10 +92,11 @@ export function reduceInflection(curve: TitrationCurve): MethodResult {
       'points',
     );
   }
-  if (best === 0 || best === n - 1) {
+  if (best === 0 || best === n - 1 || slope[best - 1]! < slope[best]! || slope[best + 1]! < slope[best]!) {
     fail(
       'inflection-not-found',
-      'The steepest part of the curve is at its first or last reading: titrate further past the endpoint.',
+      `The steepest part of the curve lies at the edge of the readings or of pH ${phLo}–${phHi}: ` +
+        'titrate further past the endpoint, in smaller steps.',
       'points',
     );
   }

@@ -1,12 +1,13 @@
 /**
  * The ionic strength used for the activity corrections of a titrated sample, and where it came
- * from, in order of preference: given; from specific conductance (Russell 1976: I ≈ 1.6e-5 × SC in
- * µS/cm at 25 °C, as quoted in Hem 1985, USGS Water-Supply Paper 2254, *memory*); or, as a last
+ * from, in order of preference: given; from specific conductance (Russell 1976, I ≈ 1.6e-5 × SC in
+ * µS/cm at 25 °C, through the fresh model's `ionicStrengthFromConductance`); or, as a last
  * resort, from the alkalinity itself as if calcium balanced it (I = 1.5 × alkalinity in eq/L,
  * since Ca(HCO3)2 gives ½(4·TA/2 + TA)).
  */
 
 import { fail, type Issue, warning } from '../errors';
+import { ionicStrengthFromConductance } from '../fresh/ionic-strength';
 
 export interface IonicStrengthChoice {
   value: number;
@@ -37,7 +38,11 @@ export function ionicStrengthForTitration(
         'specific_conductance_us_cm',
       );
     }
-    return { value: 1.6e-5 * conductanceUsCm, source: 'conductance-russell-1976', warnings: [] };
+    return {
+      value: ionicStrengthFromConductance(conductanceUsCm, 'russell-1976'),
+      source: 'conductance-russell-1976',
+      warnings: [],
+    };
   }
   return {
     value: 1.5 * Math.max(alkalinityEqL, 0),

@@ -5,6 +5,7 @@
  */
 
 import { fail, type Issue } from '../errors';
+import { freshConstants } from '../fresh/constants';
 import type { ConstantSet } from '../types';
 import { reduceCurveFit } from './curveFitMethod';
 import { reduceEndpoint } from './endpointMethod';
@@ -19,6 +20,10 @@ import { checkTitration } from './validateTitration';
 
 /** Builds the fresh-water constant set for the sample temperature and ionic strength. */
 export type ConstantsMaker = (temperatureC: number, ionicStrength: number) => ConstantSet;
+
+/** The default: the fresh-water model (Plummer & Busenberg 1982, Davies activities) at 1 atm. */
+export const freshTitrationConstants: ConstantsMaker = (temperatureC, ionicStrength) =>
+  freshConstants({ temperatureC, salinity: 0, pressureDbar: 0 }, { ionicStrength });
 
 const DEFAULT_AIR_PCO2_UATM = 420;
 

@@ -1,18 +1,20 @@
 /**
- * Alkalinity of a titration in every unit. Placeholder until the units module lands: trade
- * factors from chemistry.md (common practice): mg/L as CaCO3 = meq/L × 50.04; 1 dKH = 10 mg/L CaO.
+ * Titration results in the units of the units module. A titration measures equivalents per litre
+ * of sample; per-kg units go through the density of fresh water at the sample temperature
+ * (EOS-80 at S = 0, via `densityKgL`).
  */
 
-import { MOLAR_MASS_G_PER_MOL } from '../physical';
+import { ALKALINITY_UNITS, alkalinityFromEqKg, densityKgL } from '../units';
 
-export function alkalinityInEveryUnit(meqL: number, _temperatureC: number): Record<string, number> {
-  return {
-    meq_l: meqL,
-    mg_l_caco3: (meqL * MOLAR_MASS_G_PER_MOL.CaCO3) / 2,
-    dkh: (meqL * MOLAR_MASS_G_PER_MOL.CaO) / 2 / 10,
-  };
+export function alkalinityInEveryUnit(meqL: number, temperatureC: number): Record<string, number> {
+  const rho = densityKgL(0, temperatureC);
+  const eqKg = (meqL * 1e-3) / rho;
+  const out: Record<string, number> = {};
+  for (const unit of ALKALINITY_UNITS) out[unit] = alkalinityFromEqKg(eqKg, unit, rho);
+  return out;
 }
 
-export function dicUmolKg(molL: number, _temperatureC: number): number {
-  return molL * 1e6;
+/** mol/L of sample to µmol/kg of water. */
+export function dicUmolKg(molL: number, temperatureC: number): number {
+  return (molL / densityKgL(0, temperatureC)) * 1e6;
 }

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { reduceTitration } from '../../../src/chem/titration/reduceTitration';
+import { freshTitrationConstants, reduceTitration } from '../../../src/chem/titration/reduceTitration';
 import type { TitrationMethod } from '../../../src/chem/titration/types';
+import { densityKgL } from '../../../src/chem/units';
 import { constantsAt25 } from './constantsFixture';
 import { syntheticTitration } from './syntheticTitration';
 
@@ -91,7 +92,11 @@ describe('synthetic titrations are recovered by every method', () => {
     // The points were rounded to 1e-4 pH and 1e-4 mL when written, so that is the floor.
     expect(r.fit.rms).toBeLessThan(1e-4);
     expect(Math.abs(r.alkalinity_meq_l / 2 - 1)).toBeLessThan(1e-4);
-    expect(Math.abs(r.dic_umol_kg! / 2300 - 1)).toBeLessThan(1e-3);
+    // The model works per litre of sample; the output is per kg of water at 25 °C.
+    expect(Math.abs(r.dic_umol_kg! / (2300 / densityKgL(0, 25)) - 1)).toBeLessThan(1e-3);
+    expect(r.alkalinity.umol_kg).toBeCloseTo((r.alkalinity_meq_l * 1e3) / densityKgL(0, 25), 6);
+    // ½ CaCO3 per equivalent, 100.0869 g/mol (IUPAC 2021 atomic weights).
+    expect(r.alkalinity.mg_l_caco3).toBeCloseTo((r.alkalinity_meq_l * 100.0869) / 2, 6);
     expect(r.fit.details.iterations).toBeLessThan(100);
   });
 
@@ -102,5 +107,38 @@ describe('synthetic titrations are recovered by every method', () => {
     const sum = r.species.hco3_mmol_l + 2 * r.species.co3_mmol_l + r.species.oh_mmol_l - freeH;
     expect(sum).toBeCloseTo(r.alkalinity_meq_l, 8);
     expect(r.species.hco3_mmol_l).toBeGreaterThan(r.species.co3_mmol_l);
+  });
+});
+
+describe('with the fresh-water model at field conditions', () => {
+  it('a cold stream at 8 °C, conductance 150 µS/cm, is recovered by every method', () => {
+    // Same ionic strength the reduction will derive from the conductance (Russell 1976 factor).
+    const ionic = 1.6e-5 * 150;
+    const kField = freshTitrationConstants(8, ionic);
+    const input = {
+      ...syntheticTitration(
+        {
+          sample: { alkalinity: 1.2e-3, dic: 1.5e-3 },
+          sampleVolumeMl: 100,
+          titrantEqL: 0.02,
+          points: 50,
+          finalPh: 3.1,
+          phNoise: 0.004,
+          seed: 9,
+          temperatureC: 8,
+        },
+        kField,
+      ),
+      ionic_strength_mol_kg: undefined,
+      specific_conductance_us_cm: 150,
+    };
+    for (const method of ['gran', 'inflection', 'curve_fit'] as const) {
+      const r = reduceTitration({ ...input, method }, freshTitrationConstants);
+      expect(r.ionic_strength_source).toBe('conductance-russell-1976');
+      expect(Math.abs(r.alkalinity_meq_l / 1.2 - 1), method).toBeLessThan(TOLERANCE[method]);
+    }
+    const fit = reduceTitration({ ...input, method: 'curve_fit' }, freshTitrationConstants);
+    expect(Math.abs(fit.dic_umol_kg! / (1500 / densityKgL(0, 8)) - 1)).toBeLessThan(0.01);
+    expect(fit.formulations.titration).toMatch(/Levenberg/);
   });
 });

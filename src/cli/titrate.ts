@@ -1,0 +1,156 @@
+/**
+ * `tufa titrate`: reduces field titrations read as one JSON object or JSON Lines on stdin and
+ * writes one JSON line per titration (the result, or `{ "error": {code, message} }`).
+ * Exit code 0 when every titration reduced, 1 when any failed, 2 for a bad command line.
+ */
+
+import { freshTitrationConstants } from '../chem/titration/reduceTitration';
+import { titrate } from '../chem/titration/titrate';
+import { TITRATION_METHODS, type TitrationInput, type TitrationMethod } from '../chem/titration/types';
+
+export interface CliIo {
+  stdin: AsyncIterable<string | Uint8Array>;
+  stdout: { write(chunk: string): unknown };
+  stderr: { write(chunk: string): unknown };
+}
+
+export const TITRATE_HELP = `Usage: npm run -s tufa -- titrate [options] < titration.json
+
+Reduces acid titrations of a water sample to its alkalinity. Reads one JSON object, or one
+titration per line (JSON Lines), from stdin; writes one JSON line per titration.
+
+Input fields:
+  sample_volume_ml            volume of sample titrated, mL
+  titrant_normality           acid concentration, eq/L
+  titrant_correction_factor   multiplies the normality (default 1)
+  temperature_c               sample temperature, °C
+  points                      [{"volume_ml": 0, "ph": 7.9}, ...] cumulative acid added and pH
+                              (or {"counts": ..., "ph": ...} with counts_per_ml for a digital titrator)
+  method                      gran (default) | inflection | endpoint | curve_fit
+  endpoint_ph                 for method endpoint (default 4.5)
+  ionic_strength_mol_kg or specific_conductance_us_cm   for activity corrections
+  system                      curve_fit: closed (default) or open (sample exchanging CO2 with air)
+  uncertainty                 {"titrant_normality": 0.0005, "sample_volume_ml": 0.1, "ph": 0.01,
+                               "volume_ml": 0.005, "ph_offset": 0.02} standard uncertainties
+
+Output fields: alkalinity_meq_l, alkalinity_mg_l_caco3, alkalinity (every unit),
+equivalence_volume_ml, method, species, fit (r2, residuals, rms, points_used), warnings,
+dic_umol_kg (curve_fit), uncertainty (when asked for).
+
+Options:
+  --method NAME       reduce with this method, overriding the input's
+  --endpoint-ph X     endpoint pH for --method endpoint
+  --every-method      reduce each titration by every method (one line per method)
+  --pretty            indent the JSON output
+  --help              this text
+
+Handling acids: wear protective eyewear and gloves, add titrant slowly, keep acid away from
+skin and eyes, rinse spills with plenty of water, and follow your laboratory's safety rules and
+the titrant's product label and safety data sheet. Results are estimates from a model; check
+them against your own quality-control samples.
+`;
+
+interface Options {
+  method?: TitrationMethod;
+  endpointPh?: number;
+  everyMethod: boolean;
+  pretty: boolean;
+  help: boolean;
+}
+
+function parseArgs(args: string[]): Options | string {
+  const o: Options = { everyMethod: false, pretty: false, help: false };
+  for (let i = 0; i < args.length; i++) {
+    const a = args[i]!;
+    if (a === '--help' || a === '-h') o.help = true;
+    else if (a === '--pretty') o.pretty = true;
+    else if (a === '--every-method') o.everyMethod = true;
+    else if (a === '--method') {
+      const m = args[++i];
+      if (m === undefined || !(TITRATION_METHODS as readonly string[]).includes(m)) {
+        return `--method needs one of ${TITRATION_METHODS.join(', ')}`;
+      }
+      o.method = m as TitrationMethod;
+    } else if (a === '--endpoint-ph') {
+      const v = Number(args[++i]);
+      if (!Number.isFinite(v)) return '--endpoint-ph needs a number';
+      o.endpointPh = v;
+    } else return `unknown option ${a}`;
+  }
+  return o;
+}
+
+async function readAll(stdin: CliIo['stdin']): Promise<string> {
+  const decoder = new TextDecoder();
+  let text = '';
+  for await (const chunk of stdin)
+    text += typeof chunk === 'string' ? chunk : decoder.decode(chunk, { stream: true });
+  return text + decoder.decode();
+}
+
+/** One JSON document (possibly spread over lines) or JSON Lines; each entry is a record or a parse error. */
+function records(text: string): Array<{ value: unknown } | { error: { code: string; message: string } }> {
+  const trimmed = text.replace(/^\uFEFF/, '').trim();
+  if (trimmed === '') return [];
+  try {
+    return [{ value: JSON.parse(trimmed) }];
+  } catch {
+    return trimmed
+      .split(/\r?\n/)
+      .map((line, i) => ({ line: line.trim(), i }))
+      .filter(({ line }) => line !== '')
+      .map(({ line, i }) => {
+        try {
+          return { value: JSON.parse(line) as unknown };
+        } catch {
+          return { error: { code: 'input-not-json', message: `Line ${i + 1} is not valid JSON.` } };
+        }
+      });
+  }
+}
+
+export async function runTitrate(args: string[], io: CliIo): Promise<number> {
+  const opts = parseArgs(args);
+  if (typeof opts === 'string') {
+    io.stderr.write(`tufa titrate: ${opts}\n\n${TITRATE_HELP}`);
+    return 2;
+  }
+  if (opts.help) {
+    io.stdout.write(TITRATE_HELP);
+    return 0;
+  }
+  const text = await readAll(io.stdin);
+  const entries = records(text);
+  if (entries.length === 0) {
+    io.stderr.write('tufa titrate: no titration on stdin (see --help)\n');
+    return 2;
+  }
+  const write = (obj: unknown) =>
+    io.stdout.write(`${JSON.stringify(obj, null, opts.pretty ? 2 : undefined)}\n`);
+  let failed = false;
+  for (const entry of entries) {
+    if ('error' in entry) {
+      write({ error: entry.error });
+      failed = true;
+      continue;
+    }
+    if (typeof entry.value !== 'object' || entry.value === null || Array.isArray(entry.value)) {
+      write({ error: { code: 'titration-value-invalid', message: 'Each titration must be a JSON object.' } });
+      failed = true;
+      continue;
+    }
+    const input = entry.value as TitrationInput;
+    const methods: (TitrationMethod | undefined)[] = opts.everyMethod
+      ? [...TITRATION_METHODS]
+      : [opts.method];
+    for (const method of methods) {
+      const record: TitrationInput = { ...input };
+      if (method !== undefined) record.method = method;
+      if (opts.endpointPh !== undefined) record.endpoint_ph = opts.endpointPh;
+      const result = titrate(record, freshTitrationConstants);
+      if ('error' in result) failed = true;
+      write(opts.everyMethod && 'error' in result ? { method, ...result } : result);
+    }
+  }
+  return failed ? 1 : 0;
+}

@@ -44,11 +44,12 @@ export function numericOutputs(result: Record<string, unknown>): Record<string, 
   return out;
 }
 
+/** `base` = the unperturbed outputs when the caller already has them (saves one evaluation). */
 export function propagateUncertainty(
   evaluate: Evaluate,
   inputs: readonly UncertainInput[],
+  base: Record<string, number> = evaluate(null),
 ): Record<string, OutputUncertainty> {
-  const base = evaluate(null);
   const names = Object.keys(base);
   const variance = new Map<string, Map<string, number>>(); // output -> input -> variance
   for (const key of names) variance.set(key, new Map());

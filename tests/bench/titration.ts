@@ -1,0 +1,70 @@
+/**
+ * Titration benchmark: reducing one 50-point titration by every method, the same with its
+ * uncertainty propagated, and (when the solver is given) the cost of a solve with uncertainties
+ * in plain solves. Prints figures; never a pass/fail test.
+ */
+
+import { freshTitrationConstants, reduceTitration } from '../../src/chem/titration/reduceTitration';
+import { TITRATION_METHODS, type TitrationInput } from '../../src/chem/titration/types';
+import { titrationUncertainty } from '../../src/chem/uncertainty/titrationUncertainty';
+import { syntheticTitration } from '../chem/titration/syntheticTitration';
+
+let sink = 0;
+
+/** Mean milliseconds per call, after a warm-up, over at least `minMs` of calls. */
+function msPerCall(fn: () => number, minMs = 300): number {
+  for (let i = 0; i < 5; i++) sink += fn();
+  let calls = 0;
+  const t0 = performance.now();
+  let elapsed = 0;
+  while (elapsed < minMs) {
+    sink += fn();
+    calls++;
+    elapsed = performance.now() - t0;
+  }
+  return elapsed / calls;
+}
+
+export function fiftyPointTitration(): TitrationInput {
+  // An invented lowland well: 2.4 meq/L, 100 mL titrated with 0.1 N acid, 12 °C, 350 µS/cm.
+  const k = freshTitrationConstants(12, 1.6e-5 * 350);
+  return {
+    ...syntheticTitration(
+      {
+        sample: { alkalinity: 2.4e-3, dic: 2.8e-3 },
+        sampleVolumeMl: 100,
+        titrantEqL: 0.1,
+        points: 50,
+        finalPh: 3.0,
+        phNoise: 0.005,
+        seed: 50,
+        temperatureC: 12,
+      },
+      k,
+    ),
+    ionic_strength_mol_kg: undefined,
+    specific_conductance_us_cm: 350,
+  };
+}
+
+export function benchTitration(): string[] {
+  const input = fiftyPointTitration();
+  const lines: string[] = [];
+  const u = { sample_volume_ml: 0.1, titrant_normality: 0.0005, volume_ml: 0.005, ph: 0.01, ph_offset: 0.02 };
+  lines.push('method       reduce (ms)  reductions/s   with uncertainty (ms)  reductions per uncertainty');
+  for (const method of TITRATION_METHODS) {
+    const record = { ...input, method };
+    const plain = msPerCall(() => reduceTitration(record, freshTitrationConstants).alkalinity_meq_l);
+    const withU = msPerCall(
+      () => titrationUncertainty(record, u, freshTitrationConstants).alkalinity_meq_l!.standard_uncertainty,
+    );
+    lines.push(
+      `${method.padEnd(12)} ${plain.toFixed(4).padStart(11)}  ${(1000 / plain).toFixed(0).padStart(12)}   ${withU
+        .toFixed(3)
+        .padStart(21)}  ${(withU / plain).toFixed(1).padStart(26)}`,
+    );
+  }
+  lines.push(`(uncertainty: ${Object.keys(u).join(', ')}; per-point inputs cost one reduction per point)`);
+  if (sink === 42) lines.push('');
+  return lines;
+}

@@ -4,7 +4,7 @@
  * the caller (`makeConstants`), so the same raw record re-reduces with any method or model.
  */
 
-import { fail, type Issue } from '../errors';
+import { fail, type Issue, warning } from '../errors';
 import { freshConstants } from '../fresh/constants';
 import type { ConstantSet } from '../types';
 import { reduceCurveFit } from './curveFitMethod';
@@ -44,12 +44,13 @@ export function reduceTitration(input: TitrationInput, makeConstants: ConstantsM
   const t = checkTitration(input);
   const warnings: Issue[] = [...t.warnings];
   const toEqL = (ve: number) => (t.titrantEqL * ve) / t.sampleVolumeMl;
+  checkEndpointReached(t.curve.ph, t.endpointPh, method, warnings);
 
   let core: MethodResult;
   let ionic: ReturnType<typeof ionicStrengthForTitration>;
   let k: ConstantSet;
   if (method === 'curve_fit') {
-    // Starting alkalinity from Gran (robust) or, failing that, the fixed endpoint.
+    // Starting alkalinity from Gran (robust) or, failing that, the fixed endpoint or the acid added.
     let guess: number;
     try {
       guess = toEqL(
@@ -57,7 +58,12 @@ export function reduceTitration(input: TitrationInput, makeConstants: ConstantsM
           .equivalenceVolumeMl,
       );
     } catch {
-      guess = toEqL(reduceEndpoint(t.curve, t.endpointPh).equivalenceVolumeMl);
+      try {
+        guess = toEqL(reduceEndpoint(t.curve, t.endpointPh).equivalenceVolumeMl);
+      } catch {
+        // Short of the endpoint the alkalinity exceeds the acid added so far.
+        guess = 1.2 * toEqL(t.curve.volumeMl[t.curve.volumeMl.length - 1]!);
+      }
     }
     ionic = ionicStrengthForTitration(input.ionic_strength_mol_kg, input.specific_conductance_us_cm, guess);
     k = makeConstants(t.temperatureC, ionic.value);
@@ -112,6 +118,38 @@ export function reduceTitration(input: TitrationInput, makeConstants: ConstantsM
   };
   if (core.dicMolL !== undefined) result.dic_umol_kg = dicUmolKg(core.dicMolL, t.temperatureC);
   return result;
+}
+
+/** Fewer readings than this past the endpoint leave the acid excess poorly defined (common practice). */
+const ENOUGH_POINTS_PAST_ENDPOINT = 4;
+
+/**
+ * A curve that never reaches the endpoint cannot give an equivalence volume, except to the curve
+ * fit, which extrapolates the model and is therefore only warned.
+ */
+function checkEndpointReached(
+  ph: Float64Array,
+  endpointPh: number,
+  method: TitrationMethod,
+  warnings: Issue[],
+): void {
+  let past = 0;
+  for (const p of ph) if (p < endpointPh) past++;
+  if (past === 0) {
+    const message = `The curve never reaches pH ${endpointPh} (lowest reading pH ${Math.min(...ph)}). Keep adding acid.`;
+    if (method !== 'curve_fit') fail('titration-endpoint-not-crossed', message, 'points');
+    warnings.push(
+      warning('titration-endpoint-not-crossed', `${message} The curve fit extrapolates.`, 'points'),
+    );
+  } else if (past < ENOUGH_POINTS_PAST_ENDPOINT) {
+    warnings.push(
+      warning(
+        'titration-few-points-past-endpoint',
+        `Only ${past} readings lie below pH ${endpointPh}: take ${ENOUGH_POINTS_PAST_ENDPOINT} or more past the endpoint.`,
+        'points',
+      ),
+    );
+  }
 }
 
 const methodSource: Record<TitrationMethod, string> = {

@@ -72,8 +72,19 @@ describe('bad titrations get a code, never NaN', () => {
       'gran-too-few-points',
     ],
     [
+      'gran never crossing',
+      { ...base, method: 'gran', points: base.points.filter((p) => p.ph > 4.6) },
+      'titration-endpoint-not-crossed',
+    ],
+    [
       'inflection not reached',
       { ...base, method: 'inflection', points: base.points.filter((p) => p.ph > 5.5) },
+      'titration-endpoint-not-crossed',
+    ],
+    [
+      // One reading past the steepest fall: the peak of dpH/dV is not inside the readings.
+      'inflection barely past',
+      { ...base, method: 'inflection', points: base.points.filter((p) => p.ph > 4.4) },
       'inflection-not-found',
     ],
     ['negative uncertainty', { ...base, uncertainty: { titrant_normality: -1 } }, 'uncertainty-invalid'],
@@ -94,6 +105,20 @@ describe('bad titrations get a code, never NaN', () => {
     ];
     expect(three.filter((p) => p.ph <= 4.0)).toHaveLength(3);
     expect(warningsOf({ ...base, points: three })).toContain('gran-few-points');
+  });
+
+  it('warns when few readings lie past the endpoint, and the curve fit when it must extrapolate', () => {
+    const few = [
+      ...base.points.filter((p) => p.ph > 4.5),
+      ...base.points.filter((p) => p.ph < 4.5).slice(0, 2),
+    ];
+    expect(warningsOf({ ...base, method: 'endpoint', points: few })).toContain(
+      'titration-few-points-past-endpoint',
+    );
+    const short = base.points.filter((p) => p.ph > 4.7);
+    expect(warningsOf({ ...base, method: 'curve_fit', points: short })).toContain(
+      'titration-endpoint-not-crossed',
+    );
   });
 
   it('warns when the ionic strength had to be guessed', () => {

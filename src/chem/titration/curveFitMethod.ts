@@ -26,7 +26,15 @@ export interface CurveFitOptions {
   alkalinityGuess: number;
   /** Open system: starting air pCO2, atm. */
   pco2GuessAtm: number;
+  /**
+   * Start from these parameters instead (a previous fit of nearly the same curve, as in
+   * uncertainty propagation); the result is the same minimum, reached in fewer iterations.
+   */
+  start?: readonly [number, number];
 }
+
+/** The fitted parameters in the form `start` takes: [TA eq/L, DIC mol/L] or [TA eq/L, log10 pCO2 atm]. */
+export type CurveFitParameters = readonly [number, number];
 
 /** Parameters: closed [TA eq/L, DIC mol/L]; open [TA eq/L, log10 pCO2 atm]. */
 function sampleOf(p: readonly number[], system: TitrationSystem): TitrationSample {
@@ -42,8 +50,9 @@ export function reduceCurveFit(curve: TitrationCurve, k: ConstantSet, opts: Curv
     for (let i = 0; i < n; i++) out[i] = phAfterAcid(s, k, sampleVolumeMl, titrantEqL, curve.volumeMl[i]!);
   };
   const ta0 = opts.alkalinityGuess;
-  let p: number[] =
-    system === 'open'
+  let p: number[] = opts.start
+    ? [opts.start[0], opts.start[1]]
+    : system === 'open'
       ? [ta0, Math.log10(opts.pco2GuessAtm)]
       : [ta0, Math.max(dicFromAlkalinityPh(ta0, curve.ph[0]!, k), 0.5 * ta0, 1e-6)];
 
@@ -155,6 +164,7 @@ export function reduceCurveFit(curve: TitrationCurve, k: ConstantSet, opts: Curv
   const details: Record<string, number> = { iterations, cost, lambda };
   if (system === 'open') details.air_pco2_uatm = 10 ** p[1]! * 1e6;
   return {
+    parameters: [p[0]!, p[1]!],
     equivalenceVolumeMl: (alkalinity * sampleVolumeMl) / titrantEqL,
     alkalinityEqL: alkalinity,
     dicMolL: dic,

@@ -7,7 +7,7 @@
 import { fail, type Issue, warning } from '../errors';
 import { freshConstants } from '../fresh/constants';
 import type { ConstantSet } from '../types';
-import { reduceCurveFit } from './curveFitMethod';
+import { type CurveFitParameters, reduceCurveFit } from './curveFitMethod';
 import { reduceEndpoint } from './endpointMethod';
 import { reduceGran } from './granMethod';
 import { reduceInflection } from './inflectionMethod';
@@ -39,7 +39,17 @@ function methodOf(input: TitrationInput): TitrationMethod {
   return m;
 }
 
-export function reduceTitration(input: TitrationInput, makeConstants: ConstantsMaker): TitrationResult {
+/** Internal shortcuts that change how fast a reduction runs, never its result. */
+export interface ReduceHints {
+  curveFitStart?: CurveFitParameters;
+}
+
+/** The reduction plus what a later reduction of nearly the same record can start from. */
+export function reduceTitrationWithHints(
+  input: TitrationInput,
+  makeConstants: ConstantsMaker,
+  hints: ReduceHints = {},
+): { result: TitrationResult; hints: ReduceHints } {
   const method = methodOf(input);
   const t = checkTitration(input);
   const warnings: Issue[] = [...t.warnings];
@@ -81,6 +91,7 @@ export function reduceTitration(input: TitrationInput, makeConstants: ConstantsM
       system,
       alkalinityGuess: guess,
       pco2GuessAtm: pco2 * 1e-6,
+      ...(hints.curveFitStart ? { start: hints.curveFitStart } : {}),
     });
   } else {
     if (method === 'gran') {
@@ -117,7 +128,11 @@ export function reduceTitration(input: TitrationInput, makeConstants: ConstantsM
     warnings,
   };
   if (core.dicMolL !== undefined) result.dic_umol_kg = dicUmolKg(core.dicMolL, t.temperatureC);
-  return result;
+  return { result, hints: core.parameters ? { curveFitStart: core.parameters } : {} };
+}
+
+export function reduceTitration(input: TitrationInput, makeConstants: ConstantsMaker): TitrationResult {
+  return reduceTitrationWithHints(input, makeConstants).result;
 }
 
 /** Fewer readings than this past the endpoint leave the acid excess poorly defined (common practice). */

@@ -7,7 +7,7 @@
  */
 
 import { fail } from '../errors';
-import { type ConstantsMaker, reduceTitration } from '../titration/reduceTitration';
+import { type ConstantsMaker, reduceTitrationWithHints } from '../titration/reduceTitration';
 import {
   TITRATION_UNCERTAINTY_KEYS,
   type TitrationInput,
@@ -89,12 +89,17 @@ export function titrationUncertainty(
     const perPoint = key === 'ph' || key === 'volume_ml';
     inputs.push({ name: key, u, components: perPoint ? input.points.length : 1 });
   }
+  // Every perturbed curve fit starts from the unperturbed fit: same minimum, a few iterations.
+  const base = reduceTitrationWithHints(input, makeConstants);
   const evaluate: Evaluate = (p) =>
-    outputsOf(
-      reduceTitration(
-        p === null ? input : perturbed(input, p.name as TitrationUncertaintyKey, p.index, p.delta),
-        makeConstants,
-      ),
-    );
-  return propagateUncertainty(evaluate, inputs);
+    p === null
+      ? outputsOf(base.result)
+      : outputsOf(
+          reduceTitrationWithHints(
+            perturbed(input, p.name as TitrationUncertaintyKey, p.index, p.delta),
+            makeConstants,
+            base.hints,
+          ).result,
+        );
+  return propagateUncertainty(evaluate, inputs, outputsOf(base.result));
 }

@@ -31,6 +31,8 @@ Input: one JSON object per line (or a CSV whose header row uses the same names).
             carbonic_constants (lueker2000 | millero2010)   boron_total (lee2010 | uppstrom1974)
             output_temperature_c output_pressure_dbar   pair (e.g. "ph+alkalinity_umol_kg")
             root (high-ph | low-ph: which root of a two-root pair is reported first)
+            uncertainty: {"<input key>": standard uncertainty, ..., "constants": true} (JSON only)
+              adds "uncertainty": {"<output>": {standard_uncertainty, dominant_input, contributions}}
 
 Output (at output conditions): alkalinity_umol_kg dic_umol_kg ph_total ph_free ph_seawater ph_nbs
   pco2_uatm fco2_uatm co2_umol_kg hco3_umol_kg co3_umol_kg omega_calcite omega_aragonite

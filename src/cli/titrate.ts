@@ -7,12 +7,7 @@
 import { freshTitrationConstants } from '../chem/titration/reduceTitration';
 import { titrate } from '../chem/titration/titrate';
 import { TITRATION_METHODS, type TitrationInput, type TitrationMethod } from '../chem/titration/types';
-
-export interface CliIo {
-  stdin: AsyncIterable<string | Uint8Array>;
-  stdout: { write(chunk: string): unknown };
-  stderr: { write(chunk: string): unknown };
-}
+import { type CliIo, EXIT_OK, EXIT_ROW_FAILED, EXIT_USAGE, readAll } from './io';
 
 export const TITRATE_HELP = `Usage: npm run -s tufa -- titrate [options] < titration.json
 
@@ -80,14 +75,6 @@ function parseArgs(args: string[]): Options | string {
   return o;
 }
 
-async function readAll(stdin: CliIo['stdin']): Promise<string> {
-  const decoder = new TextDecoder();
-  let text = '';
-  for await (const chunk of stdin)
-    text += typeof chunk === 'string' ? chunk : decoder.decode(chunk, { stream: true });
-  return text + decoder.decode();
-}
-
 /** One JSON document (possibly spread over lines) or JSON Lines; each entry is a record or a parse error. */
 function records(text: string): Array<{ value: unknown } | { error: { code: string; message: string } }> {
   const trimmed = text.replace(/^\uFEFF/, '').trim();
@@ -113,17 +100,17 @@ export async function runTitrate(args: string[], io: CliIo): Promise<number> {
   const opts = parseArgs(args);
   if (typeof opts === 'string') {
     io.stderr.write(`tufa titrate: ${opts}\n\n${TITRATE_HELP}`);
-    return 2;
+    return EXIT_USAGE;
   }
   if (opts.help) {
     io.stdout.write(TITRATE_HELP);
-    return 0;
+    return EXIT_OK;
   }
   const text = await readAll(io.stdin);
   const entries = records(text);
   if (entries.length === 0) {
     io.stderr.write('tufa titrate: no titration on stdin (see --help)\n');
-    return 2;
+    return EXIT_USAGE;
   }
   const write = (obj: unknown) =>
     io.stdout.write(`${JSON.stringify(obj, null, opts.pretty ? 2 : undefined)}\n`);
@@ -152,5 +139,5 @@ export async function runTitrate(args: string[], io: CliIo): Promise<number> {
       write(opts.everyMethod && 'error' in result ? { method, ...result } : result);
     }
   }
-  return failed ? 1 : 0;
+  return failed ? EXIT_ROW_FAILED : EXIT_OK;
 }

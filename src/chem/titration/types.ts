@@ -6,6 +6,7 @@
  * meter reads it (activity scale, NBS buffers), temperatures in °C.
  */
 
+import type { OutputUncertainty } from '../api';
 import type { Issue } from '../errors';
 
 export const TITRATION_METHODS = ['gran', 'inflection', 'endpoint', 'curve_fit'] as const;
@@ -113,8 +114,5 @@ export interface TitrationResult {
   titrant_eq_l: number;
   formulations: Record<string, string>;
   warnings: Issue[];
-  uncertainty?: Record<
-    string,
-    { standard_uncertainty: number; dominant_input: string; contributions: Record<string, number> }
-  >;
+  uncertainty?: Record<string, OutputUncertainty>;
 }

@@ -10,6 +10,7 @@
  * (1e-12 in pH) stays far below the difference taken.
  */
 
+import type { OutputUncertainty } from '../api';
 import { fail } from '../errors';
 
 export const STEP_FRACTION = 1e-3;
@@ -27,13 +28,7 @@ export type Evaluate = (
   perturb: { name: string; index: number; delta: number } | null,
 ) => Record<string, number>;
 
-export interface OutputUncertainty {
-  standard_uncertainty: number;
-  /** The input with the largest contribution. */
-  dominant_input: string;
-  /** |∂y/∂x|·u(x) per input, in the unit of the output; they add in quadrature to the total. */
-  contributions: Record<string, number>;
-}
+export type { OutputUncertainty };
 
 /** Numeric, finite outputs only: names, flags and nested objects carry no uncertainty. */
 export function numericOutputs(result: Record<string, unknown>): Record<string, number> {

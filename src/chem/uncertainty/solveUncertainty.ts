@@ -11,6 +11,7 @@
  */
 
 import { fail } from '../errors';
+import type { ConstantShifts } from '../models';
 import {
   type Evaluate,
   numericOutputs,
@@ -19,20 +20,8 @@ import {
   type UncertainInput,
 } from './propagate';
 
-/** Constant shifts the solver accepts (p-unit offsets; a factor on total boron). */
-export interface ShiftsForSolve {
-  pk0?: number;
-  pk1?: number;
-  pk2?: number;
-  pkb?: number;
-  pkw?: number;
-  pkspCalcite?: number;
-  pkspAragonite?: number;
-  totalBoronFactor?: number;
-}
-
 /** The solver as seen from here: a plain solve (no `uncertainty` key) with optional shifts. */
-export type SolveFn = (input: Record<string, unknown>, options: { shifts?: ShiftsForSolve }) => unknown;
+export type SolveFn = (input: Record<string, unknown>, options: { shifts?: ConstantShifts }) => unknown;
 
 /** Standard uncertainties of the constants, Orr et al. (2018) *(memory, via chemistry.md)*. */
 export const CONSTANT_UNCERTAINTIES = {
@@ -49,7 +38,7 @@ export const CONSTANT_UNCERTAINTIES = {
 type ConstantKey = keyof typeof CONSTANT_UNCERTAINTIES;
 const CONSTANT_KEYS = Object.keys(CONSTANT_UNCERTAINTIES) as ConstantKey[];
 
-function shiftFor(key: ConstantKey, delta: number): ShiftsForSolve {
+function shiftFor(key: ConstantKey, delta: number): ConstantShifts {
   switch (key) {
     case 'pk0':
       return { pk0: delta };

@@ -1,4 +1,5 @@
 import { readFileSync } from 'node:fs';
+import { Readable } from 'node:stream';
 import { describe, expect, it } from 'vitest';
 import { runTitrate } from '../../../src/cli/titrate';
 
@@ -6,9 +7,7 @@ async function run(args: string[], stdin: string) {
   let out = '';
   let err = '';
   const code = await runTitrate(args, {
-    stdin: (async function* () {
-      yield stdin;
-    })(),
+    stdin: Readable.from([stdin]),
     stdout: { write: (s: string) => (out += s) },
     stderr: { write: (s: string) => (err += s) },
   });

@@ -4,9 +4,12 @@
  */
 
 import { benchSolve } from './solve';
+import { benchSolveUncertainty, benchTitration } from './titration';
 
 const sections: [string, () => string[] | Promise<string[]>][] = [
   ['Saline solver (100 000 rows)', benchSolve],
+  ['Titration: one 50-point titration by every method', benchTitration],
+  ['Solve with uncertainties', benchSolveUncertainty],
 ];
 
 for (const [title, run] of sections) {

@@ -4,6 +4,7 @@
  * in plain solves. Prints figures; never a pass/fail test.
  */
 
+import { solve } from '../../src/chem/solve';
 import { freshTitrationConstants, reduceTitration } from '../../src/chem/titration/reduceTitration';
 import { TITRATION_METHODS, type TitrationInput } from '../../src/chem/titration/types';
 import { titrationUncertainty } from '../../src/chem/uncertainty/titrationUncertainty';
@@ -66,5 +67,41 @@ export function benchTitration(): string[] {
   }
   lines.push(`(uncertainty: ${Object.keys(u).join(', ')}; per-point inputs cost one reduction per point)`);
   if (sink === 42) lines.push('');
+  return lines;
+}
+
+/**
+ * Cost of a solve with uncertainties, in plain solves (target: under 25). Two requests: four
+ * measured inputs alone, and the same with every constant of Orr et al. (2018).
+ */
+export function benchSolveUncertainty(): string[] {
+  const water = { temperature_c: 18, salinity: 35, alkalinity_umol_kg: 2300, dic_umol_kg: 2050 };
+  const measured = { alkalinity_umol_kg: 2, dic_umol_kg: 2, temperature_c: 0.05, salinity: 0.01 };
+  const count = (r: ReturnType<typeof solve>) => ('error' in r ? 0 : 1);
+  const requests = [
+    ['4 inputs', { ...water, uncertainty: measured }],
+    ['4 inputs + 8 constants', { ...water, uncertainty: { ...measured, constants: true } }],
+  ] as const;
+  // The machine is shared: plain and uncertain solves are timed in alternating rounds and the
+  // median ratio is reported, so a busy neighbour slows both sides of a ratio alike.
+  const ROUNDS = 7;
+  const plainTimes: number[] = [];
+  const ratios: number[][] = requests.map(() => []);
+  for (let round = 0; round < ROUNDS; round++) {
+    const plain = msPerCall(() => count(solve(water)), 100);
+    plainTimes.push(plain);
+    requests.forEach(([, req], i) => {
+      ratios[i]!.push(msPerCall(() => count(solve(req)), 100) / plain);
+    });
+  }
+  const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)]!;
+  const lines = [`plain solve: ${(median(plainTimes) * 1000).toFixed(1)} µs (median of ${ROUNDS} rounds)`];
+  requests.forEach(([name], i) => {
+    lines.push(
+      `with uncertainty (${name}): ${median(ratios[i]!).toFixed(1)} plain solves (target < 25; ${
+        name.startsWith('4 inputs +') ? 13 : 5
+      } solves of work)`,
+    );
+  });
   return lines;
 }

@@ -216,7 +216,6 @@ function convertWater(v: number, from: WaterQuantity, to: WaterQuantity, o: Opti
   }
   const s = toSalinity(v, from, o);
   const result = fromSalinity(s, to, o);
-  const t68 = t68FromT90(o.temp);
   const usesPss = [from, to].some((q) => q === 'sc25_us_cm' || q === 'cond_us_cm');
   const usesEos = [from, to].some((q) => q === 'density_kg_m3' || q === 'sg');
   const warnings = [
@@ -235,8 +234,7 @@ function densityKgLFor(o: Options): { rho: number; note: string; warnings: Issue
   if (o.density !== undefined) {
     return { rho: o.density / 1000, note: `density ${o.density} kg/m3 (given)`, warnings: [] };
   }
-  const t68 = t68FromT90(o.temp);
-  const rho = densityOneAtmEos80(o.sal, t68);
+  const rho = densityOneAtmEos80(o.sal, t68FromT90(o.temp));
   return {
     rho: rho / 1000,
     note: `density ${rho.toFixed(3)} kg/m3 (EOS-80, S ${o.sal}, ${o.temp} °C)`,

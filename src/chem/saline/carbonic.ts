@@ -1,0 +1,101 @@
+/**
+ * First and second dissociation constants of carbonic acid in seawater, total pH scale,
+ * mol kg-1 of solution.
+ *
+ * The optional trailing arguments (ln T, √S) let the entry point pass values it computed once;
+ * callers that only have T and S leave them out.
+ */
+
+import { LN10 } from '../physical';
+import type { ValidityRange } from './issues';
+
+/** Lueker, Dickson & Keeling (2000): fitted for t 2–35 °C, S 19–43. */
+export const K1K2_LUEKER2000_VALIDITY: ValidityRange = {
+  label: 'K1 and K2 (Lueker et al. 2000)',
+  temperatureC: [2, 35],
+  salinity: [19, 43],
+};
+
+/**
+ * K1 of carbonic acid, total scale.
+ * Lueker, T. J., Dickson, A. G. & Keeling, C. D. (2000) Marine Chemistry 70, 105–119:
+ * pK1 = 3633.86/T − 61.2172 + 9.6777 ln T − 0.011555 S + 0.0001152 S².
+ * @param tK temperature, K
+ * @param s practical salinity
+ * @returns K1 in mol kg-1 (total scale)
+ * Valid t 2–35 °C, S 19–43. Check: log10 K1 = −5.8472 at S 35, 25 °C (Dickson et al. 2007, ch. 5).
+ */
+export function k1Lueker2000(tK: number, s: number, lnT: number = Math.log(tK)): number {
+  const pk = 3633.86 / tK - 61.2172 + 9.6777 * lnT - 0.011555 * s + 0.0001152 * s * s;
+  return Math.exp(-pk * LN10);
+}
+
+/**
+ * K2 of carbonic acid, total scale.
+ * Lueker et al. (2000): pK2 = 471.78/T + 25.929 − 3.16967 ln T − 0.01781 S + 0.0001122 S².
+ * @param tK temperature, K
+ * @param s practical salinity
+ * @returns K2 in mol kg-1 (total scale)
+ * Valid t 2–35 °C, S 19–43. Check: log10 K2 = −8.9660 at S 35, 25 °C (Dickson et al. 2007, ch. 5).
+ */
+export function k2Lueker2000(tK: number, s: number, lnT: number = Math.log(tK)): number {
+  const pk = 471.78 / tK + 25.929 - 3.16967 * lnT - 0.01781 * s + 0.0001122 * s * s;
+  return Math.exp(-pk * LN10);
+}
+
+/** Millero (2010): fitted for t 0–50 °C, S 1–50 (estuarine to hypersaline). */
+export const K1K2_MILLERO2010_VALIDITY: ValidityRange = {
+  label: 'K1 and K2 (Millero 2010)',
+  temperatureC: [0, 50],
+  salinity: [1, 50],
+};
+
+/**
+ * K1 of carbonic acid, total scale.
+ * Millero, F. J. (2010) Carbonate constants for estuarine waters. Marine and Freshwater Research
+ * 61, 139–142 (total-scale coefficient set):
+ * pK1 = pK1° + A1 + B1/T + C1 ln T, with the pure-water part
+ * pK1° = −126.34048 + 6320.813/T + 19.568224 ln T and
+ * A1 = 13.4038 √S + 0.03206 S − 5.242e−5 S², B1 = −530.659 √S − 5.821 S, C1 = −2.0664 √S.
+ * @param tK temperature, K
+ * @param s practical salinity
+ * @returns K1 in mol kg-1 (total scale)
+ * Valid t 0–50 °C, S 1–50. Check: at S → 0 and 25 °C, pK1 = 6.351 (Harned & Davis 1943, as
+ * quoted by Millero 2010; value from memory).
+ */
+export function k1Millero2010(
+  tK: number,
+  s: number,
+  lnT: number = Math.log(tK),
+  sqrtS: number = Math.sqrt(s),
+): number {
+  const pk0 = -126.34048 + 6320.813 / tK + 19.568224 * lnT;
+  const a = 13.4038 * sqrtS + 0.03206 * s - 5.242e-5 * s * s;
+  const b = -530.659 * sqrtS - 5.821 * s;
+  const c = -2.0664 * sqrtS;
+  return Math.exp(-(pk0 + a + b / tK + c * lnT) * LN10);
+}
+
+/**
+ * K2 of carbonic acid, total scale.
+ * Millero (2010), total-scale set: pK2 = pK2° + A2 + B2/T + C2 ln T with
+ * pK2° = −90.18333 + 5143.692/T + 14.613358 ln T and
+ * A2 = 21.3728 √S + 0.1218 S − 3.688e−4 S², B2 = −788.289 √S − 19.189 S, C2 = −3.374 √S.
+ * @param tK temperature, K
+ * @param s practical salinity
+ * @returns K2 in mol kg-1 (total scale)
+ * Valid t 0–50 °C, S 1–50. Check: at S → 0 and 25 °C, pK2 = 10.330 (Harned & Scholes 1941, as
+ * quoted by Millero 2010; value from memory).
+ */
+export function k2Millero2010(
+  tK: number,
+  s: number,
+  lnT: number = Math.log(tK),
+  sqrtS: number = Math.sqrt(s),
+): number {
+  const pk0 = -90.18333 + 5143.692 / tK + 14.613358 * lnT;
+  const a = 21.3728 * sqrtS + 0.1218 * s - 3.688e-4 * s * s;
+  const b = -788.289 * sqrtS - 19.189 * s;
+  const c = -3.374 * sqrtS;
+  return Math.exp(-(pk0 + a + b / tK + c * lnT) * LN10);
+}

@@ -1,0 +1,98 @@
+import { describe, expect, it } from 'vitest';
+import { T0_K } from '../../../src/chem/physical';
+import { knh4CleggWhitfield1995, knh4YaoMillero1995 } from '../../../src/chem/saline/ammonium';
+import { kbDickson1990b } from '../../../src/chem/saline/boric';
+import { kspAragoniteMucci1983, kspCalciteMucci1983 } from '../../../src/chem/saline/calcium-carbonate';
+import { k1Lueker2000, k1Millero2010, k2Lueker2000, k2Millero2010 } from '../../../src/chem/saline/carbonic';
+import { k0Weiss1974 } from '../../../src/chem/saline/co2-solubility';
+import { kfPerezFraga1987 } from '../../../src/chem/saline/fluoride';
+import { k1pMillero1995, k2pMillero1995, k3pMillero1995 } from '../../../src/chem/saline/phosphoric';
+import { ksiMillero1995 } from '../../../src/chem/saline/silicic';
+import { ksDickson1990a } from '../../../src/chem/saline/sulfate';
+import { kh2sMillero1988 } from '../../../src/chem/saline/sulfide';
+import {
+  calciumRileyTongudai1967,
+  totalBoronLee2010,
+  totalBoronUppstrom1974,
+  totalFluorideRiley1965,
+  totalSulfateMorrisRiley1966,
+} from '../../../src/chem/saline/totals';
+import { kwMillero1995 } from '../../../src/chem/saline/water';
+import type { CheckValue } from '../../fixtures/check-value';
+import { DICKSON2007 } from '../../fixtures/dickson2007';
+import { INFINITE_DILUTION } from '../../fixtures/infinite-dilution';
+import { LEE2010 } from '../../fixtures/lee2010';
+import { MILLERO2010 } from '../../fixtures/millero2010';
+import { MUCCI1983 } from '../../fixtures/mucci1983';
+import { RILEYTONGUDAI1967 } from '../../fixtures/riley-tongudai1967';
+
+const ln = Math.log;
+const log10 = Math.log10;
+const p = (k: number) => -Math.log10(k);
+
+/** What each fixture id means, as a function of (T in K, S). */
+const COMPUTE: Record<string, (tK: number, s: number) => number> = {
+  lnK0: (t, s) => ln(k0Weiss1974(t, s)),
+  log10K1: (t, s) => log10(k1Lueker2000(t, s)),
+  log10K2: (t, s) => log10(k2Lueker2000(t, s)),
+  lnKB: (t, s) => ln(kbDickson1990b(t, s)),
+  lnKW: (t, s) => ln(kwMillero1995(t, s)),
+  lnKS: (t, s) => ln(ksDickson1990a(t, s)),
+  lnKF: (t, s) => ln(kfPerezFraga1987(t, s)),
+  lnK1P: (t, s) => ln(k1pMillero1995(t, s)),
+  lnK2P: (t, s) => ln(k2pMillero1995(t, s)),
+  lnK3P: (t, s) => ln(k3pMillero1995(t, s)),
+  lnKSi: (t, s) => ln(ksiMillero1995(t, s)),
+  ST: (_t, s) => totalSulfateMorrisRiley1966(s),
+  FT: (_t, s) => totalFluorideRiley1965(s),
+  BTUppstrom: (_t, s) => totalBoronUppstrom1974(s),
+  BTLee: (_t, s) => totalBoronLee2010(s),
+  Ca: (_t, s) => calciumRileyTongudai1967(s),
+  kspCalcite: (t, s) => kspCalciteMucci1983(t, s),
+  kspAragonite: (t, s) => kspAragoniteMucci1983(t, s),
+  pK1Millero2010: (t, s) => p(k1Millero2010(t, s)),
+  pK2Millero2010: (t, s) => p(k2Millero2010(t, s)),
+  pKNH4: (t, s) => p(knh4CleggWhitfield1995(t, s)),
+  pKNH4YaoMillero: (t, s) => p(knh4YaoMillero1995(t, s)),
+  pKH2S: (t, s) => p(kh2sMillero1988(t, s)),
+};
+
+const FIXTURES: [string, readonly CheckValue[]][] = [
+  ['Dickson et al. 2007, ch. 5', DICKSON2007],
+  ['Mucci 1983', MUCCI1983],
+  ['Millero 2010 at S → 0', MILLERO2010],
+  ['Lee et al. 2010', LEE2010],
+  ['Riley & Tongudai 1967', RILEYTONGUDAI1967],
+  ['infinite-dilution constants', INFINITE_DILUTION],
+];
+
+describe.each(FIXTURES)('published check values: %s', (_name, rows) => {
+  it.each(rows)('$quantity = $value at S $salinity, $temperatureC °C ($source)', (row) => {
+    const f = COMPUTE[row.id];
+    expect(f, `no function mapped to fixture id ${row.id}`).toBeDefined();
+    const got = f!(row.temperatureC + T0_K, row.salinity);
+    expect(Math.abs(got - row.value)).toBeLessThanOrEqual(row.tolerance);
+  });
+});
+
+describe('independent transcriptions agree', () => {
+  // Clegg & Whitfield (total scale) and Yao & Millero (seawater scale) were both written down from
+  // memory; two unrelated fits agreeing to 0.03 in pK across the range is evidence that neither has
+  // a wrong coefficient. The scale difference (about 0.01) is inside the margin.
+  it.each([
+    [5, 10],
+    [5, 35],
+    [15, 20],
+    [25, 35],
+    [35, 40],
+  ])('pKNH4 at %i °C, S %i: Clegg & Whitfield 1995 vs Yao & Millero 1995 within 0.03', (t, s) => {
+    const tK = t + T0_K;
+    expect(Math.abs(p(knh4CleggWhitfield1995(tK, s)) - p(knh4YaoMillero1995(tK, s)))).toBeLessThan(0.03);
+  });
+
+  it('Lueker 2000 and Millero 2010 agree at S 35, 25 °C within about 0.01 in pK, the size of their fit errors (memory)', () => {
+    const tK = 25 + T0_K;
+    expect(Math.abs(p(k1Lueker2000(tK, 35)) - p(k1Millero2010(tK, 35)))).toBeLessThan(0.01);
+    expect(Math.abs(p(k2Lueker2000(tK, 35)) - p(k2Millero2010(tK, 35)))).toBeLessThan(0.01);
+  });
+});

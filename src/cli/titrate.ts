@@ -4,10 +4,24 @@
  * Exit code 0 when every titration reduced, 1 when any failed, 2 for a bad command line.
  */
 
+import { ACID_HANDLING_CAUTION } from '../chem/titration/acidCautions';
 import { freshTitrationConstants } from '../chem/titration/reduceTitration';
 import { titrate } from '../chem/titration/titrate';
 import { TITRATION_METHODS, type TitrationInput, type TitrationMethod } from '../chem/titration/types';
 import { type CliIo, EXIT_OK, EXIT_ROW_FAILED, EXIT_USAGE, readAll } from './io';
+
+/** Wraps text to 96 columns for the help screen. */
+function wrap(text: string): string {
+  const lines: string[] = [];
+  let line = '';
+  for (const word of text.split(' ')) {
+    if (line !== '' && line.length + word.length + 1 > 96) {
+      lines.push(line);
+      line = word;
+    } else line = line === '' ? word : `${line} ${word}`;
+  }
+  return [...lines, line].join('\n');
+}
 
 export const TITRATE_HELP = `Usage: npm run -s tufa -- titrate [options] < titration.json
 
@@ -39,10 +53,7 @@ Options:
   --pretty            indent the JSON output
   --help              this text
 
-Handling acids: wear protective eyewear and gloves, add titrant slowly, keep acid away from
-skin and eyes, rinse spills with plenty of water, and follow your laboratory's safety rules and
-the titrant's product label and safety data sheet. Results are estimates from a model; check
-them against your own quality-control samples.
+${wrap(ACID_HANDLING_CAUTION)}
 `;
 
 interface Options {

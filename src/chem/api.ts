@@ -61,7 +61,7 @@ export interface SolveInput {
 export interface OutputUncertainty {
   /** Standard uncertainty, in the unit of the output. */
   standard_uncertainty: number;
-  /** The input (or constant) with the largest contribution. */
+  /** The input (or constant) with the largest contribution; `none` when nothing moves the output. */
   dominant_input: string;
   /** |∂output/∂input|·u(input) per input, in the unit of the output; they add in quadrature. */
   contributions: Record<string, number>;

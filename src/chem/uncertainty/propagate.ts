@@ -96,7 +96,12 @@ export function propagateUncertainty(
         dominant = input.name;
       }
     }
-    result[key] = { standard_uncertainty: Math.sqrt(total), dominant_input: dominant, contributions };
+    // An output no input moves (e.g. a setting echoed back) has no dominant input.
+    result[key] = {
+      standard_uncertainty: Math.sqrt(total),
+      dominant_input: total > 0 ? dominant : 'none',
+      contributions,
+    };
   }
   return result;
 }

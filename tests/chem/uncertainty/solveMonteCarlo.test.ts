@@ -15,6 +15,8 @@ import { normalDeviates, seededRandom } from '../titration/syntheticTitration';
 
 const RUNS = 2000;
 const OUTPUTS = [
+  'dic_umol_kg',
+  'omega_calcite',
   'ph_total',
   'pco2_uatm',
   'co2_umol_kg',
@@ -67,6 +69,25 @@ describe('solve uncertainties agree with Monte Carlo within 10 %', () => {
       name: 'open ocean, TA and DIC, with constants',
       input: { temperature_c: 18, salinity: 35, alkalinity_umol_kg: 2300, dic_umol_kg: 2050 },
       u: { alkalinity_umol_kg: 2, dic_umol_kg: 2, temperature_c: 0.05, salinity: 0.01 },
+      constants: true,
+    },
+    {
+      name: 'limestone spring, fresh model, field alkalinity and pH, with constants',
+      input: {
+        model: 'fresh',
+        temperature_c: 11,
+        specific_conductance_us_cm: 480,
+        alkalinity_meq_l: 3.9,
+        ph: 7.3,
+        calcium_mg_l: 75,
+      },
+      u: {
+        alkalinity_meq_l: 0.04,
+        ph: 0.02,
+        temperature_c: 0.2,
+        specific_conductance_us_cm: 10,
+        calcium_mg_l: 3,
+      },
       constants: true,
     },
     {

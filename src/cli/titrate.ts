@@ -39,6 +39,7 @@ Input fields:
   endpoint_ph                 for method endpoint (default 4.5)
   ionic_strength_mol_kg or specific_conductance_us_cm   for activity corrections
   system                      curve_fit: closed (default) or open (sample exchanging CO2 with air)
+  curve_fit_ph_offset         curve_fit: true to fit a pH-meter offset as well (default false)
   uncertainty                 {"titrant_normality": 0.0005, "sample_volume_ml": 0.1, "ph": 0.01,
                                "volume_ml": 0.005, "ph_offset": 0.02} standard uncertainties
 

@@ -12,5 +12,5 @@ export interface MethodResult {
   /** Curve fit only: fitted alkalinity, eq/L (the others derive it from the equivalence volume). */
   alkalinityEqL?: number;
   /** Curve fit only: the fitted parameters (see CurveFitParameters). */
-  parameters?: readonly [number, number];
+  parameters?: readonly number[];
 }

@@ -91,6 +91,7 @@ export function reduceTitrationWithHints(
       system,
       alkalinityGuess: guess,
       pco2GuessAtm: pco2 * 1e-6,
+      fitPhOffset: offsetFlag(input.curve_fit_ph_offset),
       ...(hints.curveFitStart ? { start: hints.curveFitStart } : {}),
     });
   } else {
@@ -133,6 +134,14 @@ export function reduceTitrationWithHints(
 
 export function reduceTitration(input: TitrationInput, makeConstants: ConstantsMaker): TitrationResult {
   return reduceTitrationWithHints(input, makeConstants).result;
+}
+
+function offsetFlag(v: unknown): boolean {
+  if (v === undefined) return false;
+  if (typeof v !== 'boolean') {
+    fail('titration-value-invalid', 'curve_fit_ph_offset must be true or false.', 'curve_fit_ph_offset');
+  }
+  return v;
 }
 
 /** Fewer readings than this past the endpoint leave the acid excess poorly defined (common practice). */

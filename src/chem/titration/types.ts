@@ -41,6 +41,8 @@ export interface TitrationInput {
   system?: TitrationSystem;
   /** Curve fit, open system: partial pressure of CO2 in the air, µatm (default 420, then fitted). */
   air_pco2_uatm?: number;
+  /** Curve fit: also fit a pH offset common to all readings (meter calibration); default false. */
+  curve_fit_ph_offset?: boolean;
   /** Gran: only points at or below this pH are candidates (default 4.0). */
   gran_max_ph?: number;
   points: TitrationPoint[];

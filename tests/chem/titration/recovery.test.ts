@@ -142,3 +142,30 @@ describe('with the fresh-water model at field conditions', () => {
     expect(fit.formulations.titration).toMatch(/Levenberg/);
   });
 });
+
+describe('curve fit with a pH-meter offset', () => {
+  it('fitting the offset recovers alkalinity, DIC and the offset itself', () => {
+    const w = cases[2]!; // soft water, closed vessel: the most offset-sensitive case
+    const clean = titration(w, 8);
+    const offset = 0.08;
+    const shifted = { ...clean, points: clean.points.map((p) => ({ ...p, ph: p.ph + offset })) };
+    const plain = reduceTitration({ ...shifted, method: 'curve_fit' }, make);
+    const fitted = reduceTitration({ ...shifted, method: 'curve_fit', curve_fit_ph_offset: true }, make);
+    const errPlain = Math.abs(plain.alkalinity_meq_l / 0.5 - 1);
+    const errFitted = Math.abs(fitted.alkalinity_meq_l / 0.5 - 1);
+    expect(errFitted).toBeLessThan(TOLERANCE.curve_fit);
+    expect(errFitted).toBeLessThan(errPlain / 3);
+    expect(fitted.fit.details.ph_offset).toBeCloseTo(offset, 2);
+    expect(Math.abs(fitted.dic_umol_kg! / ((0.5e-3 * 1.15 * 1e6) / densityKgL(0, 25)) - 1)).toBeLessThan(
+      0.01,
+    );
+  });
+  it('refuses a non-boolean flag', () => {
+    expect(() =>
+      reduceTitration(
+        { ...titration(cases[2]!, 8), method: 'curve_fit', curve_fit_ph_offset: 1 as unknown as boolean },
+        make,
+      ),
+    ).toThrow(/true or false/);
+  });
+});

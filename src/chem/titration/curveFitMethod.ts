@@ -110,14 +110,15 @@ export function reduceCurveFit(curve: TitrationCurve, k: ConstantSet, opts: Curv
     warnings.push(
       warning(
         'curve-fit-poor',
-        `The model misses the readings by ${rmsValue.toFixed(3)} pH (rms): the water may hold other bases, or the vessel was ${
+        `The model misses the readings by ${rmsValue.toFixed(3)} pH (rms): the water may hold other bases, the vessel was ${
           system === 'closed' ? 'open to air' : 'closed'
-        }.`,
+        }${fitOffset ? '' : ', or the meter is offset (try curve_fit_ph_offset)'}.`,
       ),
     );
   }
   const alkalinity = p[0]!;
-  const dic = system === 'open' ? dicOpen(pred[0]! - (fitOffset ? p[2]! : 0), 10 ** p[1]!, k) : p[1]!;
+  const initialPh = pred[0]! - (fitOffset ? p[2]! : 0);
+  const dic = system === 'open' ? dicOpen(initialPh, 10 ** p[1]!, k) : p[1]!;
   const details: Record<string, number> = { iterations, cost, lambda };
   if (system === 'open') details.air_pco2_uatm = 10 ** p[1]! * 1e6;
   if (fitOffset) details.ph_offset = p[2]!;
@@ -126,6 +127,7 @@ export function reduceCurveFit(curve: TitrationCurve, k: ConstantSet, opts: Curv
     equivalenceVolumeMl: (alkalinity * sampleVolumeMl) / titrantEqL,
     alkalinityEqL: alkalinity,
     dicMolL: dic,
+    initialPh,
     fit: {
       r2: sst > 0 ? 1 - cost / sst : 1,
       residuals,

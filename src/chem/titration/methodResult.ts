@@ -11,6 +11,8 @@ export interface MethodResult {
   dicMolL?: number;
   /** Curve fit only: fitted alkalinity, eq/L (the others derive it from the equivalence volume). */
   alkalinityEqL?: number;
+  /** Curve fit only: modelled pH of the untitrated sample, offset removed. */
+  initialPh?: number;
   /** Curve fit only: the fitted parameters (see CurveFitParameters). */
   parameters?: readonly number[];
 }

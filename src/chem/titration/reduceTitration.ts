@@ -120,7 +120,7 @@ export function reduceTitrationWithHints(
     alkalinity_meq_l: meqL,
     alkalinity_mg_l_caco3: units.mg_l_caco3!,
     alkalinity: units,
-    species: splitAlkalinity(alkalinityEqL, t.curve.ph[0]!, k, core.dicMolL),
+    species: splitAlkalinity(alkalinityEqL, core.initialPh ?? t.curve.ph[0]!, k, core.dicMolL),
     fit: core.fit,
     ionic_strength_mol_kg: ionic.value,
     ionic_strength_source: ionic.source,

@@ -45,9 +45,11 @@ function describe(
   x: number,
   field: string,
 ): Issue {
+  // Six significant digits: a temperature read from a form can arrive as 0.30000000000000004.
+  const shown = Number(x.toPrecision(6));
   return {
     code: OUTSIDE_VALIDITY,
-    message: `${v.label} was fitted for ${what} ${range[0]}–${range[1]}${unit}; at ${x}${unit} the value is extrapolated.`,
+    message: `${v.label}: fitted for ${what} ${range[0]}–${range[1]}${unit}; at ${shown}${unit} the value is extrapolated.`,
     field,
   };
 }

@@ -121,7 +121,7 @@ describe('salineConstants warns but computes', () => {
 
   it('fresh water warns about every salinity fit that starts above 0, each once', () => {
     const c = salineConstants({ temperatureC: 20, salinity: 0, pressureDbar: 0 });
-    const labels = c.warnings.map((w) => w.message.split(' was fitted')[0]);
+    const labels = c.warnings.map((w) => w.message.split(': fitted')[0]);
     expect(new Set(labels).size).toBe(labels.length);
     for (const name of ['Lueker', 'Dickson 1990b', 'Dickson 1990a', 'Perez & Fraga', 'Mucci', 'Takahashi']) {
       expect(labels.some((l) => l?.includes(name))).toBe(true);

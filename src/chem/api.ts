@@ -51,7 +51,8 @@ export interface SolveInput {
   [key: string]: unknown;
 }
 
-export interface SolveOutput {
+/** One solved water at output conditions. */
+export interface SolvedWater {
   alkalinity_umol_kg: number;
   dic_umol_kg: number;
   ph_total: number;
@@ -74,11 +75,25 @@ export interface SolveOutput {
   warnings: Issue[];
   /** Which input pair the system was solved from, e.g. `["alkalinity_umol_kg","dic_umol_kg"]`. */
   pair: [CarbonateKey, CarbonateKey];
-  /** Other roots for two-root pairs (same output shape, without nested alternatives). */
-  alternatives?: Omit<SolveOutput, 'alternatives'>[];
-  /** Measured minus computed for every extra carbonate parameter given. */
+  /** Totals used (from salinity or measured), µmol/kg. */
+  totals_umol_kg: { boron: number; sulfate: number; fluoride: number; calcium: number };
+  /** The output conditions the results refer to. */
+  conditions: Conditions;
+  /** The input conditions, when they differ from the output conditions. */
+  input_conditions?: Conditions;
+  /** Measured minus computed (at input conditions) for every extra carbonate parameter given. */
   misfit?: Partial<Record<CarbonateKey, number>>;
-  [key: string]: unknown;
+}
+
+export interface Conditions {
+  temperature_c: number;
+  salinity: number;
+  pressure_dbar: number;
+}
+
+export interface SolveOutput extends SolvedWater {
+  /** Other roots for two-root pairs, in the same shape. */
+  alternatives?: SolvedWater[];
 }
 
 export type SolveResult = SolveOutput | { error: Issue };

@@ -1,0 +1,199 @@
+/**
+ * `solve()`: the carbonate system of one water from a JSON request (see `api.ts`).
+ *
+ * Steps: read and check the request; evaluate the constants at input conditions; turn the
+ * measured values into internal units (mol/kg, atm, h on the model's internal scale); solve from
+ * the chosen pair; carry TA and DIC (and the minor totals) to the output conditions and solve
+ * there again; report every output, the misfit of extra measurements, warnings and formulations.
+ */
+
+import type { CarbonateKey, SolvedWater, SolveOutput, SolveResult } from './api';
+import { type Issue, toIssue, warning } from './errors';
+import { choosePair, parseSolveInput, type SolveRequest } from './input';
+import { type ConstantShifts, constantsFor, resolveModel } from './models';
+import { revelleFactor } from './solver/buffer';
+import { type Param, solvePair } from './solver/pairs';
+import type { CarbonateState, ConstantSet, MinorTotals, PhScale, WaterModel } from './types';
+
+export interface SolveOptions {
+  /** Offsets of constants (p-units) and factors, for uncertainty propagation. */
+  shifts?: ConstantShifts;
+}
+
+/** Never throws: a request that cannot be solved becomes `{ error: { code, message } }`. */
+export function solve(input: unknown, options: SolveOptions = {}): SolveResult {
+  try {
+    return solveRequest(parseSolveInput(input), options);
+  } catch (e) {
+    return { error: toIssue(e) };
+  }
+}
+
+const PARAM_OF: Record<CarbonateKey, Param> = {
+  alkalinity_umol_kg: 'ta',
+  dic_umol_kg: 'dic',
+  ph: 'ph',
+  pco2_uatm: 'co2',
+  fco2_uatm: 'co2',
+  co2_umol_kg: 'co2',
+  hco3_umol_kg: 'hco3',
+  co3_umol_kg: 'co3',
+};
+
+/** A measured value in the solver's internal units (mol/kg; pH on the internal scale). */
+function toInternal(key: CarbonateKey, v: number, scale: PhScale, k: ConstantSet): number {
+  switch (key) {
+    case 'ph':
+      // h on scale X = h_internal · scaleFactor[X].
+      return v + Math.log10(k.scaleFactor[scale]);
+    case 'pco2_uatm':
+      return k.k0 * k.fugacityFactor * v * 1e-6;
+    case 'fco2_uatm':
+      return k.k0 * v * 1e-6;
+    default:
+      return v * 1e-6;
+  }
+}
+
+/** The value of an input key computed from a state, in that key's units. */
+function fromState(key: CarbonateKey, s: CarbonateState, scale: PhScale, k: ConstantSet): number {
+  switch (key) {
+    case 'alkalinity_umol_kg':
+      return s.ta * 1e6;
+    case 'dic_umol_kg':
+      return s.dic * 1e6;
+    case 'ph':
+      return -Math.log10(s.h * k.scaleFactor[scale]);
+    case 'pco2_uatm':
+      return s.pco2 * 1e6;
+    case 'fco2_uatm':
+      return s.fco2 * 1e6;
+    case 'co2_umol_kg':
+      return s.co2 * 1e6;
+    case 'hco3_umol_kg':
+      return s.hco3 * 1e6;
+    case 'co3_umol_kg':
+      return s.co3 * 1e6;
+  }
+}
+
+export function solveRequest(req: SolveRequest, options: SolveOptions = {}): SolveOutput {
+  const model = resolveModel(req);
+  const kIn = constantsFor(req, model, req.temperatureC, req.pressureDbar, options.shifts);
+  const [a, b] = choosePair(req);
+  const va = toInternal(a, req.measured[a]!, req.phScale, kIn);
+  const vb = toInternal(b, req.measured[b]!, req.phScale, kIn);
+  let roots = solvePair(PARAM_OF[a], va, PARAM_OF[b], vb, kIn, req.minor);
+  if (req.root === 'low-ph') roots = [...roots].reverse();
+
+  const sameConditions = req.outTemperatureC === req.temperatureC && req.outPressureDbar === req.pressureDbar;
+  const kOut = sameConditions
+    ? kIn
+    : constantsFor(req, model, req.outTemperatureC, req.outPressureDbar, options.shifts);
+
+  const warnings: Issue[] = [...req.warnings];
+  addUnique(warnings, kIn.warnings);
+  if (!sameConditions) addUnique(warnings, kOut.warnings);
+  if (roots.length > 1) {
+    warnings.push(
+      warning(
+        'two-roots',
+        `Two waters fit ${a} with ${b}; the ${req.root === 'low-ph' ? 'lower' : 'higher'}-pH one is reported and the other is under alternatives (choose with root: high-ph | low-ph).`,
+      ),
+    );
+  }
+
+  const outputs = roots.map((inState) => {
+    const out = sameConditions
+      ? inState
+      : solvePair('ta', inState.ta, 'dic', inState.dic, kOut, req.minor)[0]!;
+    return describe(out, kOut, req.minor, model, [a, b], warnings);
+  });
+  const primary: SolveOutput = outputs[0]!;
+
+  const misfit: Partial<Record<CarbonateKey, number>> = {};
+  let anyMisfit = false;
+  for (const key of Object.keys(req.measured) as CarbonateKey[]) {
+    if (key === a || key === b) continue;
+    misfit[key] = req.measured[key]! - fromState(key, roots[0]!, req.phScale, kIn);
+    anyMisfit = true;
+  }
+  if (anyMisfit) primary.misfit = misfit;
+  if (outputs.length > 1) primary.alternatives = outputs.slice(1);
+  if (!sameConditions) {
+    primary.input_conditions = {
+      temperature_c: req.temperatureC,
+      pressure_dbar: req.pressureDbar,
+      salinity: req.salinity ?? 0,
+    };
+  }
+  return primary;
+}
+
+function addUnique(into: Issue[], from: readonly Issue[]): void {
+  for (const w of from) {
+    if (!into.some((x) => x.code === w.code && x.message === w.message)) into.push(w);
+  }
+}
+
+const p = (x: number): number => -Math.log10(x);
+
+/** The output object for one state at output conditions. */
+function describe(
+  s: CarbonateState,
+  k: ConstantSet,
+  minor: MinorTotals,
+  model: WaterModel,
+  pair: [CarbonateKey, CarbonateKey],
+  warnings: Issue[],
+): SolvedWater {
+  return {
+    alkalinity_umol_kg: s.ta * 1e6,
+    dic_umol_kg: s.dic * 1e6,
+    ph_total: -Math.log10(s.h * k.scaleFactor.total),
+    ph_free: -Math.log10(s.h * k.scaleFactor.free),
+    ph_seawater: -Math.log10(s.h * k.scaleFactor.seawater),
+    ph_nbs: -Math.log10(s.h * k.scaleFactor.nbs),
+    pco2_uatm: s.pco2 * 1e6,
+    fco2_uatm: s.fco2 * 1e6,
+    co2_umol_kg: s.co2 * 1e6,
+    hco3_umol_kg: s.hco3 * 1e6,
+    co3_umol_kg: s.co3 * 1e6,
+    omega_calcite: (k.calcium * s.co3) / k.kspCalcite,
+    omega_aragonite: (k.calcium * s.co3) / k.kspAragonite,
+    revelle_factor: revelleFactor(s, k, minor),
+    constants: {
+      pk0: p(k.k0),
+      pk1: p(k.k1),
+      pk2: p(k.k2),
+      pkw: p(k.kw),
+      pkb: p(k.kb),
+      pks: p(k.ks),
+      pkf: p(k.kf),
+      pk1p: p(k.k1p),
+      pk2p: p(k.k2p),
+      pk3p: p(k.k3p),
+      pksi: p(k.ksi),
+      pknh4: p(k.knh4),
+      pkh2s: p(k.kh2s),
+      pksp_calcite: p(k.kspCalcite),
+      pksp_aragonite: p(k.kspAragonite),
+      fugacity_factor: k.fugacityFactor,
+    },
+    totals_umol_kg: {
+      boron: k.totalBoron * 1e6,
+      sulfate: k.totalSulfate * 1e6,
+      fluoride: k.totalFluoride * 1e6,
+      calcium: k.calcium * 1e6,
+    },
+    conditions: {
+      temperature_c: k.conditions.temperatureC,
+      salinity: k.conditions.salinity,
+      pressure_dbar: k.conditions.pressureDbar,
+    },
+    model,
+    formulations: k.formulations,
+    warnings,
+    pair,
+  };
+}

@@ -1,0 +1,54 @@
+/**
+ * The `tufa` command line: `npm run -s tufa -- <command> [options]`. Run by tsx straight from the
+ * TypeScript sources, so it works right after `npm ci`.
+ */
+
+import { type CliIo, EXIT_OK, EXIT_USAGE } from './io';
+import { runSolve } from './solve';
+
+type Command = (args: string[], io: CliIo) => Promise<number>;
+
+const COMMANDS: Record<string, { run: Command; summary: string }> = {
+  solve: {
+    run: runSolve,
+    summary: 'carbonate system from two or more measured parameters (JSON Lines or CSV)',
+  },
+};
+
+export const MAIN_HELP = `tufa — carbonate system of natural waters
+
+Usage: npm run -s tufa -- <command> [options]     (each command has --help)
+
+Commands:
+${Object.entries(COMMANDS)
+  .map(([name, c]) => `  ${name.padEnd(10)} ${c.summary}`)
+  .join('\n')}
+`;
+
+export async function main(argv: string[], io: CliIo): Promise<number> {
+  const [name, ...rest] = argv;
+  if (name === undefined || name === '--help' || name === '-h' || name === 'help') {
+    io.stdout.write(MAIN_HELP);
+    return name === undefined ? EXIT_USAGE : EXIT_OK;
+  }
+  const command = COMMANDS[name];
+  if (!command) {
+    io.stderr.write(`tufa: unknown command ${name}\n\n${MAIN_HELP}`);
+    return EXIT_USAGE;
+  }
+  return command.run(rest, io);
+}
+
+const isEntry =
+  process.argv[1] !== undefined && import.meta.url === new URL(`file://${process.argv[1]}`).href;
+if (isEntry) {
+  main(process.argv.slice(2), { stdin: process.stdin, stdout: process.stdout, stderr: process.stderr }).then(
+    (code) => {
+      process.exitCode = code;
+    },
+    (e: unknown) => {
+      process.stderr.write(`tufa: ${(e as Error).stack ?? String(e)}\n`);
+      process.exitCode = EXIT_USAGE;
+    },
+  );
+}

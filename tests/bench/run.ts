@@ -1,0 +1,15 @@
+/**
+ * `npm run bench`: every benchmark of the project, printing figures (never a pass/fail test).
+ * Record the figures in the README when they change.
+ */
+
+import { benchSolve } from './solve';
+
+const sections: [string, () => string[] | Promise<string[]>][] = [
+  ['Saline solver (100 000 rows)', benchSolve],
+];
+
+for (const [title, run] of sections) {
+  console.log(`\n## ${title}`);
+  for (const line of await run()) console.log(line);
+}

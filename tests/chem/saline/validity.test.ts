@@ -84,7 +84,8 @@ describe.each(RANGES.map((r) => [r.label, r] as const))('validity of %s', (_labe
       expect(issues[0]!.code).toBe(OUTSIDE_VALIDITY);
       expect(issues[0]!.field).toBe(field);
       expect(issues[0]!.message).toContain(range.label);
-      expect(issues[0]!.message).toContain(String(x));
+      expect(issues[0]!.message).toContain(x < r[0] ? 'below' : 'above');
+      expect(issues[0]!.message).toContain(`${r[0]}–${r[1]}`);
     }
   });
 });

@@ -83,7 +83,29 @@ describe.each(FIXTURES)('published check values: %s', (_name, rows) => {
   });
 });
 
+/**
+ * Plummer, L. N. & Busenberg, E. (1982) Geochimica et Cosmochimica Acta 46, 1011–1040, fresh-water
+ * K1 and K2 (coefficients from memory); a test oracle only, the fresh-water model owns its own copy.
+ */
+function pk1PlummerBusenberg1982(tK: number): number {
+  return -(-356.3094 - 0.06091964 * tK + 21834.37 / tK + 126.8339 * Math.log10(tK) - 1684915 / (tK * tK));
+}
+function pk2PlummerBusenberg1982(tK: number): number {
+  return -(-107.8871 - 0.03252849 * tK + 5151.79 / tK + 38.92561 * Math.log10(tK) - 563713.9 / (tK * tK));
+}
+
 describe('independent transcriptions agree', () => {
+  // Both fits rest on the Harned data for pure water; agreement to 0.003 over 0–50 °C confirms the
+  // pure-water part of Millero (2010) at every temperature, not only at 25 °C.
+  it.each([0, 5, 10, 20, 25, 30, 40, 50])(
+    'Millero 2010 at S 0 vs Plummer & Busenberg 1982 at %i °C: pK1, pK2 within 0.003',
+    (t) => {
+      const tK = t + T0_K;
+      expect(Math.abs(p(k1Millero2010(tK, 0)) - pk1PlummerBusenberg1982(tK))).toBeLessThan(0.003);
+      expect(Math.abs(p(k2Millero2010(tK, 0)) - pk2PlummerBusenberg1982(tK))).toBeLessThan(0.003);
+    },
+  );
+
   // Clegg & Whitfield (total scale) and Yao & Millero (seawater scale) were both written down from
   // memory; two unrelated fits agreeing to 0.03 in pK across the range is evidence that neither has
   // a wrong coefficient. The scale difference (about 0.01) is inside the margin.

@@ -94,7 +94,29 @@ function pk2PlummerBusenberg1982(tK: number): number {
   return -(-107.8871 - 0.03252849 * tK + 5151.79 / tK + 38.92561 * Math.log10(tK) - 563713.9 / (tK * tK));
 }
 
+/**
+ * Dickson, A. G. & Millero, F. J. (1987) Deep-Sea Research 34, 1733–1743: their refit of the
+ * Mehrbach et al. (1973) data on the seawater scale (coefficients from memory). Lueker et al. (2000)
+ * refit the same data on the total scale, so the two must agree once on one scale.
+ */
+function pk1DicksonMillero1987(tK: number, s: number): number {
+  return 3670.7 / tK - 62.008 + 9.7944 * Math.log(tK) - 0.0118 * s + 0.000116 * s * s;
+}
+function pk2DicksonMillero1987(tK: number, s: number): number {
+  return 1394.7 / tK + 4.777 - 0.0184 * s + 0.000118 * s * s;
+}
+
 describe('independent transcriptions agree', () => {
+  it.each([2, 10, 20, 25, 35].flatMap((t) => [19, 25, 35, 43].map((s) => [t, s])))(
+    'Lueker 2000 vs the Dickson & Millero 1987 refit of the same data at %i °C, S %i: pK1 within 0.001, pK2 within 0.008',
+    (t, s) => {
+      const tK = t! + T0_K;
+      const sws = salineConstants({ temperatureC: t!, salinity: s!, pressureDbar: 0 }).scaleFactor.seawater;
+      expect(Math.abs(p(k1Lueker2000(tK, s!) * sws) - pk1DicksonMillero1987(tK, s!))).toBeLessThan(0.001);
+      expect(Math.abs(p(k2Lueker2000(tK, s!) * sws) - pk2DicksonMillero1987(tK, s!))).toBeLessThan(0.008);
+    },
+  );
+
   // Both fits rest on the Harned data for pure water; agreement to 0.003 over 0–50 °C confirms the
   // pure-water part of Millero (2010) at every temperature, not only at 25 °C.
   it.each([0, 5, 10, 20, 25, 30, 40, 50])(

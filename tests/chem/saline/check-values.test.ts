@@ -63,6 +63,7 @@ const COMPUTE: Record<string, (tK: number, s: number) => number> = {
   pKNH4: (t, s) => p(knh4CleggWhitfield1995(t, s)),
   pKNH4YaoMillero: (t, s) => p(knh4YaoMillero1995(t, s)),
   pKH2S: (t, s) => p(kh2sMillero1988(t, s)),
+  pKW: (t, s) => p(kwMillero1995(t, s)),
 };
 
 const FIXTURES: [string, readonly CheckValue[]][] = [

@@ -13,7 +13,7 @@ import {
 } from '../../../src/chem/saline/carbonic';
 import { k0Weiss1974 } from '../../../src/chem/saline/co2-solubility';
 import { salineConstants } from '../../../src/chem/saline/constants';
-import { kfPerezFraga1987 } from '../../../src/chem/saline/fluoride';
+import { kfDicksonRiley1979, kfPerezFraga1987 } from '../../../src/chem/saline/fluoride';
 import { k1pMillero1995, k2pMillero1995, k3pMillero1995 } from '../../../src/chem/saline/phosphoric';
 import { ksiMillero1995 } from '../../../src/chem/saline/silicic';
 import { ksDickson1990a } from '../../../src/chem/saline/sulfate';
@@ -64,6 +64,14 @@ const COMPUTE: Record<string, (tK: number, s: number) => number> = {
   pKNH4YaoMillero: (t, s) => p(knh4YaoMillero1995(t, s)),
   pKH2S: (t, s) => p(kh2sMillero1988(t, s)),
   pKW: (t, s) => p(kwMillero1995(t, s)),
+  pKS: (t, s) => p(ksDickson1990a(t, s)),
+  pKB: (t, s) => p(kbDickson1990b(t, s)),
+  pKFDicksonRiley: (t, s) => p(kfDicksonRiley1979(t, s)),
+  pK1P: (t, s) => p(k1pMillero1995(t, s)),
+  pK2P: (t, s) => p(k2pMillero1995(t, s)),
+  pK3P: (t, s) => p(k3pMillero1995(t, s)),
+  pKSi: (t, s) => p(ksiMillero1995(t, s)),
+  log10KspCalcite: (t, s) => log10(kspCalciteMucci1983(t, s)),
 };
 
 const FIXTURES: [string, readonly CheckValue[]][] = [

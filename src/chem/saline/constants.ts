@@ -8,7 +8,8 @@
  * Speed: this runs once per row in batch solves, so per call it allocates only the returned set,
  * its `conditions` copy and its `scaleFactor` record. `formulations` is one frozen object per
  * option combination, and `warnings` is one shared frozen empty array when there are none — copy
- * it before adding to it.
+ * it before adding to it. When there are warnings the array is new but its Issue objects are shared
+ * and frozen (see `issues.ts`).
  */
 
 import type { BoronTotal, CarbonicConstants } from '../api';

@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { freshTitrationConstants } from '../../../src/chem/titration/reduceTitration';
 import { titrate } from '../../../src/chem/titration/titrate';
 import type { TitrationInput } from '../../../src/chem/titration/types';
 import { constantsAt25 } from './constantsFixture';
@@ -126,6 +127,15 @@ describe('bad titrations get a code, never NaN', () => {
     expect(
       warningsOf({ ...base, ionic_strength_mol_kg: undefined, specific_conductance_us_cm: 400 }),
     ).not.toContain('ionic-strength-estimated');
+  });
+});
+
+describe('outside the validity of the fresh-water constants', () => {
+  it('a hot spring at 72 °C is still reduced, with a validity warning from the constants', () => {
+    const r = titrate({ ...base, temperature_c: 72, method: 'curve_fit' }, freshTitrationConstants);
+    if ('error' in r) throw new Error(r.error.message);
+    expect(r.warnings.map((w) => w.code)).toContain('formulation-out-of-range');
+    expect(Number.isFinite(r.alkalinity_meq_l)).toBe(true);
   });
 });
 

@@ -169,3 +169,29 @@ describe('curve fit with a pH-meter offset', () => {
     ).toThrow(/true or false/);
   });
 });
+
+describe('the Gran line carries the activity of H+', () => {
+  it('slope of F1 = γH·C past the endpoint (Gran 1952), γH from the fresh model at I = 0.01', () => {
+    const kI = freshTitrationConstants(25, 0.01);
+    const input = syntheticTitration(
+      {
+        sample: { alkalinity: 2e-3, dic: 2.2e-3 },
+        sampleVolumeMl: 100,
+        titrantEqL: 0.1,
+        points: 50,
+        finalPh: 2.8,
+        phNoise: 0,
+        seed: 1,
+      },
+      kI,
+    );
+    const r = reduceTitration(
+      { ...input, ionic_strength_mol_kg: 0.01, method: 'gran' },
+      freshTitrationConstants,
+    );
+    // F1 in mL·(mol/L): slope per mL of titrant = γH · C; freeHFactor = 1/γH in the fresh model.
+    const gammaH = 1 / kI.freeHFactor;
+    expect(gammaH).toBeLessThan(0.95);
+    expect(r.fit.details.slope! / 0.1 / gammaH).toBeCloseTo(1, 2);
+  });
+});

@@ -25,8 +25,8 @@ function wrap(text: string): string {
 
 export const TITRATE_HELP = `Usage: npm run -s tufa -- titrate [options] < titration.json
 
-Reduces acid titrations of a water sample to its alkalinity. Reads one JSON object, or one
-titration per line (JSON Lines), from stdin; writes one JSON line per titration.
+Reduces acid titrations of a water sample to its alkalinity. Reads one JSON object, a JSON array
+of them, or one titration per line (JSON Lines), from stdin; writes one JSON line per titration.
 
 Input fields:
   sample_volume_ml            volume of sample titrated, mL
@@ -87,12 +87,14 @@ function parseArgs(args: string[]): Options | string {
   return o;
 }
 
-/** One JSON document (possibly spread over lines) or JSON Lines; each entry is a record or a parse error. */
+/** One JSON document (possibly spread over lines, possibly an array) or JSON Lines; each entry a record or a parse error. */
 function records(text: string): Array<{ value: unknown } | { error: { code: string; message: string } }> {
   const trimmed = text.replace(/^\uFEFF/, '').trim();
   if (trimmed === '') return [];
   try {
-    return [{ value: JSON.parse(trimmed) }];
+    const whole: unknown = JSON.parse(trimmed);
+    // A JSON array of titrations is read like JSON Lines.
+    return Array.isArray(whole) ? whole.map((value: unknown) => ({ value })) : [{ value: whole }];
   } catch {
     return trimmed
       .split(/\r?\n/)

@@ -46,6 +46,13 @@ describe('tufa titrate', () => {
     expect(JSON.parse(lines[1]!).error.code).toBe('input-not-json');
   });
 
+  it('reads a JSON array of titrations', async () => {
+    const one = JSON.parse(spring);
+    const { code, lines } = await run([], JSON.stringify([one, { ...one, method: 'endpoint' }]));
+    expect(code).toBe(0);
+    expect(lines.map((l) => JSON.parse(l).method)).toEqual(['gran', 'endpoint']);
+  });
+
   it('--every-method writes one line per method', async () => {
     const { lines } = await run(['--every-method'], spring);
     expect(lines.map((l) => JSON.parse(l).method)).toEqual(['gran', 'inflection', 'endpoint', 'curve_fit']);

@@ -4,10 +4,18 @@
  * Exit code 0 when every titration reduced, 1 when any failed, 2 for a bad command line.
  */
 
+import { readFileSync } from 'node:fs';
+import { type Issue, toIssue } from '../chem/errors';
 import { ACID_HANDLING_CAUTION } from '../chem/titration/acidCautions';
+import { pointsFromTable } from '../chem/titration/pointsFromTable';
 import { freshTitrationConstants } from '../chem/titration/reduceTitration';
 import { titrate } from '../chem/titration/titrate';
-import { TITRATION_METHODS, type TitrationInput, type TitrationMethod } from '../chem/titration/types';
+import {
+  TITRATION_METHODS,
+  type TitrationInput,
+  type TitrationMethod,
+  type TitrationPoint,
+} from '../chem/titration/types';
 import { type CliIo, EXIT_OK, EXIT_ROW_FAILED, EXIT_USAGE, readAll } from './io';
 
 /** Wraps text to 96 columns for the help screen. */
@@ -51,6 +59,8 @@ Options:
   --method NAME       reduce with this method, overriding the input's
   --endpoint-ph X     endpoint pH for --method endpoint
   --every-method      reduce each titration by every method (one line per method)
+  --points-csv FILE   take the points from a spreadsheet export (header: volume_ml or counts, ph;
+                      comma-separated, or semicolons with decimal commas) instead of "points"
   --pretty            indent the JSON output
   --help              this text
 
@@ -59,6 +69,7 @@ ${wrap(ACID_HANDLING_CAUTION)}
 
 interface Options {
   method?: TitrationMethod;
+  pointsCsv?: string;
   endpointPh?: number;
   everyMethod: boolean;
   pretty: boolean;
@@ -72,7 +83,11 @@ function parseArgs(args: string[]): Options | string {
     if (a === '--help' || a === '-h') o.help = true;
     else if (a === '--pretty') o.pretty = true;
     else if (a === '--every-method') o.everyMethod = true;
-    else if (a === '--method') {
+    else if (a === '--points-csv') {
+      const f = args[++i];
+      if (f === undefined) return '--points-csv needs a file name';
+      o.pointsCsv = f;
+    } else if (a === '--method') {
       const m = args[++i];
       if (m === undefined || !(TITRATION_METHODS as readonly string[]).includes(m)) {
         return `--method needs one of ${TITRATION_METHODS.join(', ')}`;
@@ -120,6 +135,21 @@ export async function runTitrate(args: string[], io: CliIo): Promise<number> {
     io.stdout.write(TITRATE_HELP);
     return EXIT_OK;
   }
+  let tablePoints: TitrationPoint[] | { error: Issue } | undefined;
+  if (opts.pointsCsv !== undefined) {
+    let table: string;
+    try {
+      table = readFileSync(opts.pointsCsv, 'utf8');
+    } catch {
+      io.stderr.write(`tufa titrate: cannot read ${opts.pointsCsv}\n`);
+      return EXIT_USAGE;
+    }
+    try {
+      tablePoints = pointsFromTable(table);
+    } catch (e) {
+      tablePoints = { error: toIssue(e) };
+    }
+  }
   const text = await readAll(io.stdin);
   const entries = records(text);
   if (entries.length === 0) {
@@ -140,7 +170,14 @@ export async function runTitrate(args: string[], io: CliIo): Promise<number> {
       failed = true;
       continue;
     }
-    const input = entry.value as TitrationInput;
+    if (tablePoints !== undefined && 'error' in tablePoints) {
+      write(tablePoints);
+      failed = true;
+      continue;
+    }
+    const input: TitrationInput = tablePoints
+      ? { ...(entry.value as TitrationInput), points: tablePoints }
+      : (entry.value as TitrationInput);
     const methods: (TitrationMethod | undefined)[] = opts.everyMethod
       ? [...TITRATION_METHODS]
       : [opts.method];

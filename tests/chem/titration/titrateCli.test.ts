@@ -1,4 +1,6 @@
-import { readFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { Readable } from 'node:stream';
 import { describe, expect, it } from 'vitest';
 import { runTitrate } from '../../../src/cli/titrate';
@@ -51,6 +53,19 @@ describe('tufa titrate', () => {
     const { code, lines } = await run([], JSON.stringify([one, { ...one, method: 'endpoint' }]));
     expect(code).toBe(0);
     expect(lines.map((l) => JSON.parse(l).method)).toEqual(['gran', 'endpoint']);
+  });
+
+  it('--points-csv takes the readings from a spreadsheet export', async () => {
+    const record = JSON.parse(spring);
+    const csv = `volume_ml;ph\n${record.points.map((p: { volume_ml: number; ph: number }) => `${String(p.volume_ml).replace('.', ',')};${String(p.ph).replace('.', ',')}`).join('\n')}\n`;
+    const file = join(mkdtempSync(join(tmpdir(), 'tufa-')), 'points.csv');
+    writeFileSync(file, `\uFEFF${csv}`);
+    const fromJson = JSON.parse((await run([], spring)).lines[0]!);
+    const fromCsv = JSON.parse(
+      (await run(['--points-csv', file], JSON.stringify({ ...record, points: [] }))).lines[0]!,
+    );
+    expect(fromCsv.alkalinity_meq_l).toBeCloseTo(fromJson.alkalinity_meq_l, 12);
+    expect((await run(['--points-csv', join(tmpdir(), 'no-such-file.csv')], spring)).code).toBe(2);
   });
 
   it('--every-method writes one line per method', async () => {

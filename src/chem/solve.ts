@@ -27,7 +27,11 @@ export interface SolveOptions {
 /** Never throws: a request that cannot be solved becomes `{ error: { code, message } }`. */
 export function solve(input: unknown, options: SolveOptions = {}): SolveResult {
   try {
-    if (typeof input === 'object' && input !== null && 'uncertainty' in input) {
+    if (
+      typeof input === 'object' &&
+      input !== null &&
+      (input as { uncertainty?: unknown }).uncertainty !== undefined
+    ) {
       return solveWithUncertainty(input as Record<string, unknown>, options);
     }
     return solveRequest(parseSolveInput(input), options);

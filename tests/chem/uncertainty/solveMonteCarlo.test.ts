@@ -118,6 +118,19 @@ describe('solve uncertainties agree with Monte Carlo within 10 %', () => {
     expect(withU.warnings.map((w) => w.code)).not.toContain('unknown-key');
   });
 
+  it('an undefined uncertainty is no request at all', () => {
+    const r = solve({
+      temperature_c: 18,
+      salinity: 35,
+      alkalinity_umol_kg: 2300,
+      dic_umol_kg: 2050,
+      uncertainty: undefined,
+    });
+    if (isSolveError(r)) throw new Error(r.error.message);
+    expect(r.uncertainty).toBeUndefined();
+    expect(r.warnings.map((w) => w.code)).not.toContain('unknown-key');
+  });
+
   it('a bad uncertainty request is an error value', () => {
     const r = solve({
       temperature_c: 18,

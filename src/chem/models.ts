@@ -38,10 +38,8 @@ export function constantsFor(
   shifts?: ConstantShifts,
 ): ConstantSet {
   const cond = { temperatureC, salinity: req.salinity ?? 0, pressureDbar };
-  const opts =
-    req.calciumMolKg === undefined
-      ? { carbonic: req.carbonic, boron: req.boron }
-      : { carbonic: req.carbonic, boron: req.boron, calcium_mol_kg: req.calciumMolKg };
+  const base = { carbonic: req.carbonic, boron: req.boron, fluoride: req.fluoride };
+  const opts = req.calciumMolKg === undefined ? base : { ...base, calcium_mol_kg: req.calciumMolKg };
   const k =
     model === 'saline' ? salineConstants(cond, opts) : fail('model-unavailable', 'No fresh-water model.');
   return shifts ? applyShifts(k, shifts) : k;

@@ -79,7 +79,8 @@ function monteCarloSd(
   return Math.sqrt(values.reduce((s, v) => s + (v - mean) ** 2, 0) / (runs - 1));
 }
 
-describe('derivatives agree with a Monte Carlo run of the reduction', () => {
+// Thousands of solves: a generous limit so a busy shared machine cannot fail a correct run.
+describe('derivatives agree with a Monte Carlo run of the reduction', { timeout: 60_000 }, () => {
   // Normality kept small so the per-point pH and volume readings carry most of the spread.
   const u = { ph: 0.01, volume_ml: 0.005, titrant_normality: 0.0001 };
   // 1000 runs: the sampling error of a standard deviation is 1/√(2·999) ≈ 2.2 %. The inflection

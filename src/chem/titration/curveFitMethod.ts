@@ -122,6 +122,13 @@ export function reduceCurveFit(curve: TitrationCurve, k: ConstantSet, opts: Curv
   const details: Record<string, number> = { iterations, cost, lambda };
   if (system === 'open') details.air_pco2_uatm = 10 ** p[1]! * 1e6;
   if (fitOffset) details.ph_offset = p[2]!;
+  // Standard errors from the scatter of the readings about the fitted curve alone.
+  const cov = lm.covariance;
+  if (cov !== null) {
+    details.alkalinity_se_meq_l = Math.sqrt(Math.max(cov[0]![0]!, 0)) * 1e3;
+    if (system === 'closed') details.dic_se_mmol_l = Math.sqrt(Math.max(cov[1]![1]!, 0)) * 1e3;
+    if (fitOffset) details.ph_offset_se = Math.sqrt(Math.max(cov[2]![2]!, 0));
+  }
   return {
     parameters: fitOffset ? [p[0]!, p[1]!, p[2]!] : [p[0]!, p[1]!],
     equivalenceVolumeMl: (alkalinity * sampleVolumeMl) / titrantEqL,

@@ -66,7 +66,13 @@ export function reduceGran(curve: TitrationCurve, opts: GranOptions): MethodResu
   const fitOf = (idx: number[]) => {
     const xs = idx.map((i) => curve.volumeMl[i]!);
     const ys = idx.map((i) => granFunction(opts.sampleVolumeMl, curve.volumeMl[i]!, curve.ph[i]!));
-    return fitLine(xs, ys);
+    // A constant pH reading error is a constant *relative* error of F1 (σF1 = ln10·σpH·F1), so
+    // each point is weighted by 1/F1²; unweighted, the lowest-pH points would dominate.
+    return fitLine(
+      xs,
+      ys,
+      ys.map((y) => 1 / (y * y)),
+    );
   };
   let used = candidates;
   let fit = fitOf(used);
@@ -110,7 +116,14 @@ export function reduceGran(curve: TitrationCurve, opts: GranOptions): MethodResu
       residuals: fit.residuals,
       rms: rmsValue,
       points_used: used,
-      details: { slope: fit.slope, intercept: fit.intercept, max_ph: maxPh, min_ph: GRAN_MIN_PH },
+      details: {
+        slope: fit.slope,
+        intercept: fit.intercept,
+        // From the scatter about the line alone (reading noise); see titrationUncertainty for inputs.
+        equivalence_volume_se_ml: fit.xInterceptSe,
+        max_ph: maxPh,
+        min_ph: GRAN_MIN_PH,
+      },
     },
     warnings,
   };

@@ -79,23 +79,19 @@ export function reduceInflection(curve: TitrationCurve): MethodResult {
   const n = curve.ph.length;
   const { smooth, slope } = smoothedDerivative(curve);
   const [phLo, phHi] = INFLECTION_PH_RANGE;
+  // The steepest *interior* peak: a soft water can fall faster at its very first readings (little
+  // buffering above pK1) than at the equivalence point, and that edge is no inflection.
   let best = -1;
-  for (let i = 0; i < n; i++) {
+  for (let i = 1; i < n - 1; i++) {
     const p = smooth[i]!;
     if (p < phLo || p > phHi) continue;
-    if (best < 0 || slope[i]! < slope[best]!) best = i;
+    const isPeak = slope[i]! <= slope[i - 1]! && slope[i]! <= slope[i + 1]! && slope[i]! < 0;
+    if (isPeak && (best < 0 || slope[i]! < slope[best]!)) best = i;
   }
-  if (best < 0 || !(slope[best]! < 0)) {
+  if (best < 0) {
     fail(
       'inflection-not-found',
-      `No falling stretch of the curve between pH ${phLo} and ${phHi}: the titration does not cross the endpoint.`,
-      'points',
-    );
-  }
-  if (best === 0 || best === n - 1 || slope[best - 1]! < slope[best]! || slope[best + 1]! < slope[best]!) {
-    fail(
-      'inflection-not-found',
-      `The steepest part of the curve lies at the edge of the readings or of pH ${phLo}–${phHi}: ` +
+      `No peak of −dpH/dV between pH ${phLo} and ${phHi} inside the readings: ` +
         'titrate further past the endpoint, in smaller steps.',
       'points',
     );

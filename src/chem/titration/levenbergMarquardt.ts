@@ -31,6 +31,11 @@ export interface LmResult {
   iterations: number;
   converged: boolean;
   lambda: number;
+  /**
+   * s²·(JᵀJ)⁻¹ with s² = cost/(m − n): the parameter covariance from the scatter of the residuals
+   * (first order, Jacobian of the last iteration); null when JᵀJ is singular or m ≤ n.
+   */
+  covariance: number[][] | null;
 }
 
 /** Solves A x = b in place for a small dense system; returns null when A is singular. */
@@ -75,6 +80,7 @@ export function levenbergMarquardt(problem: LmProblem, start: readonly number[])
   let lambda = 1e-3;
   let iterations = 0;
   let converged = false;
+  let normal: number[][] | null = null;
   while (iterations < maxIterations) {
     iterations++;
     for (let j = 0; j < n; j++) {
@@ -98,6 +104,7 @@ export function levenbergMarquardt(problem: LmProblem, start: readonly number[])
         a[k]![j] = s;
       }
     }
+    normal = a;
     let accepted = false;
     for (let tries = 0; tries < 30; tries++) {
       const damped = a.map((row, j) => row.map((v, k) => (j === k ? v * (1 + lambda) : v)));
@@ -130,5 +137,25 @@ export function levenbergMarquardt(problem: LmProblem, start: readonly number[])
       break;
     }
   }
-  return { p, fitted, cost, iterations, converged, lambda };
+  return { p, fitted, cost, iterations, converged, lambda, covariance: covarianceOf(normal, cost, m) };
+}
+
+function covarianceOf(a: number[][] | null, cost: number, m: number): number[][] | null {
+  if (a === null) return null;
+  const n = a.length;
+  if (m <= n) return null;
+  const s2 = cost / (m - n);
+  const columns: number[][] = [];
+  for (let j = 0; j < n; j++) {
+    const e = new Array<number>(n).fill(0);
+    e[j] = 1;
+    const col = solveSmall(
+      a.map((row) => [...row]),
+      e,
+    );
+    if (col === null) return null;
+    columns.push(col.map((v) => v * s2));
+  }
+  // columns[j][i] = (A⁻¹)[i][j]; A is symmetric, so this is the covariance matrix.
+  return columns;
 }

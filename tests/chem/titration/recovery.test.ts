@@ -10,11 +10,13 @@ const make = () => k;
 
 /**
  * Tolerances (relative, on alkalinity) we promise for a 50-point titration to pH 3 with 0.005 pH
- * of reading noise. The fixed endpoint at pH 4.5 is tested separately: its bias at low alkalinity
- * is real chemistry (the equivalence pH rises as alkalinity falls).
+ * of reading noise, alkalinity 0.2–5 meq/L. Over 30 noise seeds the worst cases were Gran 1.2 %,
+ * inflection 3.6 % and curve fit 0.16 %, all in the softest water (0.2 meq/L), where little acid
+ * separates the endpoint from the start. The fixed endpoint at pH 4.5 is tested separately: its
+ * bias at low alkalinity is real chemistry (the equivalence pH rises as alkalinity falls).
  */
 const TOLERANCE: Record<Exclude<TitrationMethod, 'endpoint'>, number> = {
-  gran: 0.01,
+  gran: 0.015,
   inflection: 0.04,
   curve_fit: 0.003,
 };
@@ -39,7 +41,7 @@ function titration(w: (typeof cases)[number], seed: number, noise = 0.005) {
 
 describe('synthetic titrations are recovered by every method', () => {
   it.each(cases)('$name ($system): gran, inflection, curve fit', (w) => {
-    for (const seed of [1, 2, 3]) {
+    for (let seed = 1; seed <= 10; seed++) {
       const input = titration(w, seed);
       for (const method of ['gran', 'inflection', 'curve_fit'] as const) {
         const r = reduceTitration({ ...input, method, system: w.system }, make);

@@ -19,11 +19,14 @@ export function splitAlkalinity(alkalinity: number, ph: number, k: ConstantSet, 
   const den = h * h + k.k1 * h + k.k1 * k.k2;
   const hco3 = (ct * k.k1 * h) / den;
   const co3 = (ct * k.k1 * k.k2) / den;
+  const co2 = (ct * h * h) / den;
   const oh = k.kw / h;
   return {
     hco3_mmol_l: hco3 * 1e3,
     co3_mmol_l: co3 * 1e3,
     oh_mmol_l: oh * 1e3,
+    co2_mmol_l: co2 * 1e3,
+    dic_mmol_l: ct * 1e3,
     hco3_mg_l: hco3 * MOLAR_MASS_G_PER_MOL.HCO3 * 1e3,
     co3_mg_l: co3 * MOLAR_MASS_G_PER_MOL.CO3 * 1e3,
     oh_mg_l: oh * OH_G_PER_MOL * 1e3,

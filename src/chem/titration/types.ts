@@ -92,6 +92,9 @@ export interface SpeciesSplit {
   hco3_mmol_l: number;
   co3_mmol_l: number;
   oh_mmol_l: number;
+  /** Dissolved CO2 (CO2* = CO2(aq) + H2CO3) and DIC at the first reading, mmol/L. */
+  co2_mmol_l: number;
+  dic_mmol_l: number;
   /** The same as mass concentrations of the ions, mg/L. */
   hco3_mg_l: number;
   co3_mg_l: number;

@@ -109,6 +109,12 @@ describe('synthetic titrations are recovered by every method', () => {
     const sum = r.species.hco3_mmol_l + 2 * r.species.co3_mmol_l + r.species.oh_mmol_l - freeH;
     expect(sum).toBeCloseTo(r.alkalinity_meq_l, 8);
     expect(r.species.hco3_mmol_l).toBeGreaterThan(r.species.co3_mmol_l);
+    // The water was made with DIC = 1.15 × TA (5.75 mmol/L); the split recovers it from pH and TA.
+    expect(r.species.co2_mmol_l + r.species.hco3_mmol_l + r.species.co3_mmol_l).toBeCloseTo(
+      r.species.dic_mmol_l,
+      10,
+    );
+    expect(Math.abs(r.species.dic_mmol_l / 5.75 - 1)).toBeLessThan(0.01);
   });
 });
 

@@ -52,9 +52,9 @@ Input fields:
                                "volume_ml": 0.005, "ph_offset": 0.02} standard uncertainties
 
 Output fields: alkalinity_meq_l, alkalinity_mg_l_caco3, alkalinity (every unit),
-equivalence_volume_ml, method, species (HCO3-, CO3--, OH-, CO2*, DIC at the first reading), fit (r2, residuals, rms,
-points_used, standard errors), warnings,
-dic_umol_kg (curve_fit), uncertainty (when asked for).
+equivalence_volume_ml, method, species (HCO3-, CO3--, OH-, CO2*, DIC at the first reading),
+fit (r2, residuals, rms, points_used, standard errors), warnings, dic_umol_kg (curve_fit),
+uncertainty (when asked for).
 
 Options:
   --method NAME       reduce with this method, overriding the input's

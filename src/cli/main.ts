@@ -4,6 +4,7 @@
  */
 
 import { type CliIo, EXIT_OK, EXIT_USAGE } from './io';
+import { runPlan } from './plan';
 import { runSolve } from './solve';
 
 type Command = (args: string[], io: CliIo) => Promise<number>;
@@ -12,6 +13,10 @@ const COMMANDS: Record<string, { run: Command; summary: string }> = {
   solve: {
     run: runSolve,
     summary: 'carbonate system from two or more measured parameters (JSON Lines or CSV)',
+  },
+  plan: {
+    run: runPlan,
+    summary: 'what a water will be after a dose, CO2 exchange or mixing; the dose for a target',
   },
 };
 

@@ -11,7 +11,7 @@
  * solved before plus ½Σ c·z² of the ions added (given as ionic_strength_mol_kg, with a warning).
  */
 
-import { type Issue, warning } from '../errors';
+import { fail, type Issue, warning } from '../errors';
 import { MOLAR_MASS_G_PER_MOL } from '../physical';
 import type { Amount } from './amount';
 import type { Chemical } from './chemicals';
@@ -72,6 +72,14 @@ export function applyDose(w: PlanWater, chem: Chemical, amount: Amount): DoseRes
 
   const ta = (before.ta * w.basisKg + nu.ta * n) / basisAfter;
   const dic = (before.dic * w.basisKg + nu.dic * n) / basisAfter;
+  if (ta < 0 && nu.ta * n < 0) {
+    const maxMoles = (before.ta * w.basisKg) / -nu.ta;
+    fail(
+      'acid-exceeds-alkalinity',
+      `${n.toPrecision(4)} mol of ${chem.formula} is more than all the alkalinity of this water can take (${maxMoles.toPrecision(4)} mol); the water would turn mineral-acid and lethal. Use far less.`,
+      'moles',
+    );
+  }
   if (dic <= 0) {
     warnings.push(
       warning(

@@ -7,7 +7,10 @@
 
 import { CARBONATE_KEYS, type CarbonateKey, type ModelChoice } from './api';
 import { fail, type Issue, warning } from './errors';
+import { alkalinityFromFieldUnits, FRESH_INPUT_KEYS } from './fresh/request';
+import { salinityFromSpecificConductance } from './seawater/conductance';
 import type { MinorTotals, PhScale } from './types';
+import { densityKgL } from './units';
 
 export interface SolveRequest {
   temperatureC: number;
@@ -55,6 +58,7 @@ export const KNOWN_INPUT_KEYS: ReadonlySet<string> = new Set([
   'boron_total',
   'output_temperature_c',
   'output_pressure_dbar',
+  ...FRESH_INPUT_KEYS,
   'pair',
   'root',
   // Free-text keys that travel with a row (CSV ids, notes) and are passed through untouched.
@@ -162,6 +166,18 @@ export function parseSolveInput(input: unknown): SolveRequest {
     } else if (!(v > 0)) fail('non-positive-value', `${key} must be greater than zero, got ${v}.`, key);
     measured[key] = v;
   }
+
+  // Alkalinity in field units (mg/L as CaCO3, meq/L, dKH) becomes µmol/kg with the density of the
+  // water (EOS-80 at the given salinity, or the one implied by the specific conductance, else 0).
+  const scRaw = raw.specific_conductance_us_cm;
+  const salinityForDensity =
+    salinity ?? (typeof scRaw === 'number' && scRaw >= 0 ? salinityFromSpecificConductance(scRaw) : 0);
+  const field = alkalinityFromFieldUnits(
+    raw,
+    densityKgL(salinityForDensity, temperatureC),
+    measured.alkalinity_umol_kg !== undefined,
+  );
+  if (field !== undefined) measured.alkalinity_umol_kg = field.umolKg;
 
   const minorAt = (key: string): number => {
     const v = numberAt(raw, key) ?? 0;

@@ -3,6 +3,7 @@
  * TypeScript sources, so it works right after `npm ci`.
  */
 
+import { runConvert } from './convert';
 import { type CliIo, EXIT_OK, EXIT_USAGE } from './io';
 import { runPlan } from './plan';
 import { runSolve } from './solve';
@@ -13,6 +14,10 @@ const COMMANDS: Record<string, { run: Command; summary: string }> = {
   solve: {
     run: runSolve,
     summary: 'carbonate system from two or more measured parameters (JSON Lines or CSV)',
+  },
+  convert: {
+    run: runConvert,
+    summary: 'a value between units; salinity, conductance, density and specific gravity',
   },
   plan: {
     run: runPlan,

@@ -3,10 +3,12 @@
  * Record the figures in the README when they change.
  */
 
+import { benchFresh } from './fresh';
 import { benchSolve } from './solve';
 
 const sections: [string, () => string[] | Promise<string[]>][] = [
   ['Saline solver (100 000 rows)', benchSolve],
+  ['Fresh model beside saline, solve() JSON path (20 000 rows each)', benchFresh],
 ];
 
 for (const [title, run] of sections) {

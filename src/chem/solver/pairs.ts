@@ -67,16 +67,17 @@ const scratch = new Float64Array(2);
 
 /**
  * h from TA and DIC. First guess from the carbonate-only quadratic
- * TA·h² + (TA − DIC)·K1·h + (TA − 2·DIC)·K1·K2 = 0, then safeguarded Newton in pH.
+ * TA·h² + (TA − DIC)·K1·h + (TA − 2·DIC)·K1·K2 = 0, corrected once for borate and water
+ * alkalinity at that guess; then safeguarded Newton in pH (typically 3–4 iterations).
  */
 export function hFromTaDic(ta: number, dic: number, k: ConstantSet, t: MinorTotals): number {
   let x0 = 8;
-  if (ta > 0 && ta < 2 * dic) {
-    const b = (ta - dic) * k.k1;
-    const c = (ta - 2 * dic) * k.k1 * k.k2;
-    const disc = b * b - 4 * ta * c;
-    const h0 = (-b + Math.sqrt(disc)) / (2 * ta);
-    if (h0 > 0) x0 = Math.min(13, Math.max(2, -Math.log10(h0)));
+  const h0 = carbonateOnlyH(ta, dic, k);
+  if (h0 > 0) {
+    const taCarb = ta - (k.totalBoron * k.kb) / (k.kb + h0) - k.kw / h0 + h0 * k.freeHFactor;
+    const h1 = carbonateOnlyH(taCarb, dic, k);
+    const h = h1 > 0 ? h1 : h0;
+    x0 = Math.min(13, Math.max(2, -Math.log10(h)));
   }
   const residual = (x: number, out: Float64Array): void => {
     const h = 10 ** -x;
@@ -86,6 +87,15 @@ export function hFromTaDic(ta: number, dic: number, k: ConstantSet, t: MinorTota
   };
   const { x } = newtonBracketed(residual, x0, TA_DIC_PH_LO, TA_DIC_PH_HI, scratch);
   return 10 ** -x;
+}
+
+/** Positive root of the carbonate-only TA–DIC quadratic, or 0 when TA is outside (0, 2·DIC). */
+function carbonateOnlyH(ta: number, dic: number, k: ConstantSet): number {
+  if (!(ta > 0 && ta < 2 * dic)) return 0;
+  const b = (ta - dic) * k.k1;
+  const c = (ta - 2 * dic) * k.k1 * k.k2;
+  // −c > 0 here, so the root is written without cancellation.
+  return (-2 * c) / (b + Math.sqrt(b * b - 4 * ta * c));
 }
 
 function noRoot(pair: string, why: string): never {

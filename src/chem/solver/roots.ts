@@ -3,7 +3,8 @@
  * model's internal scale, h = 10^-x.
  *
  * Accuracy: roots are refined until the pH step is below {@link PH_TOLERANCE} (1e-12 pH units,
- * i.e. a relative error in h of ~2.3e-12) or the residual is exactly zero, with at most
+ * i.e. a relative error in h of ~2.3e-12; Newton stops after a step below 1e-9, whose square
+ * bounds the remaining error) or the residual is exactly zero, with at most
  * {@link MAX_ITERATIONS} iterations. Bracketing guarantees convergence; Newton gives speed.
  */
 
@@ -12,6 +13,10 @@ export const MAX_ITERATIONS = 100;
 /** The pH window searched for roots: the physically meaningful range of natural waters. */
 export const PH_SEARCH_MIN = 0;
 export const PH_SEARCH_MAX = 14;
+/** A Newton step this small ends the iteration (the next error would be ~its square). */
+const NEWTON_DONE = 1e-9;
+/** Largest Newton step, pH units. */
+const MAX_STEP = 1;
 /** Scan step for pairs whose residual may have several roots. */
 const SCAN_STEP = 0.05;
 
@@ -20,8 +25,7 @@ export type ResidualWithSlope = (x: number, out: Float64Array) => void;
 export type Residual = (x: number) => number;
 
 /**
- * Safeguarded Newton (Newton step inside a shrinking bracket, bisection when Newton leaves it or
- * stalls) for a residual f(x) that is increasing across [lo, hi] with f(lo) ≤ 0 ≤ f(hi) assumed.
+ * Safeguarded Newton (Newton step inside a shrinking bracket, bisection when Newton leaves it) for a residual f(x) that is increasing across [lo, hi] with f(lo) ≤ 0 ≤ f(hi) assumed.
  * Returns the root and the number of iterations used.
  */
 export function newtonBracketed(
@@ -32,7 +36,6 @@ export function newtonBracketed(
   scratch: Float64Array,
 ): { x: number; iterations: number } {
   let x = x0 < lo || x0 > hi ? 0.5 * (lo + hi) : x0;
-  let dxOld = hi - lo;
   for (let i = 1; i <= MAX_ITERATIONS; i++) {
     f(x, scratch);
     const fx = scratch[0]!;
@@ -40,13 +43,17 @@ export function newtonBracketed(
     if (fx === 0) return { x, iterations: i };
     if (fx < 0) lo = x;
     else hi = x;
+    // Newton, limited to one pH unit per step; bisection when it would leave the bracket.
     let dx = dfx > 0 ? fx / dfx : Number.POSITIVE_INFINITY;
+    if (dx > MAX_STEP) dx = MAX_STEP;
+    else if (dx < -MAX_STEP) dx = -MAX_STEP;
+    // Near the root Newton converges quadratically: after a step of 1e-9 the error is ~1e-17.
+    if (Math.abs(dx) < NEWTON_DONE) return { x: x - dx, iterations: i };
     let next = x - dx;
-    if (!(next > lo && next < hi) || Math.abs(dx) > 0.5 * Math.abs(dxOld)) {
+    if (!(next > lo && next < hi)) {
       next = 0.5 * (lo + hi);
       dx = x - next;
     }
-    dxOld = dx;
     x = next;
     if (Math.abs(dx) < PH_TOLERANCE || hi - lo < PH_TOLERANCE) return { x, iterations: i };
   }

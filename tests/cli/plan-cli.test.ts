@@ -25,7 +25,8 @@ const request = {
   ],
 };
 
-describe('tufa plan', () => {
+// Each case spawns npm and tsx; on a shared two-core machine that takes seconds.
+describe('tufa plan', { timeout: 60_000 }, () => {
   it('writes the before and after waters in the solve format, the doses and the cautions', () => {
     const r = tufa(['plan'], JSON.stringify(request));
     expect(r.status).toBe(0);

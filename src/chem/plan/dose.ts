@@ -104,7 +104,13 @@ export function applyDose(w: PlanWater, chem: Chemical, amount: Amount): DoseRes
       );
       calciumAfter = 1e-12;
     }
-    if (input.calcium_mg_l === undefined) input.calcium_umol_kg = calciumAfter * 1e6;
+    const mgL = input.calcium_mg_l;
+    if (typeof mgL === 'number') {
+      // Kept per litre, as given: the same moles, since the basis mass is the volume times the
+      // fresh model's kg of water per litre.
+      const caMg = (mgL * w.volumeL + nu.calcium * n * MOLAR_MASS_G_PER_MOL.Ca * 1000) / volumeAfter;
+      input.calcium_mg_l = Math.max(caMg, 1e-9);
+    } else input.calcium_umol_kg = calciumAfter * 1e6;
   } else if (nu.calcium !== 0) {
     warnings.push(
       warning(
@@ -137,7 +143,7 @@ export function applyDose(w: PlanWater, chem: Chemical, amount: Amount): DoseRes
       ),
     );
   }
-  if (chem.id === 'calcium_carbonate' && n > 0 && w.solved.omega_calcite >= 1) {
+  if (chem.id === 'calcium_carbonate' && n > 0 && (w.solved.omega_calcite ?? 0) >= 1) {
     warnings.push(
       warning(
         'carbonate-will-not-dissolve',
@@ -198,6 +204,7 @@ function freshIons(
   if (typeof tds === 'number') input.tds_mg_l = (tds * w.volumeL + dissolvedKg * 1e6) / volumeAfter;
   if (usesMajorIons(w.input)) {
     for (const key of ION_MG_L_KEYS) {
+      if (key === 'calcium_mg_l') continue; // updated with the calcium balance
       const ion = ION_OF[key];
       const added = chem.perMole[ion.per] * n;
       const old = typeof input[key] === 'number' ? (input[key] as number) : undefined;

@@ -50,9 +50,17 @@ export function quantityOf(w: PlanWater, q: TargetQuantity): number {
     case 'ph':
       return phOf(w);
     case 'omega_calcite':
-      return s.omega_calcite;
-    case 'omega_aragonite':
-      return s.omega_aragonite;
+    case 'omega_aragonite': {
+      const omega = s[q];
+      if (omega === null) {
+        fail(
+          'target-needs-calcium',
+          `${q} needs the calcium of the water: give calcium_mg_l or calcium_umol_kg.`,
+          'calcium_mg_l',
+        );
+      }
+      return omega;
+    }
     case 'co2_umol_kg':
       return s.co2_umol_kg;
     case 'co2_mg_l':

@@ -6,7 +6,7 @@ import { applyDose } from '../../../src/chem/plan/dose';
 import { equilibrate } from '../../../src/chem/plan/gas-exchange';
 import { mixWaters } from '../../../src/chem/plan/mix';
 import { planWater, totalsOf } from '../../../src/chem/plan/water';
-import { INTAKE, pondWater, reefWater } from './helpers';
+import { INTAKE, PLANTED, plantedWater, pondWater, reefWater, springWater } from './helpers';
 
 const moles = (n: number) => ({
   moles: n,
@@ -29,9 +29,11 @@ describe('molar masses from element counts', () => {
 });
 
 describe('every addition changes TA, DIC and calcium by exactly its stoichiometry', () => {
-  it.each(CHEMICAL_IDS)('%s in a reef tank and in a brackish pond', (id) => {
+  it.each(CHEMICAL_IDS)('%s in a reef tank, a brackish pond, a spring and a planted tank', (id) => {
     const chem = CHEMICALS[id];
-    for (const w of [reefWater(), pondWater()]) {
+    const waters = [reefWater(), pondWater(), springWater(), plantedWater()];
+    expect(waters.map((w) => w.solved.model)).toEqual(['saline', 'saline', 'fresh', 'fresh']);
+    for (const w of waters) {
       const n = 2e-4 * w.basisKg; // 200 µmol/kg
       const d = applyDose(w, chem, moles(n));
       const t0 = totalsOf(w);
@@ -48,6 +50,8 @@ describe('every addition changes TA, DIC and calcium by exactly its stoichiometr
         Math.abs(t1.calcium! * d.water.basisKg - t0.calcium! * w.basisKg - chem.perMole.calcium * n),
       ).toBeLessThan(scale + 1e-12 * t0.calcium! * w.basisKg);
       expect(d.change.ta_mol).toBe(chem.perMole.ta * n);
+      // The fresh model keeps calcium in mg/L as given: the plan writes it back there.
+      if (w.input.calcium_mg_l !== undefined) expect(d.water.input.calcium_umol_kg).toBeUndefined();
     }
   });
 
@@ -106,6 +110,25 @@ describe('lime softening reaction Ca(OH)2 + CO2 -> CaCO3 + H2O', () => {
   });
 });
 
+describe('fresh waters', () => {
+  it('NaHCO3 in a tank with major ions adds its sodium in mg/L', () => {
+    const w = plantedWater(200);
+    const d = applyDose(w, CHEMICALS.sodium_bicarbonate, moles(0.01));
+    // 0.01 mol × 22.98977 g/mol = 229.9 mg into 200 L: +1.149 mg/L (IUPAC 2021 atomic weight of Na).
+    expect((d.water.input.sodium_mg_l as number) - 10).toBeCloseTo(1.149, 3);
+    expect(d.water.input.chloride_mg_l).toBe(15);
+  });
+
+  it('a spring water without ions gets its ionic strength raised, with a warning', () => {
+    const w = springWater();
+    const d = applyDose(w, CHEMICALS.calcium_chloride, moles(10));
+    expect(d.warnings.map((x) => x.code)).toContain('ionic-strength-estimated');
+    expect(d.water.input.ionic_strength_mol_kg as number).toBeGreaterThan(
+      (w.solved as unknown as { ionic_strength_mol_kg: number }).ionic_strength_mol_kg,
+    );
+  });
+});
+
 describe('mixing is conservative', () => {
   it('the moles of TA, DIC and calcium of the mix are the sums', () => {
     const a = reefWater(300);
@@ -118,6 +141,32 @@ describe('mixing is conservative', () => {
     expect(m.water.solved.conditions.salinity).toBeGreaterThan(31);
     expect(m.water.solved.conditions.salinity).toBeLessThan(35);
     expect(m.mass_fractions.reduce((x, y) => x + y, 0)).toBeCloseTo(1, 12);
+  });
+
+  it('spring water mixed with seawater is conservative across models and is solved as saline', () => {
+    const a = springWater(900);
+    const b = planWater(
+      { temperature_c: 15, salinity: 34, alkalinity_umol_kg: 2300, ph: 8.05 },
+      { volumeL: 100 },
+      'sea',
+    );
+    const m = mixWaters([a, b]);
+    expect(m.water.solved.model).toBe('saline');
+    expect(m.warnings.map((w) => w.code)).toContain('mix-models-differ');
+    for (const key of ['ta', 'dic', 'calcium'] as const) {
+      const sum = totalsOf(a)[key]! * a.basisKg + totalsOf(b)[key]! * b.basisKg;
+      expect(totalsOf(m.water)[key]! * m.water.basisKg).toBeCloseTo(sum, 9);
+    }
+  });
+
+  it('two fresh waters mix by volume in their mg/L keys', () => {
+    const a = plantedWater(100);
+    const b = planWater({ ...PLANTED, calcium_mg_l: 90, alkalinity_dkh: 8 }, { volumeL: 300 }, 'b');
+    const m = mixWaters([a, b]);
+    expect(m.water.solved.model).toBe('fresh');
+    expect(m.water.input.calcium_mg_l).toBeCloseTo((30 * 100 + 90 * 300) / 400, 12);
+    const sum = totalsOf(a).ta * a.basisKg + totalsOf(b).ta * b.basisKg;
+    expect(totalsOf(m.water).ta * m.water.basisKg).toBeCloseTo(sum, 9);
   });
 
   it('a water mixed with itself is unchanged', () => {

@@ -8,7 +8,7 @@ import {
   type TargetQuantity,
 } from '../../../src/chem/plan/inverse';
 import { isPlanError, type PlanOutput, plan } from '../../../src/chem/plan/plan';
-import { pondWater, REEF, reefWater } from './helpers';
+import { plantedWater, pondWater, REEF, reefWater, springWater } from './helpers';
 
 const cases: [ChemicalId, TargetQuantity, number][] = [
   ['sodium_bicarbonate', 'alkalinity_umol_kg', 2800],
@@ -36,6 +36,19 @@ describe('dose to a target', () => {
     if (isPlanError(r)) throw new Error(r.error.message);
     const after = planWaterAfter(r);
     expect(Math.abs(after(q) - target)).toBeLessThan(1e-6 * Math.max(1, target));
+  });
+
+  it.each([
+    ['sodium_bicarbonate', 'alkalinity_mg_l_caco3', 180],
+    ['carbon_dioxide', 'co2_mg_l', 40],
+    ['calcium_hydroxide', 'omega_calcite', 1],
+  ] as const)('fresh: %s to %s %d hits the target to 1e-6', (id, q, target) => {
+    for (const w of [springWater(), plantedWater()]) {
+      const chem = CHEMICALS[id];
+      const sol = doseToTarget(w, chem, amountForm({}, chem), q, target);
+      expect(sol.dose.water.solved.model).toBe('fresh');
+      expect(Math.abs(quantityOf(sol.dose.water, q) - target)).toBeLessThan(1e-6 * Math.max(1, target));
+    }
   });
 
   it('a stock solution form reports millilitres and includes the stock water', () => {

@@ -8,6 +8,7 @@ import {
   type TargetQuantity,
 } from '../../../src/chem/plan/inverse';
 import { isPlanError, type PlanOutput, plan } from '../../../src/chem/plan/plan';
+import { planWater } from '../../../src/chem/plan/water';
 import { plantedWater, pondWater, REEF, reefWater, springWater } from './helpers';
 
 const cases: [ChemicalId, TargetQuantity, number][] = [
@@ -48,6 +49,24 @@ describe('dose to a target', () => {
       const sol = doseToTarget(w, chem, amountForm({}, chem), q, target);
       expect(sol.dose.water.solved.model).toBe('fresh');
       expect(Math.abs(quantityOf(sol.dose.water, q) - target)).toBeLessThan(1e-6 * Math.max(1, target));
+    }
+  });
+
+  it("reef keepers' rule: NaHCO3 for +2 dKH in 300 L is 2 × 0.3566 meq/L × 300 L", () => {
+    // 1 dKH = 10 mg/L CaO = 0.3566 meq/L (trade definition, common practice; chemistry.md).
+    const w = planWater(
+      { ...REEF, alkalinity_umol_kg: undefined, alkalinity_dkh: 7 },
+      { volumeL: 300 },
+      'reef',
+    );
+    const chem = CHEMICALS.sodium_bicarbonate;
+    const sol = doseToTarget(w, chem, amountForm({}, chem), 'alkalinity_dkh', 9);
+    const expected = 2 * ((2 * 10) / 56.0774) * 1e-3 * 300;
+    // Off only by the dilution of the salt added (about 5e-5 here).
+    expect(Math.abs(sol.moles / expected - 1)).toBeLessThan(2e-4);
+    expect(form(sol.moles)).toBeCloseTo(17.98, 1);
+    function form(n: number) {
+      return amountForm({}, chem).describe(n).mass_g!;
     }
   });
 

@@ -109,7 +109,7 @@ export function solveRequest(reqIn: SolveRequest, options: SolveOptions = {}): S
     model === 'saline' && reqIn.salinity === undefined ? { ...reqIn, salinity: decision.salinity } : reqIn;
   // In the fresh model `ph` is the activity pH unless a scale is named.
   const phScale: PhScale = model === 'fresh' && req.raw.ph_scale === undefined ? 'nbs' : req.phScale;
-  const fresh = model === 'fresh' ? freshContext(req) : undefined;
+  const fresh = model === 'fresh' ? freshContext(req, decision.fresh) : undefined;
 
   const [a, b] = choosePair(req);
   const solveIn = (k: ConstantSet): CarbonateState[] => {

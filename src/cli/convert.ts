@@ -33,7 +33,8 @@ import {
   type SpeciesName,
 } from '../chem/units';
 
-export interface CliIo {
+/** The streams `convert` uses; the project's `ConvertIo` (./io.ts) fits it. */
+export interface ConvertIo {
   stdin: AsyncIterable<string | Uint8Array>;
   stdout: { write(s: string): unknown };
   stderr: { write(s: string): unknown };
@@ -273,7 +274,7 @@ function format(x: number): string {
   return a >= 1e-3 && a < 1e7 ? String(Number(x.toPrecision(7))) : x.toExponential(6);
 }
 
-async function readNumbers(stdin: CliIo['stdin']): Promise<string[]> {
+async function readNumbers(stdin: ConvertIo['stdin']): Promise<string[]> {
   let text = '';
   const dec = new TextDecoder();
   for await (const chunk of stdin)
@@ -281,12 +282,12 @@ async function readNumbers(stdin: CliIo['stdin']): Promise<string[]> {
   return text.split(/[\s;]+/).filter((s) => s !== '');
 }
 
-function writeIssue(io: CliIo, kind: 'error' | 'warning', issue: Issue): void {
+function writeIssue(io: ConvertIo, kind: 'error' | 'warning', issue: Issue): void {
   io.stderr.write(`${kind} [${issue.code}]: ${issue.message}\n`);
 }
 
 /** Runs `tufa convert`; returns the exit code (0 done, 1 bad value, 2 bad usage). */
-export async function runConvert(args: string[], io: CliIo): Promise<number> {
+export async function runConvert(args: string[], io: ConvertIo): Promise<number> {
   let parsed: ReturnType<typeof parseArgs>;
   try {
     parsed = parseArgs(args);

@@ -3,6 +3,8 @@
  * Record the figures in the README when they change.
  */
 
+import { benchFresh } from './fresh';
+import { benchPlan } from './plan';
 import { benchSolve } from './solve';
 import { benchSolveUncertainty, benchTitration } from './titration';
 
@@ -10,6 +12,8 @@ const sections: [string, () => string[] | Promise<string[]>][] = [
   ['Saline solver (100 000 rows)', benchSolve],
   ['Titration: one 50-point titration by every method', benchTitration],
   ['Solve with uncertainties', benchSolveUncertainty],
+  ['Fresh model beside saline, solve() JSON path (20 000 rows each)', benchFresh],
+  ['Planning: dose, dose to target, target in steps (plan() JSON path)', benchPlan],
 ];
 
 for (const [title, run] of sections) {

@@ -153,7 +153,57 @@ export function activityCoefficients(
   saltingOut: boolean,
 ): ActivityCoefficients {
   const ab = debyeHuckelAB(tC);
-  const out = { neutral: 10 ** logGammaNeutral(ionicStrength, saltingOut) } as ActivityCoefficients;
-  for (const ion of ION_NAMES) out[ion] = 10 ** logGammaIon(ion, model, ionicStrength, ab);
-  return out;
+  const neutral = 10 ** logGammaNeutral(ionicStrength, saltingOut);
+  if (model === 'davies') {
+    // Davies depends on the charge only: three powers serve every ion (this sits in the solve loop).
+    const l1 = logGammaDavies(1, ionicStrength, ab.a);
+    const g1 = 10 ** l1;
+    const g2 = 10 ** (4 * l1);
+    const g3 = 10 ** (9 * l1);
+    return {
+      neutral,
+      H: g1,
+      OH: g1,
+      HCO3: g1,
+      CO3: g2,
+      Ca: g2,
+      Mg: g2,
+      Na: g1,
+      K: g1,
+      Cl: g1,
+      SO4: g2,
+      HSO4: g1,
+      F: g1,
+      BOH4: g1,
+      NH4: g1,
+      H2PO4: g1,
+      HPO4: g2,
+      PO4: g3,
+      H3SiO4: g1,
+      HS: g1,
+    };
+  }
+  const g = (ion: IonName): number => 10 ** logGammaIon(ion, model, ionicStrength, ab);
+  return {
+    neutral,
+    H: g('H'),
+    OH: g('OH'),
+    HCO3: g('HCO3'),
+    CO3: g('CO3'),
+    Ca: g('Ca'),
+    Mg: g('Mg'),
+    Na: g('Na'),
+    K: g('K'),
+    Cl: g('Cl'),
+    SO4: g('SO4'),
+    HSO4: g('HSO4'),
+    F: g('F'),
+    BOH4: g('BOH4'),
+    NH4: g('NH4'),
+    H2PO4: g('H2PO4'),
+    HPO4: g('HPO4'),
+    PO4: g('PO4'),
+    H3SiO4: g('H3SiO4'),
+    HS: g('HS'),
+  };
 }

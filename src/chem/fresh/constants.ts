@@ -214,6 +214,12 @@ export function freshConstants(cond: Conditions, opts: FreshOptions): FreshConst
   };
 }
 
+const ACTIVITY_LABEL: Record<ActivityModel, string> = {
+  davies: 'The Davies equation',
+  'debye-huckel': 'The extended Debye–Hückel equation',
+  'truesdell-jones': 'The Truesdell–Jones equation',
+};
+
 /** Validity warnings of every formulation the fresh model uses at these conditions. */
 export function freshValidity(
   tC: number,

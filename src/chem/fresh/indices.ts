@@ -10,6 +10,38 @@ import { carbonateAlkalinityPerDic, nonCarbonateAlkalinity } from '../solver/alk
 import { refineBracket } from '../solver/roots';
 import type { ConstantSet, MinorTotals } from '../types';
 
+/**
+ * A root of f near x0: steps away from x0 in direction `dir`, doubling the step (from `step`)
+ * until f changes sign or a bound is passed, then refines by Illinois to 1e-12. Returns undefined
+ * when no sign change lies between x0 and the bound, or when `stopIfFalling` and f turns down
+ * before crossing zero (the maximum was passed).
+ */
+function rootNear(
+  f: (x: number) => number,
+  x0: number,
+  dir: 1 | -1,
+  step: number,
+  lo: number,
+  hi: number,
+  stopIfFalling = false,
+): number | undefined {
+  let a = Math.min(hi, Math.max(lo, x0));
+  let fa = f(a);
+  if (fa === 0) return a;
+  let h = step;
+  for (let i = 0; i < 60; i++) {
+    const b = Math.min(hi, Math.max(lo, a + dir * h));
+    const fb = f(b);
+    if (fa * fb <= 0) return fb === 0 ? b : refineBracket(f, a, b, fa, fb);
+    if (b === lo || b === hi) return undefined;
+    if (stopIfFalling && fb < fa) return undefined;
+    a = b;
+    fa = fb;
+    h *= 2;
+  }
+  return undefined;
+}
+
 /** SI = log10(IAP/Ksp) = log10 of the conditional product over the conditional constant. */
 export function saturationIndex(product: number, kspConditional: number): number {
   return Math.log10(product / kspConditional);
@@ -22,16 +54,13 @@ function carbonateAtFixedTa(h: number, ta: number, k: ConstantSet, t: MinorTotal
   return (dic * k1k2) / (h * h + k.k1 * h + k1k2);
 }
 
-const PHS_SCAN_FROM = 3;
-const PHS_SCAN_TO = 13;
-const PHS_SCAN_STEP = 0.25;
-
 /**
  * pHs, the pH at which a water of the same total alkalinity and calcium is in equilibrium with
  * calcite (Langelier 1936, J. Am. Water Works Assoc. 28, 1500; the exact form of Standard Methods
- * 2330 B, which keeps every alkalinity term instead of TA ≈ HCO3-). Found on the fixed-TA path by
- * a scan in steps of 0.25 pH and Illinois refinement to 1e-12 pH. Returns undefined when no pH
- * makes the water saturated (too little calcium or alkalinity).
+ * 2330 B, which keeps every alkalinity term instead of TA ≈ HCO3-). Found on the fixed-TA path,
+ * starting from Langelier's own approximation pHs ≈ pK2′ − pKsp′ + p[Ca] + p[TA], stepping
+ * (0.05 pH, doubling) to a sign change and refining by Illinois to 1e-12 pH, within pH 2–13.
+ * Returns undefined when no pH makes the water saturated (too little calcium or alkalinity).
  */
 export function phSaturationCalcite(
   ta: number,
@@ -45,17 +74,12 @@ export function phSaturationCalcite(
     // Beyond the pH where OH- alone carries the alkalinity there is no carbonate at all.
     return co3 > 0 ? Math.log10((calcium * co3) / k.kspCalcite) : -50;
   };
-  let xPrev = PHS_SCAN_FROM;
-  let fPrev = f(xPrev);
-  if (fPrev >= 0) return fPrev === 0 ? xPrev : undefined;
-  for (let x = PHS_SCAN_FROM + PHS_SCAN_STEP; x <= PHS_SCAN_TO + 1e-9; x += PHS_SCAN_STEP) {
-    const fx = f(x);
-    if (fx >= 0) return fx === 0 ? x : refineBracket(f, xPrev, x, fPrev, fx);
-    if (fx < fPrev) return undefined; // past the maximum of Ω without reaching saturation
-    xPrev = x;
-    fPrev = fx;
-  }
-  return undefined;
+  const guess = Math.log10(k.kspCalcite / (k.k2 * calcium * ta));
+  const x0 = Math.min(12, Math.max(3, guess));
+  const f0 = f(x0);
+  if (f0 === 0) return x0;
+  // Ω rises with pH along the path up to a maximum near where OH- takes over the alkalinity.
+  return f0 > 0 ? rootNear(f, x0, -1, 0.05, 2, 13) : rootNear(f, x0, 1, 0.05, 2, 13, true);
 }
 
 /** Langelier saturation index LSI = pH − pHs (Langelier 1936). Positive: scale-forming. */
@@ -76,15 +100,14 @@ export interface PrecipitationPotential {
 }
 
 const CCPP_STEP = 0.02;
-const CCPP_MAX_STEPS = 700;
 
 /**
  * Calcium carbonate precipitation potential, solved (not approximated): the amount x of calcite
  * that must precipitate from (x > 0) or dissolve into (x < 0) the closed water so that
  * (Ca − x)·[CO3--](TA − 2x, DIC − x) = Ksp'. On the pH path of that reaction x is explicit,
  * x(h) = (DIC·φ(h) + A_nc(h) − TA) / (φ(h) − 2) with φ the carbonate alkalinity per DIC, so the
- * equilibrium is one root in pH: a scan from the current pH in steps of 0.02 pH, then Illinois
- * refinement to 1e-12 pH. Ionic strength and activity coefficients are held at the sample's values.
+ * equilibrium is one root in pH: stepping from the current pH (0.02 pH, doubling) to a sign
+ * change, then Illinois refinement to 1e-12 pH. Ionic strength and activity coefficients are held at the sample's values.
  */
 export function precipitationPotentialCalcite(
   ta: number,
@@ -114,19 +137,8 @@ export function precipitationPotentialCalcite(
   const g0 = g(ph0);
   if (g0 === 0) return { molKg: 0, phAfter: ph0 };
   // Precipitation releases H+ (pH falls); dissolution consumes it (pH rises).
-  const dir = g0 > 0 ? -1 : 1;
-  let a = ph0;
-  let fa = g0;
-  for (let i = 1; i <= CCPP_MAX_STEPS; i++) {
-    const b = ph0 + dir * i * CCPP_STEP;
-    const fb = g(b);
-    if (fa * fb <= 0) {
-      const ph = fb === 0 ? b : refineBracket(g, a, b, fa, fb);
-      return { molKg: xOf(10 ** -ph), phAfter: ph };
-    }
-    a = b;
-    fa = fb;
-  }
+  const ph = rootNear(g, ph0, g0 > 0 ? -1 : 1, CCPP_STEP, 0, 14);
+  if (ph !== undefined) return { molKg: xOf(10 ** -ph), phAfter: ph };
   return fail('ccpp-no-solution', 'No calcite equilibrium was found for this water between pH 0 and 14.');
 }
 
@@ -134,7 +146,8 @@ export function precipitationPotentialCalcite(
  * pH of the water after it has exchanged CO2 with air of partial pressure pco2Atm until
  * equilibrium, at constant total alkalinity (CO2 exchange leaves TA unchanged).
  * [CO2*] = K0'·fCO2 with fCO2 = pCO2·fugacityFactor; TA(h) at fixed CO2* rises monotonically with
- * pH, so the root is bracketed on pH 0–14 and refined by Illinois to 1e-12 pH.
+ * pH; from the carbonate-only estimate it is bracketed by doubling steps and refined by Illinois
+ * to 1e-12 pH, within pH 0–14.
  */
 export function phAtAirEquilibrium(
   ta: number,
@@ -150,18 +163,19 @@ export function phAtAirEquilibrium(
     const h = 10 ** -x;
     return dicOf(h) * carbonateAlkalinityPerDic(h, k) + nonCarbonateAlkalinity(h, k, t) - ta;
   };
-  const lo = 0;
-  const hi = 14;
-  const flo = f(lo);
-  const fhi = f(hi);
-  if (!(flo < 0 && fhi > 0)) {
+  // Start from the carbonate-only root TA·h² − K1·CO2·h − 2·K1·K2·CO2 = 0.
+  const k1c = k.k1 * co2;
+  const h0 = (k1c + Math.sqrt(k1c * k1c + 8 * Math.max(ta, 1e-12) * k1c * k.k2)) / (2 * Math.max(ta, 1e-12));
+  const x0 = Math.min(14, Math.max(0, -Math.log10(h0)));
+  const f0 = f(x0);
+  const x = f0 === 0 ? x0 : rootNear(f, x0, f0 > 0 ? -1 : 1, 0.01, 0, 14);
+  if (x === undefined) {
     fail(
       'no-solution',
       'No pH between 0 and 14 brings this alkalinity into equilibrium with the air.',
       'air_pco2_uatm',
     );
   }
-  const x = refineBracket(f, lo, hi, flo, fhi);
   const h = 10 ** -x;
   return { h, dic: dicOf(h) };
 }

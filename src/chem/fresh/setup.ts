@@ -26,7 +26,9 @@ export function salinityEvidence(req: SolveRequest, fresh: FreshRequest): number
  * The model decision plus the salinity the saline model would use: given, else derived from the
  * specific conductance (PSS-78). A saline choice with neither is refused with `missing-salinity`.
  */
-export function decideModel(req: SolveRequest): ModelDecision & { salinity: number | undefined } {
+export function decideModel(
+  req: SolveRequest,
+): ModelDecision & { salinity: number | undefined; fresh: FreshRequest } {
   const fresh = parseFreshInput(req.raw);
   const fromSc =
     fresh.specificConductanceUsCm === undefined
@@ -57,7 +59,7 @@ export function decideModel(req: SolveRequest): ModelDecision & { salinity: numb
       ),
     );
   }
-  return { ...d, salinity };
+  return { ...d, salinity, fresh };
 }
 
 /**
@@ -69,8 +71,11 @@ export function kgWaterPerLitre(req: SolveRequest, fresh: FreshRequest): number 
   return fresh.tdsMgL === undefined ? rho : rho - fresh.tdsMgL * 1e-6;
 }
 
-export function freshContext(req: SolveRequest): FreshContext {
-  const fresh = parseFreshInput(req.raw);
+/** `fresh` may be passed when the request's fresh keys were already read (by {@link decideModel}). */
+export function freshContext(
+  req: SolveRequest,
+  fresh: FreshRequest = parseFreshInput(req.raw),
+): FreshContext {
   const kgw = kgWaterPerLitre(req, fresh);
   const ionsMolKg = majorIonsToMolKg(fresh.ions, kgw);
   let calcium = req.calciumMolKg;

@@ -223,7 +223,9 @@ function addFreshOutputs(
   ctx: FreshContext,
   warnings: Issue[],
 ): void {
-  Object.assign(o, freshOutputs(s, k, ctx));
+  const found: Issue[] = [];
+  Object.assign(o, freshOutputs(s, k, ctx, found));
+  addUnique(warnings, found);
   if (ctx.calciumMolKg === undefined) {
     // Without calcium there is no saturation state: null, never a made-up zero.
     o.omega_calcite = null;

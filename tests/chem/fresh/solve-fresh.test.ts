@@ -273,3 +273,21 @@ describe('never NaN', () => {
     );
   });
 });
+
+describe('fresh-water keys in the saline model', () => {
+  it('uses calcium in mg/L with the seawater density and says which fresh keys it ignores', () => {
+    const r = solved({
+      temperature_c: 25,
+      salinity: 35,
+      alkalinity_dkh: 8,
+      ph: 8.15,
+      ph_scale: 'nbs',
+      calcium_mg_l: 420,
+      magnesium_mg_l: 1300,
+    });
+    expect(r.model).toBe('saline');
+    // 420 mg/L / 40.078 g/mol / 1.023343 kg/L (EOS-80) = 10 240 µmol/kg.
+    expect(r.totals_umol_kg.calcium).toBeCloseTo((420 / 40.078 / 1.023343) * 1000, 0);
+    expect(r.warnings.find((w) => w.code === 'fresh-keys-unused')?.message).toContain('magnesium_mg_l');
+  });
+});

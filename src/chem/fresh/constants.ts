@@ -236,7 +236,7 @@ export function freshValidity(
   pushRange(out, 'Weiss (1974) fugacity', T, tC, WEISS_1974_RANGE_C, '°C', f);
   pushRange(
     out,
-    `The ${model} activity equation`,
+    ACTIVITY_LABEL[model],
     'ionic strength',
     ionicStrength,
     ACTIVITY_RANGE_MOL_KG[model],

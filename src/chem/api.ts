@@ -45,6 +45,7 @@ export interface SolveInput {
   calcium_umol_kg?: number;
   carbonic_constants?: CarbonicConstants;
   boron_total?: BoronTotal;
+  fluoride_constant?: 'perezfraga1987' | 'dicksonriley1979';
   output_temperature_c?: number;
   output_pressure_dbar?: number;
   /** Further keys (fresh-water ions, uncertainties, ...) are added by later capabilities. */

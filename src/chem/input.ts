@@ -28,6 +28,7 @@ export interface SolveRequest {
   calciumMolKg: number | undefined;
   carbonic: 'lueker2000' | 'millero2010';
   boron: 'lee2010' | 'uppstrom1974';
+  fluoride: 'perezfraga1987' | 'dicksonriley1979';
   outTemperatureC: number;
   outPressureDbar: number;
   /** The pair to solve from when more than two parameters are given. */
@@ -57,6 +58,7 @@ export const KNOWN_INPUT_KEYS: ReadonlySet<string> = new Set([
   'calcium_umol_kg',
   'carbonic_constants',
   'boron_total',
+  'fluoride_constant',
   'output_temperature_c',
   'output_pressure_dbar',
   ...FRESH_INPUT_KEYS,
@@ -249,6 +251,12 @@ export function parseSolveInput(input: unknown): SolveRequest {
     calciumMolKg,
     carbonic: optionAt(raw, 'carbonic_constants', ['lueker2000', 'millero2010'] as const, 'lueker2000'),
     boron: optionAt(raw, 'boron_total', ['lee2010', 'uppstrom1974'] as const, 'lee2010'),
+    fluoride: optionAt(
+      raw,
+      'fluoride_constant',
+      ['perezfraga1987', 'dicksonriley1979'] as const,
+      'perezfraga1987',
+    ),
     outTemperatureC,
     outPressureDbar,
     pair,

@@ -40,10 +40,8 @@ export function constantsFor(
   shifts?: ConstantShifts,
 ): ConstantSet {
   const cond = { temperatureC, salinity: req.salinity ?? 0, pressureDbar };
-  const opts =
-    req.calciumMolKg === undefined
-      ? { carbonic: req.carbonic, boron: req.boron }
-      : { carbonic: req.carbonic, boron: req.boron, calcium_mol_kg: req.calciumMolKg };
+  const base = { carbonic: req.carbonic, boron: req.boron, fluoride: req.fluoride };
+  const opts = req.calciumMolKg === undefined ? base : { ...base, calcium_mol_kg: req.calciumMolKg };
   // The fresh model at its first ionic-strength estimate; `solve()` iterates I where it depends on
   // the solved species (major ions), so callers wanting that exact value should go through solve().
   const k =

@@ -5,6 +5,7 @@
 
 import { runConvert } from './convert';
 import { type CliIo, EXIT_OK, EXIT_USAGE } from './io';
+import { runPlan } from './plan';
 import { runSolve } from './solve';
 
 type Command = (args: string[], io: CliIo) => Promise<number>;
@@ -17,6 +18,10 @@ const COMMANDS: Record<string, { run: Command; summary: string }> = {
   convert: {
     run: runConvert,
     summary: 'a value between units; salinity, conductance, density and specific gravity',
+  },
+  plan: {
+    run: runPlan,
+    summary: 'what a water will be after a dose, CO2 exchange or mixing; the dose for a target',
   },
 };
 

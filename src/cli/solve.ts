@@ -29,6 +29,7 @@ Input: one JSON object per line (or a CSV whose header row uses the same names).
     hco3_umol_kg, co3_umol_kg
   optional: phosphate_umol_kg silicate_umol_kg ammonia_umol_kg sulfide_umol_kg calcium_umol_kg
             carbonic_constants (lueker2000 | millero2010)   boron_total (lee2010 | uppstrom1974)
+            fluoride_constant (perezfraga1987 | dicksonriley1979)
             output_temperature_c output_pressure_dbar   pair (e.g. "ph+alkalinity_umol_kg")
             root (high-ph | low-ph: which root of a two-root pair is reported first)
   model                  saline | fresh | auto (default). auto: fresh below salinity 2, from salinity,
@@ -102,6 +103,7 @@ const TEXT_KEYS = new Set([
   'ph_scale',
   'carbonic_constants',
   'boron_total',
+  'fluoride_constant',
   'pair',
   'root',
   'activity_model',

@@ -41,7 +41,7 @@ Input: one JSON object per line (or a CSV whose header row uses the same names).
     calcium_mg_l magnesium_mg_l sodium_mg_l potassium_mg_l chloride_mg_l sulfate_mg_l
     ionic_strength_mol_kg specific_conductance_us_cm (at 25 °C) tds_mg_l
       ionic strength from, in order: the major ions, the value given, conductance, TDS
-    air_pco2_uatm (default 420)   activity_model (davies | debye-huckel | truesdell-jones)
+    air_pco2_uatm (partial pressure, default 420)   activity_model (davies | debye-huckel | truesdell-jones)
     conductance_factor (russell-1976 | griffin-jurinak-1973)   dolomite_form (ordered | disordered)
 
 Output (at output conditions): alkalinity_umol_kg dic_umol_kg ph_total ph_free ph_seawater ph_nbs

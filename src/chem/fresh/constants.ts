@@ -209,6 +209,8 @@ export function freshConstants(cond: Conditions, opts: FreshOptions): FreshConst
       fugacity: 'Weiss 1974',
       activity: ACTIVITY_NAMES[model],
       neutral_species: saltingOut ? 'log γ = 0.1 I (salting-out)' : 'γ = 1',
+      // Said out loud because hard and sulfate-rich waters lose a few % of free Ca to pairs.
+      ion_pairs: 'none: Ca, Mg, SO4 and the carbonate ions are taken as free ions',
     },
     warnings,
   };
@@ -236,7 +238,7 @@ export function freshValidity(
   pushRange(out, 'Weiss (1974) fugacity', T, tC, WEISS_1974_RANGE_C, '°C', f);
   pushRange(
     out,
-    `The ${model} activity equation`,
+    ACTIVITY_LABEL[model],
     'ionic strength',
     ionicStrength,
     ACTIVITY_RANGE_MOL_KG[model],

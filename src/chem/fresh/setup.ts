@@ -78,12 +78,8 @@ export function freshContext(
 ): FreshContext {
   const kgw = kgWaterPerLitre(req, fresh);
   const ionsMolKg = majorIonsToMolKg(fresh.ions, kgw);
-  let calcium = req.calciumMolKg;
-  if (fresh.ions.calcium !== undefined) {
-    if (calcium !== undefined)
-      fail('calcium-given-twice', 'Give calcium once: calcium_mg_l or calcium_umol_kg.', 'calcium_mg_l');
-    calcium = ionsMolKg.ca;
-  }
+  // calcium_mg_l is taken per kg of water here (the request read it per kg of solution).
+  const calcium = fresh.ions.calcium !== undefined ? ionsMolKg.ca : req.calciumMolKg;
   const magnesium =
     fresh.ions.magnesium === undefined
       ? undefined

@@ -6,7 +6,7 @@
  */
 
 import type { FreshWaterOutputs } from '../api';
-import { type Issue, warning } from '../errors';
+import { type Issue, toIssue, warning } from '../errors';
 import { MOLAR_MASS_G_PER_MOL } from '../physical';
 import type { CarbonateState, Conditions, MinorTotals } from '../types';
 import { type AlkalinityUnit, alkalinityFromEqKg } from '../units';
@@ -116,7 +116,13 @@ export const TREATMENT_CAUTION =
   'the published limits for the animals and plants in the water, and follow local codes, product labels and licensed practice.';
 
 /** The outputs only the fresh model has, for one state at output conditions. */
-export function freshOutputs(s: CarbonateState, k: FreshConstantSet, ctx: FreshContext): FreshWaterOutputs {
+/** Indices that cannot be computed for this water are left out, with a warning pushed to `warnings`. */
+export function freshOutputs(
+  s: CarbonateState,
+  k: FreshConstantSet,
+  ctx: FreshContext,
+  warnings: Issue[] = [],
+): FreshWaterOutputs {
   const g = k.gamma;
   const alk = (unit: AlkalinityUnit): number => alkalinityFromEqKg(s.ta, unit, ctx.kgWaterPerL);
   const out: FreshWaterOutputs = {
@@ -138,28 +144,50 @@ export function freshOutputs(s: CarbonateState, k: FreshConstantSet, ctx: FreshC
   };
   const airAtm = ctx.fresh.airPco2Uatm * 1e-6;
   if (s.ta > 0) {
-    const air = phAtAirEquilibrium(s.ta, airAtm, k, ctx.minor);
-    out.ph_air_equilibrium = -Math.log10(air.h);
-    out.dic_air_equilibrium_umol_kg = air.dic * 1e6;
+    try {
+      const air = phAtAirEquilibrium(s.ta, airAtm, k, ctx.minor);
+      out.ph_air_equilibrium = -Math.log10(air.h);
+      out.dic_air_equilibrium_umol_kg = air.dic * 1e6;
+    } catch (e) {
+      warnings.push(toIssue(e));
+    }
   }
 
   const ca = ctx.calciumMolKg;
   if (ca !== undefined && ca > 0) {
-    out.saturation_index_calcite = saturationIndex(ca * s.co3, k.kspCalcite);
-    out.saturation_index_aragonite = saturationIndex(ca * s.co3, k.kspAragonite);
+    // A saturation index needs a carbonate ion to speak of; log(0) would be −∞, so it is left out.
+    const si = (product: number, ksp: number): number | undefined =>
+      product > 0 && Number.isFinite(Math.log10(product)) ? saturationIndex(product, ksp) : undefined;
+    const put = <K extends keyof FreshWaterOutputs>(key: K, v: FreshWaterOutputs[K] | undefined): void => {
+      if (v !== undefined) out[key] = v;
+    };
+    put('saturation_index_calcite', si(ca * s.co3, k.kspCalcite));
+    put('saturation_index_aragonite', si(ca * s.co3, k.kspAragonite));
     const mg = ctx.magnesiumMolKg;
     if (mg !== undefined && mg > 0)
-      out.saturation_index_dolomite = saturationIndex(ca * mg * s.co3 * s.co3, k.kspDolomite);
+      put('saturation_index_dolomite', si(ca * mg * s.co3 * s.co3, k.kspDolomite));
     const phs = phSaturationCalcite(s.ta, ca, k, ctx.minor);
     if (phs !== undefined) {
       const ph = -Math.log10(s.h);
       out.ph_saturation_calcite = phs;
       out.langelier_index = langelierIndex(ph, phs);
       out.ryznar_index = ryznarIndex(ph, phs);
+    } else {
+      warnings.push(
+        warning(
+          'no-saturation-ph',
+          'No pH makes this water saturated with calcite at its alkalinity and calcium: no Langelier or Ryznar index.',
+        ),
+      );
     }
-    const ccpp = precipitationPotentialCalcite(s.ta, s.dic, ca, s.h, k, ctx.minor);
-    out.ccpp_mg_l_caco3 = ccpp.molKg * MOLAR_MASS_G_PER_MOL.CaCO3 * 1000 * ctx.kgWaterPerL;
-    out.ph_after_ccpp = ccpp.phAfter;
+    // One index that cannot be computed must not take the whole solve down with it.
+    try {
+      const ccpp = precipitationPotentialCalcite(s.ta, s.dic, ca, s.h, k, ctx.minor);
+      out.ccpp_mg_l_caco3 = ccpp.molKg * MOLAR_MASS_G_PER_MOL.CaCO3 * 1000 * ctx.kgWaterPerL;
+      out.ph_after_ccpp = ccpp.phAfter;
+    } catch (e) {
+      warnings.push(toIssue(e));
+    }
     out.treatment_caution = TREATMENT_CAUTION;
   }
   if (ctx.plan.method === 'major-ions') {

@@ -43,8 +43,9 @@ Input fields:
   temperature_c               sample temperature, °C
   points                      [{"volume_ml": 0, "ph": 7.9}, ...] cumulative acid added and pH
                               (or {"counts": ..., "ph": ...} with counts_per_ml for a digital titrator)
-  method                      gran (default) | inflection | endpoint | curve_fit
-  endpoint_ph                 for method endpoint (default 4.5)
+  method                      gran (default) | inflection | endpoint | two_endpoint | curve_fit
+                              (two_endpoint: for soft waters, endpoint_ph and 0.3 below it)
+  endpoint_ph                 for methods endpoint and two_endpoint (default 4.5)
   ionic_strength_mol_kg or specific_conductance_us_cm   for activity corrections
   system                      curve_fit: closed (default) or open (sample exchanging CO2 with air)
   curve_fit_ph_offset         curve_fit: true to fit a pH-meter offset as well (default false)

@@ -15,6 +15,7 @@ import { ionicStrengthForTitration } from './ionicStrengthForTitration';
 import type { MethodResult } from './methodResult';
 import { splitAlkalinity } from './speciesSplit';
 import { alkalinityInEveryUnit, dicUmolKg } from './titrationUnits';
+import { reduceTwoEndpoint } from './twoEndpointMethod';
 import { TITRATION_METHODS, type TitrationInput, type TitrationMethod, type TitrationResult } from './types';
 import { checkTitration } from './validateTitration';
 
@@ -99,6 +100,8 @@ export function reduceTitrationWithHints(
       core = reduceGran(t.curve, { sampleVolumeMl: t.sampleVolumeMl, maxPh: input.gran_max_ph });
     } else if (method === 'inflection') {
       core = reduceInflection(t.curve);
+    } else if (method === 'two_endpoint') {
+      core = reduceTwoEndpoint(t.curve, t.sampleVolumeMl, t.endpointPh);
     } else {
       core = reduceEndpoint(t.curve, t.endpointPh);
     }
@@ -180,5 +183,7 @@ const methodSource: Record<TitrationMethod, string> = {
   gran: 'Gran 1952 (F1 with dilution, linear fit past the endpoint)',
   inflection: 'maximum of dpH/dV, local quadratic smoothing (Savitzky & Golay 1964)',
   endpoint: 'fixed endpoint, linear interpolation in pH',
+  two_endpoint:
+    'two endpoints 0.3 pH apart, Gran line through them (Standard Methods 2320 B low-alkalinity case)',
   curve_fit: 'carbonate model fitted by Levenberg–Marquardt (Marquardt 1963)',
 };

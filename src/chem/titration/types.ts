@@ -9,7 +9,7 @@
 import type { OutputUncertainty } from '../api';
 import type { Issue } from '../errors';
 
-export const TITRATION_METHODS = ['gran', 'inflection', 'endpoint', 'curve_fit'] as const;
+export const TITRATION_METHODS = ['gran', 'inflection', 'endpoint', 'two_endpoint', 'curve_fit'] as const;
 export type TitrationMethod = (typeof TITRATION_METHODS)[number];
 
 /** Whether CO2 stays in the vessel (closed) or the sample keeps exchanging with air (open). */
@@ -31,7 +31,7 @@ export interface TitrationInput {
   titrant_correction_factor?: number;
   temperature_c: number;
   method?: TitrationMethod;
-  /** Fixed-endpoint pH; default 4.5. */
+  /** Fixed-endpoint pH (also the first of the two endpoints); default 4.5. */
   endpoint_ph?: number;
   ionic_strength_mol_kg?: number;
   specific_conductance_us_cm?: number;

@@ -70,7 +70,13 @@ describe('tufa titrate', () => {
 
   it('--every-method writes one line per method', async () => {
     const { lines } = await run(['--every-method'], spring);
-    expect(lines.map((l) => JSON.parse(l).method)).toEqual(['gran', 'inflection', 'endpoint', 'curve_fit']);
+    expect(lines.map((l) => JSON.parse(l).method)).toEqual([
+      'gran',
+      'inflection',
+      'endpoint',
+      'two_endpoint',
+      'curve_fit',
+    ]);
   });
 
   it('propagates uncertainties given in the record', async () => {

@@ -126,6 +126,8 @@ export interface FreshWaterOutputs {
     co2: number;
   };
   pksp_dolomite: number;
+  /** p-values of the thermodynamic constants before activity corrections (the `constants` are conditional). */
+  constants_infinite_dilution: Record<string, number>;
   alkalinity_mmol_kg: number;
   alkalinity_mmol_l: number;
   alkalinity_meq_l: number;

@@ -48,6 +48,7 @@ Output (at output conditions): alkalinity_umol_kg dic_umol_kg ph_total ph_free p
   pco2_uatm fco2_uatm co2_umol_kg hco3_umol_kg co3_umol_kg omega_calcite omega_aragonite
   revelle_factor constants model model_reason formulations warnings pair [alternatives] [misfit]
   fresh model adds: ph (activity) ionic_strength_mol_kg ionic_strength_method activity_coefficients
+    constants_infinite_dilution (the constants above are conditional, activity-corrected)
     saturation_index_calcite/_aragonite/_dolomite ph_saturation_calcite langelier_index ryznar_index
     ccpp_mg_l_caco3 ph_after_ccpp charge_balance_error_percent pco2_excess_ratio air_pco2_uatm
     ph_air_equilibrium dic_air_equilibrium_umol_kg alkalinity_{mmol_kg,mmol_l,meq_l,mg_l_caco3,

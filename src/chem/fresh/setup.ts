@@ -35,10 +35,10 @@ export function decideModel(
       ? undefined
       : salinityFromSpecificConductance(fresh.specificConductanceUsCm);
   const d = chooseModel(req.model, {
-    ...(req.salinity === undefined ? {} : { salinity: req.salinity }),
-    ...(fromSc === undefined ? {} : { salinityFromConductance: fromSc }),
-    ...(fresh.ionicStrengthGiven === undefined ? {} : { ionicStrength: fresh.ionicStrengthGiven }),
-    ...(fresh.tdsMgL === undefined ? {} : { tdsMgL: fresh.tdsMgL }),
+    salinity: req.salinity,
+    salinityFromConductance: fromSc,
+    ionicStrength: fresh.ionicStrengthGiven,
+    tdsMgL: fresh.tdsMgL,
     freshKeys: fresh.freshKeys,
   });
   const salinity = req.salinity ?? fromSc;

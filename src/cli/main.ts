@@ -3,9 +3,12 @@
  * TypeScript sources, so it works right after `npm ci`.
  */
 
+import { runConvert } from './convert';
 import { type CliIo, EXIT_OK, EXIT_USAGE } from './io';
+import { runPlan } from './plan';
 import { runRecompute } from './recompute';
 import { runSolve } from './solve';
+import { runTitrate } from './titrate';
 
 type Command = (args: string[], io: CliIo) => Promise<number>;
 
@@ -17,6 +20,18 @@ const COMMANDS: Record<string, { run: Command; summary: string }> = {
   recompute: {
     run: runRecompute,
     summary: 'results for every row of a logger or spreadsheet CSV (columns recognized from the header)',
+  },
+  titrate: {
+    run: runTitrate,
+    summary: 'alkalinity (and DIC) from a field acid titration: Gran, inflection, endpoint, curve fit',
+  },
+  convert: {
+    run: runConvert,
+    summary: 'a value between units; salinity, conductance, density and specific gravity',
+  },
+  plan: {
+    run: runPlan,
+    summary: 'what a water will be after a dose, CO2 exchange or mixing; the dose for a target',
   },
 };
 

@@ -1,0 +1,229 @@
+/**
+ * The fresh-water side of a solve: constants at the sample's ionic strength (iterated with the
+ * solved species when I comes from the major ions), and the outputs only the fresh model has.
+ * The pair solver itself is shared with the saline model; this module never solves pairs itself
+ * but is handed a callback that does.
+ */
+
+import type { FreshWaterOutputs } from '../api';
+import { type Issue, toIssue, warning } from '../errors';
+import { MOLAR_MASS_G_PER_MOL } from '../physical';
+import type { CarbonateState, Conditions, MinorTotals } from '../types';
+import { alkalinityFromEqKg } from '../units';
+import { type FreshConstantSet, freshConstants } from './constants';
+import {
+  langelierIndex,
+  phAtAirEquilibrium,
+  phSaturationCalcite,
+  precipitationPotentialCalcite,
+  ryznarIndex,
+  saturationIndex,
+} from './indices';
+import { chargeBalanceErrorPercent, ionicStrengthFromIons, type MajorIonsMolKg } from './ionic-strength';
+import type { FreshRequest, IonicStrengthPlan } from './request';
+
+export interface FreshContext {
+  fresh: FreshRequest;
+  plan: IonicStrengthPlan;
+  ionsMolKg: MajorIonsMolKg;
+  /** Calcium and magnesium in mol/kg of water, when known. */
+  calciumMolKg: number | undefined;
+  magnesiumMolKg: number | undefined;
+  /** kg of water per litre of sample, for the per-litre outputs. */
+  kgWaterPerL: number;
+  minor: MinorTotals;
+}
+
+/** Iteration limits for ionic strength from species: |ΔI| ≤ 1e-13 + 1e-10·I within 30 passes. */
+export const IONIC_STRENGTH_REL_TOL = 1e-10;
+export const IONIC_STRENGTH_MAX_PASSES = 30;
+
+export function freshConstantsAt(
+  cond: Conditions,
+  ionicStrength: number,
+  ctx: FreshContext,
+): FreshConstantSet {
+  return freshConstants(cond, {
+    ionicStrength,
+    activity: ctx.fresh.activity,
+    dolomite: ctx.fresh.dolomite,
+    totalSulfate: ctx.ionsMolKg.so4,
+    calcium: ctx.calciumMolKg ?? 0,
+    magnesium: ctx.magnesiumMolKg ?? 0,
+    minorTotals: ctx.minor,
+  });
+}
+
+/** I implied by a solved state: from the major ions, or from the alkalinity alone. */
+export function ionicStrengthOfState(s: CarbonateState, k: FreshConstantSet, ctx: FreshContext): number {
+  const species = { hco3: s.hco3, co3: s.co3, oh: k.kw / s.h, hFree: s.h * k.freeHFactor };
+  if (ctx.plan.method === 'major-ions') return ionicStrengthFromIons(ctx.ionsMolKg, species);
+  // Sodium bicarbonate water: Na+ balances the alkalinity.
+  return 0.5 * (Math.max(s.ta, 0) + species.hco3 + 4 * species.co3 + species.oh + species.hFree);
+}
+
+/**
+ * Solves at a fixed point of ionic strength: evaluate constants at I, solve, recompute I from the
+ * species, until I changes by less than 1e-10 relative (1e-13 absolute) or 30 passes. The
+ * dependence is weak (γ varies as √I) and the secant step makes 3–4 passes usual. Returns the constants, the
+ * callback's result, and the passes used; warns if the cap was reached.
+ */
+export function solveAtIonicStrength<T>(
+  cond: Conditions,
+  ctx: FreshContext,
+  solveAt: (k: FreshConstantSet) => T,
+  stateOf: (r: T) => CarbonateState,
+): { k: FreshConstantSet; result: T; passes: number; warnings: Issue[] } {
+  let I = ctx.plan.initial;
+  let k = freshConstantsAt(cond, I, ctx);
+  let result = solveAt(k);
+  if (!ctx.plan.iterate) return { k, result, passes: 1, warnings: [] };
+  // Fixed point I = g(I), accelerated by the secant on r(I) = g(I) − I once two passes exist.
+  let iPrev = Number.NaN;
+  let rPrev = Number.NaN;
+  for (let pass = 2; pass <= IONIC_STRENGTH_MAX_PASSES; pass++) {
+    const g = ionicStrengthOfState(stateOf(result), k, ctx);
+    const r = g - I;
+    if (Math.abs(r) <= 1e-13 + IONIC_STRENGTH_REL_TOL * g)
+      return { k, result, passes: pass - 1, warnings: [] };
+    let next = g;
+    if (Number.isFinite(rPrev) && r !== rPrev) {
+      const secant = I - (r * (I - iPrev)) / (r - rPrev);
+      if (secant > 0 && Number.isFinite(secant)) next = secant;
+    }
+    iPrev = I;
+    rPrev = r;
+    I = next;
+    k = freshConstantsAt(cond, I, ctx);
+    result = solveAt(k);
+  }
+  return {
+    k,
+    result,
+    passes: IONIC_STRENGTH_MAX_PASSES,
+    warnings: [
+      warning(
+        'ionic-strength-not-converged',
+        'The ionic strength did not settle within 30 passes; results are approximate.',
+      ),
+    ],
+  };
+}
+
+export const TREATMENT_CAUTION =
+  'The saturation indices and the precipitation potential are model estimates. Before dosing acid, lime, soda, CO2 or ' +
+  'any conditioner: add it slowly and in steps, re-measure between steps, wear eye and skin protection, keep within ' +
+  'the published limits for the animals and plants in the water, and follow local codes, product labels and licensed practice.';
+
+/** The outputs only the fresh model has, for one state at output conditions. */
+/** Indices that cannot be computed for this water are left out, with a warning pushed to `warnings`. */
+export function freshOutputs(
+  s: CarbonateState,
+  k: FreshConstantSet,
+  ctx: FreshContext,
+  warnings: Issue[] = [],
+): FreshWaterOutputs {
+  const g = k.gamma;
+  const kgw = ctx.kgWaterPerL;
+  const ph = -Math.log10(s.h);
+  const airAtm = ctx.fresh.airPco2Uatm * 1e-6;
+
+  let phAir: number | undefined;
+  let dicAir: number | undefined;
+  if (s.ta > 0) {
+    try {
+      const air = phAtAirEquilibrium(s.ta, airAtm, k, ctx.minor);
+      phAir = -Math.log10(air.h);
+      dicAir = air.dic * 1e6;
+    } catch (e) {
+      warnings.push(toIssue(e));
+    }
+  }
+
+  let siCalcite: number | undefined;
+  let siAragonite: number | undefined;
+  let siDolomite: number | undefined;
+  let phs: number | undefined;
+  let ccppMgL: number | undefined;
+  let phAfterCcpp: number | undefined;
+  const ca = ctx.calciumMolKg;
+  const hasCa = ca !== undefined && ca > 0;
+  if (hasCa) {
+    // A saturation index needs a carbonate ion to speak of; log(0) would be −∞, so it is left out.
+    siCalcite = finiteSi(ca * s.co3, k.kspCalcite);
+    siAragonite = finiteSi(ca * s.co3, k.kspAragonite);
+    const mg = ctx.magnesiumMolKg;
+    if (mg !== undefined && mg > 0) siDolomite = finiteSi(ca * mg * s.co3 * s.co3, k.kspDolomite);
+    phs = phSaturationCalcite(s.ta, ca, k, ctx.minor);
+    if (phs === undefined) {
+      warnings.push(
+        warning(
+          'no-saturation-ph',
+          'No pH makes this water saturated with calcite at its alkalinity and calcium: no Langelier or Ryznar index.',
+        ),
+      );
+    }
+    // One index that cannot be computed must not take the whole solve down with it.
+    try {
+      const p = precipitationPotentialCalcite(s.ta, s.dic, ca, s.h, k, ctx.minor);
+      ccppMgL = p.molKg * MOLAR_MASS_G_PER_MOL.CaCO3 * 1000 * kgw;
+      phAfterCcpp = p.phAfter;
+    } catch (e) {
+      warnings.push(toIssue(e));
+    }
+  }
+  const cbe =
+    ctx.plan.method === 'major-ions'
+      ? chargeBalanceErrorPercent(ctx.ionsMolKg, {
+          hco3: s.hco3,
+          co3: s.co3,
+          oh: k.kw / s.h,
+          hFree: s.h * k.freeHFactor,
+        })
+      : undefined;
+
+  // One literal with every key, absent ones undefined (JSON drops them): a fixed shape keeps the
+  // per-row cost of building the output low.
+  return {
+    ph,
+    ionic_strength_mol_kg: k.ionicStrength,
+    ionic_strength_method: ctx.plan.method,
+    activity_model: k.activityModel,
+    activity_coefficients: { h: g.H, oh: g.OH, hco3: g.HCO3, co3: g.CO3, ca: g.Ca, mg: g.Mg, co2: g.neutral },
+    pksp_dolomite: -Math.log10(k.kspDolomite),
+    constants_infinite_dilution: {
+      pk0: -k.thermodynamic.k0,
+      pk1: -k.thermodynamic.k1,
+      pk2: -k.thermodynamic.k2,
+      pkw: -k.thermodynamic.kw,
+      pksp_calcite: -k.thermodynamic.kspCalcite,
+      pksp_aragonite: -k.thermodynamic.kspAragonite,
+      pksp_dolomite: -k.thermodynamic.kspDolomite,
+    },
+    alkalinity_mmol_kg: alkalinityFromEqKg(s.ta, 'mmol_kg', kgw),
+    alkalinity_mmol_l: alkalinityFromEqKg(s.ta, 'mmol_l', kgw),
+    alkalinity_meq_l: alkalinityFromEqKg(s.ta, 'meq_l', kgw),
+    alkalinity_mg_l_caco3: alkalinityFromEqKg(s.ta, 'mg_l_caco3', kgw),
+    alkalinity_mg_l_hco3: alkalinityFromEqKg(s.ta, 'mg_l_hco3', kgw),
+    alkalinity_ppm_caco3: alkalinityFromEqKg(s.ta, 'ppm_caco3', kgw),
+    alkalinity_dkh: alkalinityFromEqKg(s.ta, 'dkh', kgw),
+    air_pco2_uatm: ctx.fresh.airPco2Uatm,
+    pco2_excess_ratio: s.pco2 / airAtm,
+    ph_air_equilibrium: phAir,
+    dic_air_equilibrium_umol_kg: dicAir,
+    saturation_index_calcite: siCalcite,
+    saturation_index_aragonite: siAragonite,
+    saturation_index_dolomite: siDolomite,
+    ph_saturation_calcite: phs,
+    langelier_index: phs === undefined ? undefined : langelierIndex(ph, phs),
+    ryznar_index: phs === undefined ? undefined : ryznarIndex(ph, phs),
+    ccpp_mg_l_caco3: ccppMgL,
+    ph_after_ccpp: phAfterCcpp,
+    treatment_caution: hasCa ? TREATMENT_CAUTION : undefined,
+    charge_balance_error_percent: cbe,
+  };
+}
+
+function finiteSi(product: number, ksp: number): number | undefined {
+  return product > 0 && Number.isFinite(Math.log10(product)) ? saturationIndex(product, ksp) : undefined;
+}

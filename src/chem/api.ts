@@ -45,6 +45,7 @@ export interface SolveInput {
   calcium_umol_kg?: number;
   carbonic_constants?: CarbonicConstants;
   boron_total?: BoronTotal;
+  fluoride_constant?: 'perezfraga1987' | 'dicksonriley1979';
   output_temperature_c?: number;
   output_pressure_dbar?: number;
   /** Further keys (fresh-water ions, uncertainties, ...) are added by later capabilities. */
@@ -64,8 +65,9 @@ export interface SolvedWater {
   co2_umol_kg: number;
   hco3_umol_kg: number;
   co3_umol_kg: number;
-  omega_calcite: number;
-  omega_aragonite: number;
+  /** Null in the fresh model when calcium is not given (no saturation state without it). */
+  omega_calcite: number | null;
+  omega_aragonite: number | null;
   revelle_factor: number;
   /** p-values (−log10) of the constants used at output conditions, e.g. `pk1`. */
   constants: Record<string, number>;
@@ -83,6 +85,57 @@ export interface SolvedWater {
   input_conditions?: Conditions;
   /** Measured minus computed (at input conditions) for every extra carbonate parameter given. */
   misfit?: Partial<Record<CarbonateKey, number>>;
+  /** Why this model was used: the automatic choice and what it rests on, or "asked for". */
+  model_reason?: string;
+}
+
+/**
+ * Outputs only the fresh-water model gives (`model: "fresh"`). Keys that need calcium, magnesium
+ * or major ions are absent when those were not given. Concentrations per kg of water.
+ */
+export interface FreshWaterOutputs {
+  /** Activity pH (the fresh model's internal scale, NBS buffers). */
+  ph: number;
+  ionic_strength_mol_kg: number;
+  /** Which estimate I rests on: major-ions, given, conductance-russell-1976, ... */
+  ionic_strength_method: string;
+  activity_model: string;
+  activity_coefficients: {
+    h: number;
+    oh: number;
+    hco3: number;
+    co3: number;
+    ca: number;
+    mg: number;
+    co2: number;
+  };
+  pksp_dolomite: number;
+  alkalinity_mmol_kg: number;
+  alkalinity_mmol_l: number;
+  alkalinity_meq_l: number;
+  alkalinity_mg_l_caco3: number;
+  alkalinity_mg_l_hco3: number;
+  alkalinity_ppm_caco3: number;
+  alkalinity_dkh: number;
+  air_pco2_uatm: number;
+  /** pCO2 of the sample over that of the air. */
+  pco2_excess_ratio: number;
+  /** pH and DIC after CO2 exchange with the air to equilibrium at constant alkalinity. */
+  ph_air_equilibrium?: number;
+  dic_air_equilibrium_umol_kg?: number;
+  saturation_index_calcite?: number;
+  saturation_index_aragonite?: number;
+  saturation_index_dolomite?: number;
+  /** pH of calcite saturation at the sample's alkalinity and calcium. */
+  ph_saturation_calcite?: number;
+  langelier_index?: number;
+  ryznar_index?: number;
+  /** CaCO3 that precipitates (> 0) or dissolves (< 0) to calcite equilibrium, mg/L as CaCO3. */
+  ccpp_mg_l_caco3?: number;
+  ph_after_ccpp?: number;
+  /** Cautions shown with every index a reader might dose chemicals on. */
+  treatment_caution?: string;
+  charge_balance_error_percent?: number;
 }
 
 export interface Conditions {
@@ -91,7 +144,7 @@ export interface Conditions {
   pressure_dbar: number;
 }
 
-export interface SolveOutput extends SolvedWater {
+export interface SolveOutput extends SolvedWater, Partial<FreshWaterOutputs> {
   /** Other roots for two-root pairs, in the same shape. */
   alternatives?: SolvedWater[];
 }

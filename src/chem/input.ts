@@ -7,7 +7,10 @@
 
 import { CARBONATE_KEYS, type CarbonateKey, type ModelChoice } from './api';
 import { fail, type Issue, warning } from './errors';
+import { alkalinityFromFieldUnits, FRESH_INPUT_KEYS } from './fresh/request';
+import { salinityFromSpecificConductance } from './seawater/conductance';
 import type { MinorTotals, PhScale } from './types';
+import { densityKgL } from './units';
 
 export interface SolveRequest {
   temperatureC: number;
@@ -24,6 +27,7 @@ export interface SolveRequest {
   calciumMolKg: number | undefined;
   carbonic: 'lueker2000' | 'millero2010';
   boron: 'lee2010' | 'uppstrom1974';
+  fluoride: 'perezfraga1987' | 'dicksonriley1979';
   outTemperatureC: number;
   outPressureDbar: number;
   /** The pair to solve from when more than two parameters are given. */
@@ -53,8 +57,10 @@ export const KNOWN_INPUT_KEYS: ReadonlySet<string> = new Set([
   'calcium_umol_kg',
   'carbonic_constants',
   'boron_total',
+  'fluoride_constant',
   'output_temperature_c',
   'output_pressure_dbar',
+  ...FRESH_INPUT_KEYS,
   'pair',
   'root',
   // Free-text keys that travel with a row (CSV ids, notes) and are passed through untouched.
@@ -163,6 +169,18 @@ export function parseSolveInput(input: unknown): SolveRequest {
     measured[key] = v;
   }
 
+  // Alkalinity in field units (mg/L as CaCO3, meq/L, dKH) becomes µmol/kg with the density of the
+  // water (EOS-80 at the given salinity, or the one implied by the specific conductance, else 0).
+  const scRaw = raw.specific_conductance_us_cm;
+  const salinityForDensity =
+    salinity ?? (typeof scRaw === 'number' && scRaw >= 0 ? salinityFromSpecificConductance(scRaw) : 0);
+  const field = alkalinityFromFieldUnits(
+    raw,
+    densityKgL(salinityForDensity, temperatureC),
+    measured.alkalinity_umol_kg !== undefined,
+  );
+  if (field !== undefined) measured.alkalinity_umol_kg = field.umolKg;
+
   const minorAt = (key: string): number => {
     const v = numberAt(raw, key) ?? 0;
     if (v < 0) fail('negative-value', `${key} cannot be negative, got ${v}.`, key);
@@ -212,6 +230,12 @@ export function parseSolveInput(input: unknown): SolveRequest {
     calciumMolKg: calcium === undefined ? undefined : calcium * 1e-6,
     carbonic: optionAt(raw, 'carbonic_constants', ['lueker2000', 'millero2010'] as const, 'lueker2000'),
     boron: optionAt(raw, 'boron_total', ['lee2010', 'uppstrom1974'] as const, 'lee2010'),
+    fluoride: optionAt(
+      raw,
+      'fluoride_constant',
+      ['perezfraga1987', 'dicksonriley1979'] as const,
+      'perezfraga1987',
+    ),
     outTemperatureC,
     outPressureDbar,
     pair,

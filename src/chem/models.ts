@@ -3,7 +3,8 @@
  * the solver, the uncertainty propagation and the planners all get constants the same way.
  */
 
-import { fail } from './errors';
+import { decideModel, freshContext } from './fresh/setup';
+import { freshConstantsAt } from './fresh/solve-fresh';
 import type { SolveRequest } from './input';
 import { salineConstants } from './saline/constants';
 import type { ConstantSet, WaterModel } from './types';
@@ -21,12 +22,13 @@ export interface ConstantShifts {
   totalBoronFactor?: number;
 }
 
+/**
+ * The model for a request: `saline` and `fresh` are obeyed; `auto` decides from salinity or what
+ * stands for it (see `fresh/model-choice.ts` for the rule and why). Use {@link decideModel} for
+ * the reason and the brackish-water warning.
+ */
 export function resolveModel(req: SolveRequest): WaterModel {
-  if (req.model === 'fresh')
-    fail('model-unavailable', 'The fresh-water model is not available in this build.', 'model');
-  if (req.salinity === undefined)
-    fail('missing-salinity', 'salinity is required for the saline model.', 'salinity');
-  return 'saline';
+  return decideModel(req).model;
 }
 
 /** The constant set at the given temperature and pressure, with shifts applied when asked. */
@@ -38,12 +40,17 @@ export function constantsFor(
   shifts?: ConstantShifts,
 ): ConstantSet {
   const cond = { temperatureC, salinity: req.salinity ?? 0, pressureDbar };
-  const opts =
-    req.calciumMolKg === undefined
-      ? { carbonic: req.carbonic, boron: req.boron }
-      : { carbonic: req.carbonic, boron: req.boron, calcium_mol_kg: req.calciumMolKg };
+  const base = { carbonic: req.carbonic, boron: req.boron, fluoride: req.fluoride };
+  const opts = req.calciumMolKg === undefined ? base : { ...base, calcium_mol_kg: req.calciumMolKg };
+  // The fresh model at its first ionic-strength estimate; `solve()` iterates I where it depends on
+  // the solved species (major ions), so callers wanting that exact value should go through solve().
   const k =
-    model === 'saline' ? salineConstants(cond, opts) : fail('model-unavailable', 'No fresh-water model.');
+    model === 'saline'
+      ? salineConstants(cond, opts)
+      : (() => {
+          const ctx = freshContext(req);
+          return freshConstantsAt(cond, ctx.plan.initial, ctx);
+        })();
   return shifts ? applyShifts(k, shifts) : k;
 }
 

@@ -7,10 +7,13 @@
  * there again; report every output, the misfit of extra measurements, warnings and formulations.
  */
 
-import type { CarbonateKey, SolvedWater, SolveOutput, SolveResult } from './api';
+import type { CarbonateKey, FreshWaterOutputs, SolvedWater, SolveOutput, SolveResult } from './api';
 import { type Issue, toIssue, warning } from './errors';
+import type { FreshConstantSet } from './fresh/constants';
+import { decideModel, freshContext } from './fresh/setup';
+import { type FreshContext, freshOutputs, solveAtIonicStrength } from './fresh/solve-fresh';
 import { choosePair, parseSolveInput, type SolveRequest } from './input';
-import { type ConstantShifts, constantsFor, resolveModel } from './models';
+import { applyShifts, type ConstantShifts, constantsFor } from './models';
 import { revelleFactor } from './solver/buffer';
 import { type Param, solvePair } from './solver/pairs';
 import type { CarbonateState, ConstantSet, MinorTotals, PhScale, WaterModel } from './types';
@@ -77,21 +80,100 @@ function fromState(key: CarbonateKey, s: CarbonateState, scale: PhScale, k: Cons
   }
 }
 
-export function solveRequest(req: SolveRequest, options: SolveOptions = {}): SolveOutput {
-  const model = resolveModel(req);
-  const kIn = constantsFor(req, model, req.temperatureC, req.pressureDbar, options.shifts);
+export function solveRequest(reqIn: SolveRequest, options: SolveOptions = {}): SolveOutput {
+  const decision = decideModel(reqIn);
+  const model = decision.model;
+  const req: SolveRequest =
+    model === 'saline' && reqIn.salinity === undefined ? { ...reqIn, salinity: decision.salinity } : reqIn;
+  // In the fresh model `ph` is the activity pH unless a scale is named.
+  const phScale: PhScale = model === 'fresh' && req.raw.ph_scale === undefined ? 'nbs' : req.phScale;
+  const fresh = model === 'fresh' ? freshContext(req, decision.fresh) : undefined;
+
   const [a, b] = choosePair(req);
-  const va = toInternal(a, req.measured[a]!, req.phScale, kIn);
-  const vb = toInternal(b, req.measured[b]!, req.phScale, kIn);
-  let roots = solvePair(PARAM_OF[a], va, PARAM_OF[b], vb, kIn, req.minor);
-  if (req.root === 'low-ph') roots = [...roots].reverse();
-
+  const solveIn = (k: ConstantSet): CarbonateState[] => {
+    const va = toInternal(a, req.measured[a]!, phScale, k);
+    const vb = toInternal(b, req.measured[b]!, phScale, k);
+    return solvePair(PARAM_OF[a], va, PARAM_OF[b], vb, k, req.minor);
+  };
   const sameConditions = req.outTemperatureC === req.temperatureC && req.outPressureDbar === req.pressureDbar;
-  const kOut = sameConditions
-    ? kIn
-    : constantsFor(req, model, req.outTemperatureC, req.outPressureDbar, options.shifts);
+  const warnings: Issue[] = [...req.warnings, ...decision.warnings];
 
-  const warnings: Issue[] = [...req.warnings];
+  // Each root carries its own constants: in the fresh model the ionic strength may depend on the
+  // species, so two roots of one pair can sit at two ionic strengths.
+  let kIns: ConstantSet[];
+  let kOuts: ConstantSet[];
+  let roots: CarbonateState[];
+  let outStates: CarbonateState[];
+  if (fresh === undefined) {
+    const kIn = constantsFor(req, model, req.temperatureC, req.pressureDbar, options.shifts);
+    roots = solveIn(kIn);
+    if (req.root === 'low-ph') roots = [...roots].reverse();
+    const kOut = sameConditions
+      ? kIn
+      : constantsFor(req, model, req.outTemperatureC, req.outPressureDbar, options.shifts);
+    outStates = sameConditions
+      ? roots
+      : roots.map((s) => solvePair('ta', s.ta, 'dic', s.dic, kOut, req.minor)[0]!);
+    kIns = roots.map(() => kIn);
+    kOuts = roots.map(() => kOut);
+  } else {
+    const shift = (k: FreshConstantSet): FreshConstantSet =>
+      options.shifts ? { ...k, ...applyShifts(k, options.shifts), model: 'fresh' } : k;
+    const condIn = {
+      temperatureC: req.temperatureC,
+      salinity: req.salinity ?? 0,
+      pressureDbar: req.pressureDbar,
+    };
+    const nearest = (states: CarbonateState[], h: number): CarbonateState =>
+      states.reduce((best, x) => (Math.abs(Math.log(x.h / h)) < Math.abs(Math.log(best.h / h)) ? x : best));
+    const first = solveAtIonicStrength(
+      condIn,
+      fresh,
+      (k) => solveIn(shift(k)),
+      (r) => r[0]!,
+    );
+    addUnique(warnings, first.warnings);
+    let perRoot = first.result.map((s0, j) => {
+      if (j === 0 || !fresh.plan.iterate) return { k: shift(first.k), s: s0 };
+      // Follow this root through the ionic-strength iteration.
+      const own = solveAtIonicStrength(
+        condIn,
+        fresh,
+        (k) => solveIn(shift(k)),
+        (r) => nearest(r, s0.h),
+      );
+      addUnique(warnings, own.warnings);
+      return { k: shift(own.k), s: nearest(own.result, s0.h) };
+    });
+    if (req.root === 'low-ph') perRoot = [...perRoot].reverse();
+    roots = perRoot.map((r) => r.s);
+    kIns = perRoot.map((r) => r.k);
+    if (sameConditions) {
+      outStates = roots;
+      kOuts = kIns;
+    } else {
+      // TA and DIC are conserved; I is re-iterated at output conditions when it depends on species.
+      const condOut = {
+        temperatureC: req.outTemperatureC,
+        salinity: condIn.salinity,
+        pressureDbar: req.outPressureDbar,
+      };
+      const outs = roots.map((s) =>
+        solveAtIonicStrength(
+          condOut,
+          fresh,
+          (k) => solvePair('ta', s.ta, 'dic', s.dic, shift(k), req.minor)[0]!,
+          (x) => x,
+        ),
+      );
+      for (const o of outs) addUnique(warnings, o.warnings);
+      outStates = outs.map((o) => o.result);
+      kOuts = outs.map((o) => shift(o.k));
+    }
+  }
+  const kIn = kIns[0]!;
+  const kOut = kOuts[0]!;
+
   addUnique(warnings, kIn.warnings);
   if (!sameConditions) addUnique(warnings, kOut.warnings);
   if (roots.length > 1) {
@@ -103,11 +185,12 @@ export function solveRequest(req: SolveRequest, options: SolveOptions = {}): Sol
     );
   }
 
-  const outputs = roots.map((inState) => {
-    const out = sameConditions
-      ? inState
-      : solvePair('ta', inState.ta, 'dic', inState.dic, kOut, req.minor)[0]!;
-    return describe(out, kOut, req.minor, model, [a, b], warnings);
+  const outputs = outStates.map((out, j) => {
+    const k = kOuts[j]!;
+    const o = describe(out, k, req.minor, model, [a, b], warnings);
+    o.model_reason = decision.reason;
+    if (fresh !== undefined) addFreshOutputs(o, out, k as FreshConstantSet, fresh, warnings);
+    return o;
   });
   const primary: SolveOutput = outputs[0]!;
 
@@ -115,7 +198,7 @@ export function solveRequest(req: SolveRequest, options: SolveOptions = {}): Sol
   let anyMisfit = false;
   for (const key of Object.keys(req.measured) as CarbonateKey[]) {
     if (key === a || key === b) continue;
-    misfit[key] = req.measured[key]! - fromState(key, roots[0]!, req.phScale, kIn);
+    misfit[key] = req.measured[key]! - fromState(key, roots[0]!, phScale, kIn);
     anyMisfit = true;
   }
   if (anyMisfit) primary.misfit = misfit;
@@ -128,6 +211,33 @@ export function solveRequest(req: SolveRequest, options: SolveOptions = {}): Sol
     };
   }
   return primary;
+}
+
+/** Common practice for water analyses: a charge-balance error beyond ±5 % points to a missing ion or a bad value. */
+const CHARGE_BALANCE_LIMIT_PERCENT = 5;
+
+function addFreshOutputs(
+  o: SolvedWater & Partial<FreshWaterOutputs>,
+  s: CarbonateState,
+  k: FreshConstantSet,
+  ctx: FreshContext,
+  warnings: Issue[],
+): void {
+  Object.assign(o, freshOutputs(s, k, ctx));
+  if (ctx.calciumMolKg === undefined) {
+    // Without calcium there is no saturation state: null, never a made-up zero.
+    o.omega_calcite = null;
+    o.omega_aragonite = null;
+  }
+  const cbe = o.charge_balance_error_percent;
+  if (typeof cbe === 'number' && Math.abs(cbe) > CHARGE_BALANCE_LIMIT_PERCENT) {
+    addUnique(warnings, [
+      warning(
+        'charge-balance',
+        `The ions given balance to ${cbe.toFixed(1)} % (more than ±${CHARGE_BALANCE_LIMIT_PERCENT} %, common practice): an ion is missing or a value is off, so the ionic strength is uncertain.`,
+      ),
+    ]);
+  }
 }
 
 function addUnique(into: Issue[], from: readonly Issue[]): void {

@@ -3,7 +3,9 @@
  * TypeScript sources, so it works right after `npm ci`.
  */
 
+import { runConvert } from './convert';
 import { type CliIo, EXIT_OK, EXIT_USAGE } from './io';
+import { runPlan } from './plan';
 import { runSolve } from './solve';
 
 type Command = (args: string[], io: CliIo) => Promise<number>;
@@ -12,6 +14,14 @@ const COMMANDS: Record<string, { run: Command; summary: string }> = {
   solve: {
     run: runSolve,
     summary: 'carbonate system from two or more measured parameters (JSON Lines or CSV)',
+  },
+  convert: {
+    run: runConvert,
+    summary: 'a value between units; salinity, conductance, density and specific gravity',
+  },
+  plan: {
+    run: runPlan,
+    summary: 'what a water will be after a dose, CO2 exchange or mixing; the dose for a target',
   },
 };
 

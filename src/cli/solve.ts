@@ -29,12 +29,27 @@ Input: one JSON object per line (or a CSV whose header row uses the same names).
     hco3_umol_kg, co3_umol_kg
   optional: phosphate_umol_kg silicate_umol_kg ammonia_umol_kg sulfide_umol_kg calcium_umol_kg
             carbonic_constants (lueker2000 | millero2010)   boron_total (lee2010 | uppstrom1974)
+            fluoride_constant (perezfraga1987 | dicksonriley1979)
             output_temperature_c output_pressure_dbar   pair (e.g. "ph+alkalinity_umol_kg")
             root (high-ph | low-ph: which root of a two-root pair is reported first)
+  model                  saline | fresh | auto (default). auto: fresh below salinity 2, from salinity,
+                         else specific conductance, ionic strength or TDS; S 0.5–5 warns (brackish)
+  fresh water (ph is the activity pH, ph_scale nbs, unless ph_scale is given):
+    alkalinity_mg_l_caco3 | alkalinity_meq_l | alkalinity_dkh   (instead of alkalinity_umol_kg)
+    calcium_mg_l magnesium_mg_l sodium_mg_l potassium_mg_l chloride_mg_l sulfate_mg_l
+    ionic_strength_mol_kg specific_conductance_us_cm (at 25 °C) tds_mg_l
+      ionic strength from, in order: the major ions, the value given, conductance, TDS
+    air_pco2_uatm (default 420)   activity_model (davies | debye-huckel | truesdell-jones)
+    conductance_factor (russell-1976 | griffin-jurinak-1973)   dolomite_form (ordered | disordered)
 
 Output (at output conditions): alkalinity_umol_kg dic_umol_kg ph_total ph_free ph_seawater ph_nbs
   pco2_uatm fco2_uatm co2_umol_kg hco3_umol_kg co3_umol_kg omega_calcite omega_aragonite
-  revelle_factor constants model formulations warnings pair [alternatives] [misfit]
+  revelle_factor constants model model_reason formulations warnings pair [alternatives] [misfit]
+  fresh model adds: ph (activity) ionic_strength_mol_kg ionic_strength_method activity_coefficients
+    saturation_index_calcite/_aragonite/_dolomite ph_saturation_calcite langelier_index ryznar_index
+    ccpp_mg_l_caco3 ph_after_ccpp charge_balance_error_percent pco2_excess_ratio air_pco2_uatm
+    ph_air_equilibrium dic_air_equilibrium_umol_kg alkalinity_{mmol_kg,mmol_l,meq_l,mg_l_caco3,
+    mg_l_hco3,ppm_caco3,dkh} treatment_caution (omega_* are null without calcium)
   A failed line: {"error": {"code": "...", "message": "..."}}.
 
 Exit status: 0 every line solved, 1 some line failed, 2 unusable arguments.
@@ -61,6 +76,25 @@ const CSV_OUTPUTS = [
   'omega_aragonite',
   'revelle_factor',
 ] as const;
+/** Fresh-model columns (empty for saline rows and where calcium, magnesium or ions were not given). */
+const CSV_FRESH = [
+  'ph',
+  'ionic_strength_mol_kg',
+  'ionic_strength_method',
+  'saturation_index_calcite',
+  'saturation_index_aragonite',
+  'saturation_index_dolomite',
+  'ph_saturation_calcite',
+  'langelier_index',
+  'ryznar_index',
+  'ccpp_mg_l_caco3',
+  'charge_balance_error_percent',
+  'pco2_excess_ratio',
+  'ph_air_equilibrium',
+  'alkalinity_meq_l',
+  'alkalinity_mg_l_caco3',
+  'alkalinity_dkh',
+] as const;
 const CSV_CONSTANTS = ['pk0', 'pk1', 'pk2', 'pkw', 'pkb', 'pksp_calcite', 'pksp_aragonite'] as const;
 const CSV_PASSTHROUGH = ['id', 'label'] as const;
 /** Keys whose CSV cells are text; every other known key is a number. */
@@ -69,8 +103,12 @@ const TEXT_KEYS = new Set([
   'ph_scale',
   'carbonic_constants',
   'boron_total',
+  'fluoride_constant',
   'pair',
   'root',
+  'activity_model',
+  'conductance_factor',
+  'dolomite_form',
   ...CSV_PASSTHROUGH,
   'notes',
 ]);
@@ -131,6 +169,7 @@ function solveCsv(file: string, io: CliIo): number {
       ...CSV_PASSTHROUGH,
       ...CSV_OUTPUTS,
       ...CSV_CONSTANTS,
+      ...CSV_FRESH,
       'model',
       'pair',
       'warnings',
@@ -155,6 +194,7 @@ function solveCsv(file: string, io: CliIo): number {
           ...pass,
           ...CSV_OUTPUTS.map(() => ''),
           ...CSV_CONSTANTS.map(() => ''),
+          ...CSV_FRESH.map(() => ''),
           '',
           '',
           '',
@@ -169,6 +209,7 @@ function solveCsv(file: string, io: CliIo): number {
         ...pass,
         ...CSV_OUTPUTS.map((k) => r[k]),
         ...CSV_CONSTANTS.map((k) => r.constants[k]),
+        ...CSV_FRESH.map((k) => r[k]),
         r.model,
         r.pair.join('+'),
         r.warnings.map((w) => `${w.code}: ${w.message}`).join(' | '),

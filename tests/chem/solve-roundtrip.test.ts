@@ -67,7 +67,14 @@ describe('round trips through solve() with real constants (t 0–40 °C, S 0–4
         fc.double({ min: 6.5, max: 9.5, noNaN: true }),
         fc.double({ min: 300, max: 4000, noNaN: true }),
         (t, s, ph, dic) => {
-          const base = { temperature_c: t, salinity: s, phosphate_umol_kg: 1, silicate_umol_kg: 10 };
+          // model saline: below S 2 the automatic choice would take the fresh model, where ph is the activity pH.
+          const base = {
+            model: 'saline',
+            temperature_c: t,
+            salinity: s,
+            phosphate_umol_kg: 1,
+            silicate_umol_kg: 10,
+          };
           const truth = solved({ ...base, ph, dic_umol_kg: dic });
           for (const [a, b] of PAIRS) {
             const again = solved({ ...base, [a]: truth[OUTPUT_OF[a]], [b]: truth[OUTPUT_OF[b]] });

@@ -99,3 +99,56 @@ export function k2Millero2010(
   const c = -3.374 * sqrtS;
   return Math.exp(-(pk0 + a + b / tK + c * lnT) * LN10);
 }
+
+/**
+ * K1 on the seawater scale, Millero (2010) seawater-scale coefficient set (memory):
+ * A1 = 13.4051 √S + 0.03185 S − 5.218e−5 S², B1 = −531.095 √S − 5.7789 S, C1 = −2.0663 √S,
+ * same pure-water part as {@link k1Millero2010}. Not used by the model (it works on the total
+ * scale); kept so the tests can compare the two printed sets. Converted to the total scale they
+ * differ from the total-scale set by about 0.01 in pK1 at S 35 (the whole size of the scale
+ * offset): see the consistency test and the issue note.
+ * @param tK temperature, K
+ * @param s practical salinity
+ * @returns K1 in mol kg-1 (seawater scale)
+ * Valid t 0–50 °C, S 1–50.
+ */
+export function k1Millero2010SeawaterScale(tK: number, s: number): number {
+  const lnT = Math.log(tK);
+  const r = Math.sqrt(s);
+  const pk0 = -126.34048 + 6320.813 / tK + 19.568224 * lnT;
+  return Math.exp(
+    -(
+      pk0 +
+      13.4051 * r +
+      0.03185 * s -
+      5.218e-5 * s * s +
+      (-531.095 * r - 5.7789 * s) / tK -
+      2.0663 * r * lnT
+    ) * LN10,
+  );
+}
+
+/**
+ * K2 on the seawater scale, Millero (2010) seawater-scale coefficient set (memory):
+ * A2 = 21.5724 √S + 0.1212 S − 3.714e−4 S², B2 = −798.292 √S − 18.951 S, C2 = −3.403 √S.
+ * Kept for the same comparison as {@link k1Millero2010SeawaterScale}.
+ * @param tK temperature, K
+ * @param s practical salinity
+ * @returns K2 in mol kg-1 (seawater scale)
+ * Valid t 0–50 °C, S 1–50.
+ */
+export function k2Millero2010SeawaterScale(tK: number, s: number): number {
+  const lnT = Math.log(tK);
+  const r = Math.sqrt(s);
+  const pk0 = -90.18333 + 5143.692 / tK + 14.613358 * lnT;
+  return Math.exp(
+    -(
+      pk0 +
+      21.5724 * r +
+      0.1212 * s -
+      3.714e-4 * s * s +
+      (-798.292 * r - 18.951 * s) / tK -
+      3.403 * r * lnT
+    ) * LN10,
+  );
+}

@@ -8,7 +8,8 @@
  * Speed: this runs once per row in batch solves, so per call it allocates only the returned set,
  * its `conditions` copy and its `scaleFactor` record. `formulations` is one frozen object per
  * option combination, and `warnings` is one shared frozen empty array when there are none — copy
- * it before adding to it.
+ * it before adding to it. When there are warnings the array is new but its Issue objects are shared
+ * and frozen (see `issues.ts`).
  */
 
 import type { BoronTotal, CarbonicConstants } from '../api';
@@ -164,13 +165,14 @@ function checkCondition(
   what: string,
   limits: readonly [number, number],
   unit: string,
+  hint: string,
 ): void {
   if (typeof x !== 'number' || !Number.isFinite(x))
     fail(CONDITION_NOT_FINITE, `The ${what} is missing or not a number.`, field);
   if (x < limits[0] || x > limits[1])
     fail(
       CONDITION_OUT_OF_RANGE,
-      `A ${what} of ${x}${unit} is outside ${limits[0]}–${limits[1]}${unit}, where the saline model cannot be evaluated.`,
+      `A ${what} of ${x}${unit} is outside ${limits[0]}–${limits[1]}${unit}, where the saline model cannot be evaluated (${hint}).`,
       field,
     );
 }
@@ -185,9 +187,23 @@ export function salineConstants(cond: Conditions, opts?: SalineOptions): Constan
   const tC = cond.temperatureC;
   const s = cond.salinity;
   const pDbar = cond.pressureDbar;
-  checkCondition(tC, FIELD_TEMPERATURE, 'temperature', HARD_LIMITS.temperatureC, ' °C');
-  checkCondition(s, FIELD_SALINITY, 'salinity', HARD_LIMITS.salinity, '');
-  checkCondition(pDbar, FIELD_PRESSURE, 'pressure', HARD_LIMITS.pressureDbar, ' dbar');
+  checkCondition(tC, FIELD_TEMPERATURE, 'temperature', HARD_LIMITS.temperatureC, ' °C', 'liquid water only');
+  checkCondition(
+    s,
+    FIELD_SALINITY,
+    'salinity',
+    HARD_LIMITS.salinity,
+    '',
+    'practical salinity, 35 for the open ocean',
+  );
+  checkCondition(
+    pDbar,
+    FIELD_PRESSURE,
+    'pressure',
+    HARD_LIMITS.pressureDbar,
+    ' dbar',
+    'applied pressure, 0 at the surface',
+  );
 
   const carbonic = opts?.carbonic ?? 'lueker2000';
   const boron = opts?.boron ?? 'lee2010';

@@ -69,6 +69,12 @@ describe('salineConstants', () => {
   it('returns the ConstantSet contract', () => {
     expectTypeOf(salineConstants).returns.toEqualTypeOf<ConstantSet>();
     expectTypeOf(salineConstants).parameter(0).toEqualTypeOf<Conditions>();
+    expectTypeOf<SalineOptions>().toEqualTypeOf<{
+      carbonic?: 'lueker2000' | 'millero2010';
+      boron?: 'lee2010' | 'uppstrom1974';
+      fluoride?: 'perezfraga1987' | 'dicksonriley1979';
+      calcium_mol_kg?: number;
+    }>();
   });
 
   it('at the surface, default options, every field is the formulation it names', () => {

@@ -1,0 +1,285 @@
+/**
+ * The fresh-water model: thermodynamic constants (infinite dilution) turned into the "mixed"
+ * conditional constants the solver consumes, with H+ as activity (internal scale = NBS/activity)
+ * and every other species as a concentration in mol/kg of water:
+ *   K1' = K1·γCO2/γHCO3, K2' = K2·γHCO3/γCO3, Kw' = Kw/γOH, K0' = K0/γCO2, Ksp' = Ksp/(γCa·γCO3),
+ * and likewise for the minor acids. γ of neutral species (CO2*, B(OH)3, NH3, ...) carries the
+ * salting-out term log γ = 0.1 I unless `saltingOut: false` (see `logGammaNeutral`).
+ * Constants on the FREE scale (KS, KF) divide by γH as well, since [H+]free = aH/γH.
+ */
+
+import { fail, type Issue, warning } from '../errors';
+import { T0_K } from '../physical';
+import type { Conditions, ConstantSet, MinorTotals } from '../types';
+import {
+  ACTIVITY_RANGE_MOL_KG,
+  type ActivityCoefficients,
+  type ActivityModel,
+  activityCoefficients,
+} from './activity';
+import {
+  BATES_PHOSPHATE_RANGE_C,
+  BATES_PINCHING_1949_RANGE_C,
+  DICKSON_1990_RANGE_C,
+  fugacityFactorWeiss1974,
+  HARNED_OWEN_1958_RANGE_C,
+  logK1PlummerBusenberg1982,
+  logK1pBates1951,
+  logK2PlummerBusenberg1982,
+  logK2pBatesAcree1943,
+  logK3pNordstrom1990,
+  logKbDickson1990S0,
+  logKfNordstrom1990,
+  logKh2sNordstrom1990,
+  logKhPlummerBusenberg1982,
+  logKnh4BatesPinching1949,
+  logKsiNordstrom1990,
+  logKsNordstrom1990,
+  logKspAragonitePlummerBusenberg1982,
+  logKspCalcitePlummerBusenberg1982,
+  logKspDolomiteNordstrom1990,
+  logKwHarnedOwen1958,
+  PLUMMER_BUSENBERG_1982_RANGE_C,
+  VANT_HOFF_RANGE_C,
+  WEISS_1974_RANGE_C,
+} from './thermo';
+import { pushRange } from './validity';
+
+export interface FreshOptions {
+  /** Ionic strength, mol/kg of water (≥ 0). */
+  ionicStrength: number;
+  /** Activity-coefficient equation; Davies by default. */
+  activity?: ActivityModel;
+  /** Salting-out of neutral species, log γ = 0.1 I (default true). */
+  saltingOut?: boolean;
+  /** Dolomite of Nordstrom et al. (1990): ordered (default) or disordered. */
+  dolomite?: 'ordered' | 'disordered';
+  /** Totals given by the user, mol/kg of water; all default to 0 in fresh water. */
+  totalBoron?: number;
+  totalSulfate?: number;
+  totalFluoride?: number;
+  calcium?: number;
+  magnesium?: number;
+  /** Minor acid totals, only used to decide which validity warnings apply. */
+  minorTotals?: Partial<MinorTotals>;
+}
+
+/** Thermodynamic log10 K values before activity corrections (for output and tests). */
+export interface ThermodynamicLogK {
+  k0: number;
+  k1: number;
+  k2: number;
+  kw: number;
+  kb: number;
+  ks: number;
+  kf: number;
+  k1p: number;
+  k2p: number;
+  k3p: number;
+  ksi: number;
+  knh4: number;
+  kh2s: number;
+  kspCalcite: number;
+  kspAragonite: number;
+  kspDolomite: number;
+}
+
+/** The fresh ConstantSet plus what the fresh outputs need (kept out of the shared contract). */
+export interface FreshConstantSet extends ConstantSet {
+  model: 'fresh';
+  ionicStrength: number;
+  activityModel: ActivityModel;
+  gamma: ActivityCoefficients;
+  /** Conditional dolomite product for Ω = [Ca][Mg][CO3]² / Ksp', mol4 kg-4. */
+  kspDolomite: number;
+  magnesium: number;
+  thermodynamic: ThermodynamicLogK;
+}
+
+const ACTIVITY_NAMES: Record<ActivityModel, string> = {
+  davies: 'Davies (1962), A from Malmberg & Maryott (1956) permittivity',
+  'debye-huckel': 'extended Debye–Hückel, ion sizes of Kielland (1937)',
+  'truesdell-jones': 'Truesdell & Jones (1974), Kielland (1937) sizes where they give none',
+};
+
+/** Builds the fresh-water ConstantSet at the given conditions and ionic strength. */
+export function freshConstants(cond: Conditions, opts: FreshOptions): FreshConstantSet {
+  const tC = cond.temperatureC;
+  if (!Number.isFinite(tC) || tC <= -T0_K) {
+    fail(
+      'bad-temperature',
+      `Temperature must be a number above absolute zero (got ${String(tC)}).`,
+      'temperature_c',
+    );
+  }
+  const I = opts.ionicStrength;
+  if (!Number.isFinite(I) || I < 0) {
+    fail(
+      'bad-ionic-strength',
+      `Ionic strength must be a number ≥ 0 mol/kg (got ${String(I)}).`,
+      'ionic_strength_mol_kg',
+    );
+  }
+  const model = opts.activity ?? 'davies';
+  const saltingOut = opts.saltingOut ?? true;
+  const tK = tC + T0_K;
+  const g = activityCoefficients(tC, I, model, saltingOut);
+
+  const th: ThermodynamicLogK = {
+    k0: logKhPlummerBusenberg1982(tK),
+    k1: logK1PlummerBusenberg1982(tK),
+    k2: logK2PlummerBusenberg1982(tK),
+    kw: logKwHarnedOwen1958(tK),
+    kb: logKbDickson1990S0(tK),
+    ks: logKsNordstrom1990(tK),
+    kf: logKfNordstrom1990(tK),
+    k1p: logK1pBates1951(tK),
+    k2p: logK2pBatesAcree1943(tK),
+    k3p: logK3pNordstrom1990(tK),
+    ksi: logKsiNordstrom1990(tK),
+    knh4: logKnh4BatesPinching1949(tK),
+    kh2s: logKh2sNordstrom1990(tK),
+    kspCalcite: logKspCalcitePlummerBusenberg1982(tK),
+    kspAragonite: logKspAragonitePlummerBusenberg1982(tK),
+    kspDolomite: logKspDolomiteNordstrom1990(tK, opts.dolomite ?? 'ordered'),
+  };
+
+  const gn = g.neutral;
+  const ks = (10 ** th.ks * g.HSO4) / (g.H * g.SO4);
+  const kf = (10 ** th.kf * gn) / (g.H * g.F);
+  const totalSulfate = opts.totalSulfate ?? 0;
+  const totalFluoride = opts.totalFluoride ?? 0;
+  const free = 1 / g.H;
+
+  const warnings = freshValidity(tC, cond.pressureDbar, I, model, opts);
+
+  return {
+    model: 'fresh',
+    conditions: cond,
+    k0: 10 ** th.k0 / gn,
+    fugacityFactor: fugacityFactorWeiss1974(tK),
+    k1: (10 ** th.k1 * gn) / g.HCO3,
+    k2: (10 ** th.k2 * g.HCO3) / g.CO3,
+    kw: 10 ** th.kw / g.OH,
+    kb: (10 ** th.kb * gn) / g.BOH4,
+    ks,
+    kf,
+    k1p: (10 ** th.k1p * gn) / g.H2PO4,
+    k2p: (10 ** th.k2p * g.H2PO4) / g.HPO4,
+    k3p: (10 ** th.k3p * g.HPO4) / g.PO4,
+    ksi: (10 ** th.ksi * gn) / g.H3SiO4,
+    knh4: (10 ** th.knh4 * g.NH4) / gn,
+    kh2s: (10 ** th.kh2s * gn) / g.HS,
+    kspCalcite: 10 ** th.kspCalcite / (g.Ca * g.CO3),
+    kspAragonite: 10 ** th.kspAragonite / (g.Ca * g.CO3),
+    kspDolomite: 10 ** th.kspDolomite / (g.Ca * g.Mg * g.CO3 * g.CO3),
+    totalBoron: opts.totalBoron ?? 0,
+    totalSulfate,
+    totalFluoride,
+    calcium: opts.calcium ?? 0,
+    magnesium: opts.magnesium ?? 0,
+    freeHFactor: free,
+    scaleFactor: {
+      nbs: 1,
+      free,
+      total: free * (1 + totalSulfate / ks),
+      seawater: free * (1 + totalSulfate / ks + totalFluoride / kf),
+    },
+    ionicStrength: I,
+    activityModel: model,
+    gamma: g,
+    thermodynamic: th,
+    formulations: {
+      k0: 'Plummer & Busenberg 1982',
+      k1: 'Plummer & Busenberg 1982',
+      k2: 'Plummer & Busenberg 1982',
+      kw: 'Harned & Owen 1958',
+      kb: 'Dickson 1990b at S = 0',
+      ks: 'Nordstrom et al. 1990 (van t Hoff)',
+      kf: 'Nordstrom et al. 1990 (van t Hoff)',
+      k1p: 'Bates 1951',
+      k2p: 'Bates & Acree 1943',
+      k3p: 'Nordstrom et al. 1990 (van t Hoff)',
+      ksi: 'Nordstrom et al. 1990 (van t Hoff)',
+      knh4: 'Bates & Pinching 1949',
+      kh2s: 'Nordstrom et al. 1990 (van t Hoff)',
+      ksp_calcite: 'Plummer & Busenberg 1982',
+      ksp_aragonite: 'Plummer & Busenberg 1982',
+      ksp_dolomite: `Nordstrom et al. 1990, ${opts.dolomite ?? 'ordered'} (van t Hoff)`,
+      fugacity: 'Weiss 1974',
+      activity: ACTIVITY_NAMES[model],
+      neutral_species: saltingOut ? 'log γ = 0.1 I (salting-out)' : 'γ = 1',
+    },
+    warnings,
+  };
+}
+
+const ACTIVITY_LABEL: Record<ActivityModel, string> = {
+  davies: 'The Davies equation',
+  'debye-huckel': 'The extended Debye–Hückel equation',
+  'truesdell-jones': 'The Truesdell–Jones equation',
+};
+
+/** Validity warnings of every formulation the fresh model uses at these conditions. */
+export function freshValidity(
+  tC: number,
+  pressureDbar: number,
+  ionicStrength: number,
+  model: ActivityModel,
+  opts: Pick<FreshOptions, 'totalBoron' | 'totalSulfate' | 'totalFluoride' | 'magnesium' | 'minorTotals'>,
+): Issue[] {
+  const out: Issue[] = [];
+  const T = 'temperature';
+  const f = 'temperature_c';
+  pushRange(out, 'Plummer & Busenberg (1982)', T, tC, PLUMMER_BUSENBERG_1982_RANGE_C, '°C', f);
+  pushRange(out, 'Harned & Owen (1958) Kw', T, tC, HARNED_OWEN_1958_RANGE_C, '°C', f);
+  pushRange(out, 'Weiss (1974) fugacity', T, tC, WEISS_1974_RANGE_C, '°C', f);
+  pushRange(
+    out,
+    `The ${model} activity equation`,
+    'ionic strength',
+    ionicStrength,
+    ACTIVITY_RANGE_MOL_KG[model],
+    'mol/kg',
+    'ionic_strength_mol_kg',
+  );
+  if ((opts.totalBoron ?? 0) > 0)
+    pushRange(out, 'Dickson (1990b) KB at S = 0', T, tC, DICKSON_1990_RANGE_C, '°C', f);
+  if ((opts.totalSulfate ?? 0) > 0 || (opts.totalFluoride ?? 0) > 0 || (opts.magnesium ?? 0) > 0) {
+    pushRange(
+      out,
+      'The van t Hoff extrapolations (Nordstrom et al. 1990)',
+      T,
+      tC,
+      VANT_HOFF_RANGE_C,
+      '°C',
+      f,
+    );
+  }
+  const m = opts.minorTotals ?? {};
+  if ((m.phosphate ?? 0) > 0)
+    pushRange(out, 'Bates (1951) / Bates & Acree (1943) phosphate', T, tC, BATES_PHOSPHATE_RANGE_C, '°C', f);
+  if ((m.ammonia ?? 0) > 0)
+    pushRange(out, 'Bates & Pinching (1949) ammonium', T, tC, BATES_PINCHING_1949_RANGE_C, '°C', f);
+  if ((m.silicate ?? 0) > 0 || (m.sulfide ?? 0) > 0) {
+    pushRange(
+      out,
+      'The van t Hoff extrapolations (Nordstrom et al. 1990)',
+      T,
+      tC,
+      VANT_HOFF_RANGE_C,
+      '°C',
+      f,
+    );
+  }
+  if (pressureDbar > 0) {
+    out.push(
+      warning(
+        'fresh-pressure-ignored',
+        'The fresh-water model has no pressure corrections: constants are for 1 atm, the applied pressure is ignored.',
+        'pressure_dbar',
+      ),
+    );
+  }
+  return out;
+}

@@ -1,0 +1,224 @@
+/**
+ * The fresh-water keys of a solve request: major ions in mg/L, ionic strength or what stands for
+ * it, alkalinity in field units, the air pCO2 for the equilibrium pH, and the model options.
+ * Read from the raw JSON object, checked, and turned into mol/kg of water.
+ */
+
+import { fail, type Issue, warning } from '../errors';
+import { alkalinityToEqKg } from '../units';
+import type { ActivityModel } from './activity';
+import {
+  hasMajorIons,
+  type IonicStrengthMethod,
+  ionicStrengthFromConductance,
+  ionicStrengthFromTds,
+  type MajorIonsMgL,
+} from './ionic-strength';
+import { ionicStrengthFromSalinity } from './model-choice';
+
+/** Keys the fresh model reads; the solve contract lists them as known. */
+export const FRESH_INPUT_KEYS = [
+  'ionic_strength_mol_kg',
+  'specific_conductance_us_cm',
+  'tds_mg_l',
+  'calcium_mg_l',
+  'magnesium_mg_l',
+  'sodium_mg_l',
+  'potassium_mg_l',
+  'chloride_mg_l',
+  'sulfate_mg_l',
+  'alkalinity_mg_l_caco3',
+  'alkalinity_meq_l',
+  'alkalinity_dkh',
+  'air_pco2_uatm',
+  'activity_model',
+  'conductance_factor',
+  'dolomite_form',
+] as const;
+
+/** Alkalinity in field units, each with the unit module's name for it. */
+export const ALKALINITY_FIELD_KEYS = {
+  alkalinity_mg_l_caco3: 'mg_l_caco3',
+  alkalinity_meq_l: 'meq_l',
+  alkalinity_dkh: 'dkh',
+} as const;
+type AlkalinityFieldKey = keyof typeof ALKALINITY_FIELD_KEYS;
+
+/** Default atmospheric pCO2 for the air-equilibrium outputs, µatm (roughly the 2024 global mean, common practice). */
+export const DEFAULT_AIR_PCO2_UATM = 420;
+
+export interface FreshRequest {
+  ions: MajorIonsMgL;
+  ionicStrengthGiven: number | undefined;
+  specificConductanceUsCm: number | undefined;
+  tdsMgL: number | undefined;
+  airPco2Uatm: number;
+  activity: ActivityModel;
+  conductanceFactor: 'russell-1976' | 'griffin-jurinak-1973';
+  dolomite: 'ordered' | 'disordered';
+  /** Fresh-only keys present, for the automatic model choice. */
+  freshKeys: string[];
+}
+
+function num(raw: Readonly<Record<string, unknown>>, key: string): number | undefined {
+  const v = raw[key];
+  if (v === undefined || v === null || v === '') return undefined;
+  if (typeof v !== 'number' || !Number.isFinite(v)) {
+    fail('not-a-number', `${key} must be a finite number, got ${JSON.stringify(v)}.`, key);
+  }
+  return v;
+}
+
+function nonNegative(raw: Readonly<Record<string, unknown>>, key: string): number | undefined {
+  const v = num(raw, key);
+  if (v !== undefined && v < 0) fail('negative-value', `${key} cannot be negative, got ${v}.`, key);
+  return v;
+}
+
+function option<T extends string>(
+  raw: Readonly<Record<string, unknown>>,
+  key: string,
+  allowed: readonly T[],
+  fallback: T,
+): T {
+  const v = raw[key];
+  if (v === undefined || v === null || v === '') return fallback;
+  if (typeof v !== 'string' || !(allowed as readonly string[]).includes(v)) {
+    fail('unknown-option', `${key} must be one of ${allowed.join(', ')}; got ${JSON.stringify(v)}.`, key);
+  }
+  return v as T;
+}
+
+export function parseFreshInput(raw: Readonly<Record<string, unknown>>): FreshRequest {
+  const ions: MajorIonsMgL = {};
+  for (const name of ['calcium', 'magnesium', 'sodium', 'potassium', 'chloride', 'sulfate'] as const) {
+    const v = nonNegative(raw, `${name}_mg_l`);
+    if (v !== undefined) ions[name] = v;
+  }
+  const air = num(raw, 'air_pco2_uatm') ?? DEFAULT_AIR_PCO2_UATM;
+  if (!(air > 0) || air > 1e6) {
+    fail('bad-air-pco2', `air_pco2_uatm must be between 0 and 1e6 µatm, got ${air}.`, 'air_pco2_uatm');
+  }
+  const freshOnly = FRESH_INPUT_KEYS.filter(
+    (k) =>
+      k !== 'air_pco2_uatm' && k !== 'specific_conductance_us_cm' && raw[k] !== undefined && raw[k] !== '',
+  );
+  return {
+    ions,
+    ionicStrengthGiven: nonNegative(raw, 'ionic_strength_mol_kg'),
+    specificConductanceUsCm: nonNegative(raw, 'specific_conductance_us_cm'),
+    tdsMgL: nonNegative(raw, 'tds_mg_l'),
+    airPco2Uatm: air,
+    activity: option(raw, 'activity_model', ['davies', 'debye-huckel', 'truesdell-jones'] as const, 'davies'),
+    conductanceFactor: option(
+      raw,
+      'conductance_factor',
+      ['russell-1976', 'griffin-jurinak-1973'] as const,
+      'russell-1976',
+    ),
+    dolomite: option(raw, 'dolomite_form', ['ordered', 'disordered'] as const, 'ordered'),
+    freshKeys: freshOnly,
+  };
+}
+
+/**
+ * Alkalinity given in field units, as µmol/kg (of water in the fresh model, of solution in the
+ * saline one: `densityKgL` says which). Two alkalinity keys at once are refused, because the
+ * solve could not say which one it used.
+ */
+export function alkalinityFromFieldUnits(
+  raw: Readonly<Record<string, unknown>>,
+  densityKgL: number,
+  alreadyUmolKg: boolean,
+): { key: AlkalinityFieldKey; umolKg: number } | undefined {
+  const given = (Object.keys(ALKALINITY_FIELD_KEYS) as AlkalinityFieldKey[]).filter(
+    (k) => num(raw, k) !== undefined,
+  );
+  if (given.length === 0) return undefined;
+  if (given.length > 1 || alreadyUmolKg) {
+    const all = alreadyUmolKg ? ['alkalinity_umol_kg', ...given] : given;
+    fail('alkalinity-given-twice', `Give alkalinity once; got ${all.join(' and ')}.`, given[0]);
+  }
+  const key = given[0]!;
+  const v = num(raw, key)!;
+  if (v < 0)
+    fail(
+      'negative-alkalinity',
+      `${key} is negative: acid waters with mineral acidity are outside this solver.`,
+      key,
+    );
+  return { key, umolKg: alkalinityToEqKg(v, ALKALINITY_FIELD_KEYS[key], densityKgL) * 1e6 };
+}
+
+export interface IonicStrengthPlan {
+  method: IonicStrengthMethod | 'salinity-seawater' | 'alkalinity-only';
+  /** First estimate, mol/kg; the final value unless `iterate` is set. */
+  initial: number;
+  /** I depends on the solved species (major ions, or alkalinity only): the solve iterates. */
+  iterate: boolean;
+  warnings: Issue[];
+}
+
+/**
+ * The ionic-strength estimate to use, in the order of preference of the fresh model: major ions
+ * (iterated with the carbonate species by the solve), a given value, specific conductance, TDS,
+ * salinity (as sea salt), else the alkalinity alone (I = TA, a sodium bicarbonate water: a lower
+ * bound for most waters) with a warning.
+ */
+export function planIonicStrength(
+  f: FreshRequest,
+  salinity: number | undefined,
+  alkalinityMolKg: number | undefined,
+): IonicStrengthPlan {
+  if (hasMajorIons(f.ions)) {
+    return {
+      method: 'major-ions',
+      initial: Math.max(alkalinityMolKg ?? 0, 0) / 2,
+      iterate: true,
+      warnings: [],
+    };
+  }
+  if (f.ionicStrengthGiven !== undefined) {
+    return { method: 'given', initial: f.ionicStrengthGiven, iterate: false, warnings: [] };
+  }
+  if (f.specificConductanceUsCm !== undefined) {
+    return {
+      method:
+        f.conductanceFactor === 'russell-1976'
+          ? 'conductance-russell-1976'
+          : 'conductance-griffin-jurinak-1973',
+      initial: ionicStrengthFromConductance(f.specificConductanceUsCm, f.conductanceFactor),
+      iterate: false,
+      warnings: [],
+    };
+  }
+  if (f.tdsMgL !== undefined) {
+    return {
+      method: 'tds-langelier-1936',
+      initial: ionicStrengthFromTds(f.tdsMgL),
+      iterate: false,
+      warnings: [],
+    };
+  }
+  if (salinity !== undefined && salinity > 0) {
+    return {
+      method: 'salinity-seawater',
+      initial: ionicStrengthFromSalinity(salinity),
+      iterate: false,
+      warnings: [],
+    };
+  }
+  return {
+    method: 'alkalinity-only',
+    initial: Math.max(alkalinityMolKg ?? 0, 0),
+    iterate: true,
+    warnings: [
+      warning(
+        'ionic-strength-from-alkalinity',
+        'No ions, ionic strength, conductance, TDS or salinity was given: the ionic strength is taken as the ' +
+          'alkalinity alone (a sodium bicarbonate water), a lower bound. Give specific_conductance_us_cm for a better estimate.',
+        'ionic_strength_mol_kg',
+      ),
+    ],
+  };
+}

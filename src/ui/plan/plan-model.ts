@@ -1,0 +1,204 @@
+/**
+ * The planning panel's logic without the DOM: turning what the user typed into a plan request,
+ * and a plan result into before/after rows and speciation fractions. Kept apart so it is tested
+ * in Node and the component only draws.
+ */
+
+import type { SolveOutput } from '../../chem/api';
+import type { ChemicalId } from '../../chem/plan/chemicals';
+import type { TargetQuantity } from '../../chem/plan/inverse';
+
+export type PanelAction = 'add' | 'equilibrate' | 'reach' | 'mix';
+export type AmountUnit = 'g' | 'mol' | 'ml_stock';
+
+/** The panel's fields as typed (text, so "7,5" survives), with the chosen options. */
+export interface PanelForm {
+  action: PanelAction;
+  volumeL: string;
+  chemical: ChemicalId;
+  amount: string;
+  amountUnit: AmountUnit;
+  stockMolL: string;
+  purityPercent: string;
+  targetPco2: string;
+  fractionPercent: string;
+  targetQuantity: TargetQuantity;
+  targetValue: string;
+  maxPhStep: string;
+  maxAlkStepDkh: string;
+  mixVolumeL: string;
+  mixTemperatureC: string;
+  mixSalinity: string;
+  mixAlkalinity: string;
+  mixPh: string;
+}
+
+export const DEFAULT_FORM: PanelForm = {
+  action: 'reach',
+  volumeL: '100',
+  chemical: 'sodium_bicarbonate',
+  amount: '10',
+  amountUnit: 'g',
+  stockMolL: '1',
+  purityPercent: '100',
+  targetPco2: '420',
+  fractionPercent: '100',
+  targetQuantity: 'alkalinity_dkh',
+  targetValue: '8',
+  // Common practice (no single source): about 0.2 pH and 1 dKH per step where animals live.
+  maxPhStep: '0.2',
+  maxAlkStepDkh: '1',
+  mixVolumeL: '50',
+  mixTemperatureC: '',
+  mixSalinity: '',
+  mixAlkalinity: '',
+  mixPh: '',
+};
+
+export class FieldError extends Error {
+  constructor(
+    readonly field: keyof PanelForm,
+    message: string,
+  ) {
+    super(message);
+  }
+}
+
+/** A decimal typed with a point or a comma; empty gives undefined; anything else is a field error. */
+export function parseDecimal(text: string, field: keyof PanelForm, label: string): number | undefined {
+  const t = text.trim().replace(/\s/g, '');
+  if (t === '') return undefined;
+  const n = Number(t.replace(',', '.'));
+  if (!Number.isFinite(n) || !/^[-+]?(\d+([.,]\d*)?|[.,]\d+)([eE][-+]?\d+)?$/.test(t)) {
+    throw new FieldError(field, `${label}: "${text}" is not a number.`);
+  }
+  return n;
+}
+
+function need(text: string, field: keyof PanelForm, label: string): number {
+  const v = parseDecimal(text, field, label);
+  if (v === undefined) throw new FieldError(field, `${label} is needed.`);
+  return v;
+}
+
+/** The plan request for the reading and the form; throws FieldError for a field that cannot be read. */
+export function planRequest(
+  reading: Readonly<Record<string, unknown>>,
+  f: PanelForm,
+): Record<string, unknown> {
+  const volume = need(f.volumeL, 'volumeL', 'Water volume (L)');
+  let action: Record<string, unknown>;
+  switch (f.action) {
+    case 'add': {
+      const amount = need(f.amount, 'amount', 'Amount');
+      action = { action: 'add', chemical: f.chemical };
+      if (f.amountUnit === 'g') {
+        action.mass_g = amount;
+        const purity = parseDecimal(f.purityPercent, 'purityPercent', 'Purity (%)');
+        if (purity !== undefined) action.purity_percent = purity;
+      } else if (f.amountUnit === 'mol') action.moles = amount;
+      else {
+        action.stock_volume_ml = amount;
+        action.stock_mol_l = need(f.stockMolL, 'stockMolL', 'Stock strength (mol/L)');
+      }
+      break;
+    }
+    case 'equilibrate':
+      action = {
+        action: 'equilibrate',
+        target_pco2_uatm: need(f.targetPco2, 'targetPco2', 'Gas pCO2 (µatm)'),
+        fraction: need(f.fractionPercent, 'fractionPercent', 'Share of the way (%)') / 100,
+      };
+      break;
+    case 'reach': {
+      action = {
+        action: 'reach',
+        chemical: f.chemical,
+        target: { [f.targetQuantity]: need(f.targetValue, 'targetValue', 'Target') },
+      };
+      const ph = parseDecimal(f.maxPhStep, 'maxPhStep', 'Largest pH step');
+      const dkh = parseDecimal(f.maxAlkStepDkh, 'maxAlkStepDkh', 'Largest alkalinity step (dKH)');
+      if (ph !== undefined) action.max_ph_step = ph;
+      if (dkh !== undefined) action.max_alkalinity_step_dkh = dkh;
+      if (f.amountUnit === 'ml_stock')
+        action.stock_mol_l = need(f.stockMolL, 'stockMolL', 'Stock strength (mol/L)');
+      break;
+    }
+    case 'mix': {
+      const other: Record<string, unknown> = {
+        temperature_c: need(f.mixTemperatureC, 'mixTemperatureC', 'Other water temperature (°C)'),
+        alkalinity_umol_kg: need(f.mixAlkalinity, 'mixAlkalinity', 'Other water alkalinity (µmol/kg)'),
+        ph: need(f.mixPh, 'mixPh', 'Other water pH'),
+      };
+      const s = parseDecimal(f.mixSalinity, 'mixSalinity', 'Other water salinity');
+      if (s !== undefined) other.salinity = s;
+      if (reading.ph_scale !== undefined) other.ph_scale = reading.ph_scale;
+      action = {
+        action: 'mix',
+        waters: [{ water: other, volume_l: need(f.mixVolumeL, 'mixVolumeL', 'Other water volume (L)') }],
+      };
+      break;
+    }
+  }
+  return { water: reading, volume_l: volume, actions: [action] };
+}
+
+/** Labels for the outputs a person reads first; every other numeric output follows under its key. */
+const LABELS: Record<string, string> = {
+  alkalinity_umol_kg: 'Alkalinity (µmol/kg)',
+  dic_umol_kg: 'DIC (µmol/kg)',
+  ph_total: 'pH, total scale',
+  ph_free: 'pH, free scale',
+  ph_seawater: 'pH, seawater scale',
+  ph_nbs: 'pH, NBS scale',
+  pco2_uatm: 'pCO2 (µatm)',
+  fco2_uatm: 'fCO2 (µatm)',
+  co2_umol_kg: 'CO2* (µmol/kg)',
+  hco3_umol_kg: 'HCO3- (µmol/kg)',
+  co3_umol_kg: 'CO3-- (µmol/kg)',
+  omega_calcite: 'Ω calcite',
+  omega_aragonite: 'Ω aragonite',
+  revelle_factor: 'Revelle factor',
+};
+
+export interface CompareRow {
+  key: string;
+  label: string;
+  before: number | undefined;
+  after: number | undefined;
+}
+
+/** Every numeric output of either water (top level and totals), labelled ones first. */
+export function compareRows(before: SolveOutput, after: SolveOutput): CompareRow[] {
+  const flat = (o: SolveOutput): Record<string, number> => {
+    const out: Record<string, number> = {};
+    for (const [k, v] of Object.entries(o)) if (typeof v === 'number' && Number.isFinite(v)) out[k] = v;
+    for (const [k, v] of Object.entries(o.totals_umol_kg)) out[`${k}_total_umol_kg`] = v;
+    return out;
+  };
+  const a = flat(before);
+  const b = flat(after);
+  const keys = [...new Set([...Object.keys(a), ...Object.keys(b)])];
+  const order = Object.keys(LABELS);
+  keys.sort((x, y) => {
+    const ix = order.indexOf(x);
+    const iy = order.indexOf(y);
+    if (ix >= 0 || iy >= 0) return (ix < 0 ? 99 : ix) - (iy < 0 ? 99 : iy);
+    return x.localeCompare(y);
+  });
+  return keys.map((k) => ({ key: k, label: LABELS[k] ?? k.replace(/_/g, ' '), before: a[k], after: b[k] }));
+}
+
+/** Fractions of DIC as CO2*, HCO3- and CO3--. */
+export function speciation(s: SolveOutput): { co2: number; hco3: number; co3: number } {
+  const dic = s.co2_umol_kg + s.hco3_umol_kg + s.co3_umol_kg;
+  return { co2: s.co2_umol_kg / dic, hco3: s.hco3_umol_kg / dic, co3: s.co3_umol_kg / dic };
+}
+
+/** A number for a table cell: four significant figures, never NaN. */
+export function show(x: number | undefined): string {
+  if (x === undefined || !Number.isFinite(x)) return '—';
+  if (x === 0) return '0';
+  const a = Math.abs(x);
+  return a >= 1000 ? x.toFixed(0) : x.toPrecision(4);
+}

@@ -19,7 +19,7 @@ export function resultAlerts(r: Record<string, unknown>): string[] {
   const pco2 = r.pco2_uatm;
   if (typeof pco2 === 'number' && pco2 > 10000) {
     out.push(
-      'pCO₂ is very high: fish may be stressed. Aerate gradually and re-measure; do not chase pH with chemicals.',
+      'pCO₂ is very high. That is usual for springs and groundwater, but fish in a tank or pond held at this level are stressed: aerate gradually and re-measure rather than chasing pH with chemicals.',
     );
   }
   const om = r.omega_aragonite;

@@ -178,6 +178,30 @@ export function ReadingScreen(props: { readingId: string }) {
                     </td>
                   </tr>
                 )}
+                {Object.entries(ok as unknown as Record<string, unknown>)
+                  .filter(
+                    ([k, v]) =>
+                      typeof v === 'string' && !['model', 'model_reason', 'treatment_caution'].includes(k),
+                  )
+                  .map(([k, v]) => (
+                    <tr key={`s-${k}`}>
+                      <th scope="row">{k.replace(/_/g, ' ')}</th>
+                      <td>{String(v)}</td>
+                    </tr>
+                  ))}
+                {Object.entries(
+                  ((ok as unknown as Record<string, unknown>).activity_coefficients ?? {}) as Record<
+                    string,
+                    unknown
+                  >,
+                )
+                  .filter(([, v]) => typeof v === 'number')
+                  .map(([k, v]) => (
+                    <tr key={`g-${k}`}>
+                      <th scope="row">activity coefficient γ {k}</th>
+                      <td>{formatNumber(v as number, locale, { digits: 4 })}</td>
+                    </tr>
+                  ))}
                 {Object.entries(ok.formulations).map(([k, v]) => (
                   <tr key={`f-${k}`}>
                     <th scope="row">{k}</th>

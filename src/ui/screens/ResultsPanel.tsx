@@ -63,6 +63,7 @@ export function ResultsPanel(props: { result: SolveResult | undefined; busy?: bo
       )}
       <p class="muted small">
         Model: {result.model}
+        {typeof record.model_reason === 'string' ? ` (${record.model_reason})` : ''}
         {result.pair ? ` · solved from ${pairLabel(result.pair)}` : ''}
       </p>
       {general.length > 0 && (
@@ -79,6 +80,11 @@ export function ResultsPanel(props: { result: SolveResult | undefined; busy?: bo
           {a}
         </p>
       ))}
+      {typeof record.treatment_caution === 'string' && (
+        <p class="caution" role="note">
+          {record.treatment_caution}
+        </p>
+      )}
       <p class="caution" role="note">
         {RESULT_CAUTION}
       </p>

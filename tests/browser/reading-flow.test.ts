@@ -75,6 +75,14 @@ describe('site and reading', () => {
     await page.getByRole('heading', { name: 'Reading', exact: true }).waitFor();
     await page.locator('[data-testid="speciation"]').waitFor();
     await screenshot(page, '04-reading-detail');
+
+    // Planning is loaded on demand from the reading, and a plan shows its cautions.
+    await page.getByRole('button', { name: /Plan a dose/ }).click();
+    await page.getByRole('button', { name: 'Show the result' }).click();
+    await page.getByRole('heading', { name: 'Cautions' }).waitFor({ timeout: 15_000 });
+    await screenshot(page, '04b-plan-panel');
+    await page.getByRole('button', { name: 'Save plan with this reading' }).click();
+    await expect.poll(() => page.getByText('A plan is saved with this reading.').count()).toBe(1);
     const detailUrl = page.url();
 
     await page.reload();

@@ -30,8 +30,10 @@ export interface BrowserFigures {
   readBackCount: number;
   /** Log documents to chart columns (once per log load). */
   columnsMs: number;
-  /** Columns to a drawn chart: merge, decimate, uPlot build and first frame. */
+  /** Columns to a drawn chart: merge, decimate, uPlot build and first frame (median of 5). */
   chartMs: number;
+  /** The same, first of the 5 renders. */
+  chartFirstMs: number;
   chartDrawn: number;
   coldStartMs: number;
   shellGzipBytes: number;
@@ -100,15 +102,32 @@ async function storeAndChart(url: string): Promise<Omit<BrowserFigures, 'coldSta
       const t = Float64Array.from(back, (r) => Date.parse(r.takenAt) / 1000);
       const v = back.map((r) => r.values[0]?.value ?? null);
       const columnsMs = performance.now() - s;
-      s = performance.now();
-      const chart = B.createTimeChart(el, B.mergeSeries([{ t, v }]), [{ label: 'Temperature', unit: '°C' }]);
-      // uPlot draws on its own commit; wait for the frame that shows it.
-      await new Promise((r) => requestAnimationFrame(() => r(undefined)));
-      const chartMs = performance.now() - s;
-      const chartDrawn = chart.drawnPoints();
-      chart.destroy();
+      // Five renders from the same columns: the first (cold) and the median are reported.
+      const times: number[] = [];
+      let chartDrawn = 0;
+      for (let k = 0; k < 5; k++) {
+        s = performance.now();
+        const chart = B.createTimeChart(el, B.mergeSeries([{ t, v }]), [
+          { label: 'Temperature', unit: '°C' },
+        ]);
+        // uPlot draws on its own commit; wait for the frame that shows it.
+        await new Promise((r) => requestAnimationFrame(() => r(undefined)));
+        times.push(performance.now() - s);
+        chartDrawn = chart.drawnPoints();
+        chart.destroy();
+      }
+      const chartFirstMs = times[0]!;
+      const chartMs = times.slice().sort((x, y) => x - y)[2]!;
       repo.close();
-      return { bulkSaveMs, readBackMs, readBackCount: back.length, columnsMs, chartMs, chartDrawn };
+      return {
+        bulkSaveMs,
+        readBackMs,
+        readBackCount: back.length,
+        columnsMs,
+        chartMs,
+        chartFirstMs,
+        chartDrawn,
+      };
     });
   } finally {
     await browser.close();
@@ -184,7 +203,7 @@ export async function runBrowserBench(): Promise<BrowserFigures> {
 
 function line(name: string, value: string, target: string, ok: boolean) {
   console.log(
-    `${name.padEnd(44)} ${value.padStart(12)}   target ${target.padEnd(10)} ${ok ? 'ok' : 'MISSED'}`,
+    `${name.padEnd(54)} ${value.padStart(12)}   target ${target.padEnd(10)} ${ok ? 'ok' : 'MISSED'}`,
   );
 }
 
@@ -210,10 +229,16 @@ if (import.meta.url === `file://${process.argv[1]}`) {
   );
   line('log to chart columns (100 000 readings)', `${f.columnsMs.toFixed(0)} ms`, '(info)', true);
   line(
-    `render 100 000-point chart (${f.chartDrawn} drawn)`,
+    `render 100k-point chart, median of 5 (${f.chartDrawn} drawn)`,
     `${f.chartMs.toFixed(0)} ms`,
     '< 200 ms',
     f.chartMs < 200,
+  );
+  line(
+    'render 100k-point chart, first of 5',
+    `${f.chartFirstMs.toFixed(0)} ms`,
+    '< 200 ms',
+    f.chartFirstMs < 200,
   );
   line(
     'cold start offline to first usable input',

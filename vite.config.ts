@@ -26,6 +26,8 @@ export default defineConfig({
         // without iife, registration fails and the app is not offline (see docs/toolchain.md).
         rollupFormat: 'iife',
         globPatterns: ['**/*.{js,css,html,png,webmanifest}'],
+        // Store screenshots are for install prompts, not for working offline.
+        globIgnores: ['screenshots/**'],
       },
       manifest: {
         name: 'Tufa — carbonate system of natural waters',
@@ -41,6 +43,22 @@ export default defineConfig({
           { src: 'icons/icon-512.png', sizes: '512x512', type: 'image/png', purpose: 'any' },
           { src: 'icons/maskable-192.png', sizes: '192x192', type: 'image/png', purpose: 'maskable' },
           { src: 'icons/maskable-512.png', sizes: '512x512', type: 'image/png', purpose: 'maskable' },
+        ],
+        screenshots: [
+          {
+            src: 'screenshots/site-phone.png',
+            sizes: '412x900',
+            type: 'image/png',
+            form_factor: 'narrow',
+            label: 'A site log with its time series',
+          },
+          {
+            src: 'screenshots/reading-wide.png',
+            sizes: '1100x971',
+            type: 'image/png',
+            form_factor: 'wide',
+            label: 'Entering a reading, results as you type',
+          },
         ],
       },
     }),

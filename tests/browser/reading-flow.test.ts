@@ -93,6 +93,24 @@ describe('site and reading', () => {
     await expect.poll(() => page.locator('.log li').count()).toBe(1);
   });
 
+  it('puts validity warnings beside the value they concern', async () => {
+    await openApp(page, base);
+    await page.getByRole('link', { name: /Saltmarsh holding tank/ }).click();
+    await page.getByRole('link', { name: 'New reading' }).click();
+    await page.getByLabel('Temperature', { exact: true }).fill('40'); // above the 2–35 °C of Lueker et al. 2000
+    await page.getByLabel('pH', { exact: true }).fill('8.0');
+    await page.getByLabel('Alkalinity', { exact: true }).fill('2300');
+    const tempRow = page.locator('.qrow', { has: page.getByLabel('Temperature', { exact: true }) });
+    await expect
+      .poll(() => tempRow.locator('.issue.warn').count(), { timeout: 10_000 })
+      .toBeGreaterThanOrEqual(2);
+    expect(await tempRow.textContent()).toContain('Lueker et al. 2000');
+    // The salinity row (35) is inside every range: no warning there.
+    const salRow = page.locator('.qrow', { has: page.getByLabel('Salinity', { exact: true }) });
+    expect(await salRow.locator('.issue.warn').count()).toBe(0);
+    await page.getByRole('link', { name: 'Cancel' }).click();
+  });
+
   it('refuses a value that is not a number, with a code, and saves nothing', async () => {
     await openApp(page, base);
     await page.getByRole('link', { name: /Saltmarsh holding tank/ }).click();

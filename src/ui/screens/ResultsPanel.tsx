@@ -68,8 +68,8 @@ export function ResultsPanel(props: { result: SolveResult | undefined; busy?: bo
       </p>
       {general.length > 0 && (
         <ul class="warnings">
-          {general.map((w) => (
-            <li key={w.code + (w.field ?? '')} class="issue warn">
+          {general.map((w, k) => (
+            <li key={`${w.code}-${k}`} class="issue warn">
               <code>{w.code}</code> {w.message}
             </li>
           ))}

@@ -23,7 +23,8 @@ export function resultAlerts(r: Record<string, unknown>): string[] {
     );
   }
   const om = r.omega_aragonite;
-  if (typeof om === 'number' && om < 1) {
+  // A reef keeper's concern; in fresh water undersaturation is common and harmless to note.
+  if (r.model === 'saline' && typeof om === 'number' && om < 1) {
     out.push('Ω aragonite is below 1: aragonite tends to dissolve. Raise alkalinity only slowly if at all.');
   }
   return out;

@@ -8,6 +8,7 @@
 import { CARBONATE_KEYS, type CarbonateKey, type ModelChoice } from './api';
 import { fail, type Issue, warning } from './errors';
 import { alkalinityFromFieldUnits, FRESH_INPUT_KEYS } from './fresh/request';
+import { MOLAR_MASS_G_PER_MOL } from './physical';
 import { salinityFromSpecificConductance } from './seawater/conductance';
 import type { MinorTotals, PhScale } from './types';
 import { densityKgL } from './units';
@@ -63,6 +64,8 @@ export const KNOWN_INPUT_KEYS: ReadonlySet<string> = new Set([
   ...FRESH_INPUT_KEYS,
   'pair',
   'root',
+  // Standard uncertainties to propagate (read by solve(), see uncertainty/solveUncertainty.ts).
+  'uncertainty',
   // Free-text keys that travel with a row (CSV ids, notes) and are passed through untouched.
   'id',
   'label',
@@ -200,6 +203,26 @@ export function parseSolveInput(input: unknown): SolveRequest {
       'calcium_umol_kg',
     );
   }
+  // Calcium in mg/L (how test kits and labs report it): per kg with the density of the water.
+  const calciumMgL = numberAt(raw, 'calcium_mg_l');
+  if (calciumMgL !== undefined) {
+    if (calcium !== undefined) {
+      fail('calcium-given-twice', 'Give calcium once: calcium_mg_l or calcium_umol_kg.', 'calcium_mg_l');
+    }
+    if (!(calciumMgL > 0)) {
+      fail(
+        'non-positive-value',
+        `calcium_mg_l must be greater than zero, got ${calciumMgL}.`,
+        'calcium_mg_l',
+      );
+    }
+  }
+  const calciumMolKg =
+    calcium !== undefined
+      ? calcium * 1e-6
+      : calciumMgL !== undefined
+        ? calciumMgL / 1000 / MOLAR_MASS_G_PER_MOL.Ca / densityKgL(salinityForDensity, temperatureC)
+        : undefined;
 
   const pairRaw = raw.pair;
   let pair: [CarbonateKey, CarbonateKey] | undefined;
@@ -227,7 +250,7 @@ export function parseSolveInput(input: unknown): SolveRequest {
     measured,
     phScale: optionAt(raw, 'ph_scale', ['total', 'free', 'seawater', 'nbs'] as const, 'total'),
     minor,
-    calciumMolKg: calcium === undefined ? undefined : calcium * 1e-6,
+    calciumMolKg,
     carbonic: optionAt(raw, 'carbonic_constants', ['lueker2000', 'millero2010'] as const, 'lueker2000'),
     boron: optionAt(raw, 'boron_total', ['lee2010', 'uppstrom1974'] as const, 'lee2010'),
     fluoride: optionAt(

@@ -17,6 +17,7 @@ import { applyShifts, type ConstantShifts, constantsFor } from './models';
 import { revelleFactor } from './solver/buffer';
 import { type Param, solvePair } from './solver/pairs';
 import type { CarbonateState, ConstantSet, MinorTotals, PhScale, WaterModel } from './types';
+import { solveUncertainty } from './uncertainty/solveUncertainty';
 
 export interface SolveOptions {
   /** Offsets of constants (p-units) and factors, for uncertainty propagation. */
@@ -26,10 +27,31 @@ export interface SolveOptions {
 /** Never throws: a request that cannot be solved becomes `{ error: { code, message } }`. */
 export function solve(input: unknown, options: SolveOptions = {}): SolveResult {
   try {
+    if (
+      typeof input === 'object' &&
+      input !== null &&
+      (input as { uncertainty?: unknown }).uncertainty !== undefined
+    ) {
+      return solveWithUncertainty(input as Record<string, unknown>, options);
+    }
     return solveRequest(parseSolveInput(input), options);
   } catch (e) {
     return { error: toIssue(e) };
   }
+}
+
+/**
+ * A solve whose input carries `uncertainty`: the plain solve, plus the standard uncertainty of
+ * every numeric output by derivatives of this same solver (../uncertainty/solveUncertainty.ts),
+ * one extra solve per uncertain input or constant.
+ */
+function solveWithUncertainty(input: Record<string, unknown>, options: SolveOptions): SolveOutput {
+  const { uncertainty, ...plain } = input;
+  const out = solveRequest(parseSolveInput(plain), options);
+  out.uncertainty = solveUncertainty(plain, uncertainty, out, (i, o) =>
+    solve(i, o.shifts ? { ...options, shifts: { ...options.shifts, ...o.shifts } } : options),
+  );
+  return out;
 }
 
 const PARAM_OF: Record<CarbonateKey, Param> = {
@@ -97,6 +119,18 @@ export function solveRequest(reqIn: SolveRequest, options: SolveOptions = {}): S
   };
   const sameConditions = req.outTemperatureC === req.temperatureC && req.outPressureDbar === req.pressureDbar;
   const warnings: Issue[] = [...req.warnings, ...decision.warnings];
+  if (model === 'saline') {
+    // The saline model takes its ion ratios from salinity: say which fresh-water keys it did not use.
+    const unused = decision.fresh.freshKeys.filter((k) => !SALINE_USES.has(k));
+    if (unused.length > 0) {
+      warnings.push(
+        warning(
+          'fresh-keys-unused',
+          `The saline model does not use ${unused.join(', ')} (its ions come from salinity); set model to fresh to use them.`,
+        ),
+      );
+    }
+  }
 
   // Each root carries its own constants: in the fresh model the ionic strength may depend on the
   // species, so two roots of one pair can sit at two ionic strengths.
@@ -213,6 +247,14 @@ export function solveRequest(reqIn: SolveRequest, options: SolveOptions = {}): S
   return primary;
 }
 
+/** Fresh-water keys the saline model uses as well (alkalinity in field units, calcium in mg/L). */
+const SALINE_USES: ReadonlySet<string> = new Set([
+  'alkalinity_mg_l_caco3',
+  'alkalinity_meq_l',
+  'alkalinity_dkh',
+  'calcium_mg_l',
+]);
+
 /** Common practice for water analyses: a charge-balance error beyond ±5 % points to a missing ion or a bad value. */
 const CHARGE_BALANCE_LIMIT_PERCENT = 5;
 
@@ -223,7 +265,9 @@ function addFreshOutputs(
   ctx: FreshContext,
   warnings: Issue[],
 ): void {
-  Object.assign(o, freshOutputs(s, k, ctx));
+  const found: Issue[] = [];
+  Object.assign(o, freshOutputs(s, k, ctx, found));
+  addUnique(warnings, found);
   if (ctx.calciumMolKg === undefined) {
     // Without calcium there is no saturation state: null, never a made-up zero.
     o.omega_calcite = null;

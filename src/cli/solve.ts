@@ -32,6 +32,8 @@ Input: one JSON object per line (or a CSV whose header row uses the same names).
             fluoride_constant (perezfraga1987 | dicksonriley1979)
             output_temperature_c output_pressure_dbar   pair (e.g. "ph+alkalinity_umol_kg")
             root (high-ph | low-ph: which root of a two-root pair is reported first)
+            uncertainty: {"<input key>": standard uncertainty, ..., "constants": true} (JSON only)
+              adds "uncertainty": {"<output>": {standard_uncertainty, dominant_input, contributions}}
   model                  saline | fresh | auto (default). auto: fresh below salinity 2, from salinity,
                          else specific conductance, ionic strength or TDS; S 0.5–5 warns (brackish)
   fresh water (ph is the activity pH, ph_scale nbs, unless ph_scale is given):
@@ -39,13 +41,14 @@ Input: one JSON object per line (or a CSV whose header row uses the same names).
     calcium_mg_l magnesium_mg_l sodium_mg_l potassium_mg_l chloride_mg_l sulfate_mg_l
     ionic_strength_mol_kg specific_conductance_us_cm (at 25 °C) tds_mg_l
       ionic strength from, in order: the major ions, the value given, conductance, TDS
-    air_pco2_uatm (default 420)   activity_model (davies | debye-huckel | truesdell-jones)
+    air_pco2_uatm (partial pressure, default 420)   activity_model (davies | debye-huckel | truesdell-jones)
     conductance_factor (russell-1976 | griffin-jurinak-1973)   dolomite_form (ordered | disordered)
 
 Output (at output conditions): alkalinity_umol_kg dic_umol_kg ph_total ph_free ph_seawater ph_nbs
   pco2_uatm fco2_uatm co2_umol_kg hco3_umol_kg co3_umol_kg omega_calcite omega_aragonite
   revelle_factor constants model model_reason formulations warnings pair [alternatives] [misfit]
   fresh model adds: ph (activity) ionic_strength_mol_kg ionic_strength_method activity_coefficients
+    constants_infinite_dilution (the constants above are conditional, activity-corrected)
     saturation_index_calcite/_aragonite/_dolomite ph_saturation_calcite langelier_index ryznar_index
     ccpp_mg_l_caco3 ph_after_ccpp charge_balance_error_percent pco2_excess_ratio air_pco2_uatm
     ph_air_equilibrium dic_air_equilibrium_umol_kg alkalinity_{mmol_kg,mmol_l,meq_l,mg_l_caco3,

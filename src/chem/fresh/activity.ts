@@ -34,7 +34,15 @@ export function dielectricWaterMalmbergMaryott1956(tC: number): number {
  * ρ in g/cm3 (pure water, UNESCO 1981), ε from Malmberg & Maryott (1956), T in K.
  * Check: A = 0.5085–0.511, B = 0.3281–0.3291 at 25 °C (see tests for the tables compared).
  */
+let lastAB: { tC: number; a: number; b: number } | undefined;
 export function debyeHuckelAB(tC: number): { a: number; b: number } {
+  // One temperature is evaluated several times in a row by the ionic-strength iteration.
+  if (lastAB !== undefined && lastAB.tC === tC) return lastAB;
+  lastAB = { tC, ...debyeHuckelABAt(tC) };
+  return lastAB;
+}
+
+function debyeHuckelABAt(tC: number): { a: number; b: number } {
   const tK = tC + T0_K;
   const rho = densitySmowUnesco1981(t68FromT90(tC)) / 1000;
   const et = dielectricWaterMalmbergMaryott1956(tC) * tK;

@@ -102,6 +102,102 @@ const ACTIVITY_NAMES: Record<ActivityModel, string> = {
   'truesdell-jones': 'Truesdell & Jones (1974), Kielland (1937) sizes where they give none',
 };
 
+/**
+ * Formulation names per combination of options, built once: every row of a batch shares the
+ * object (read-only), so a solve does not allocate it again.
+ */
+const FORMULATIONS = new Map<string, Readonly<Record<string, string>>>();
+function formulationsFor(
+  model: ActivityModel,
+  saltingOut: boolean,
+  dolomite: 'ordered' | 'disordered',
+): Record<string, string> {
+  const key = `${model}|${saltingOut}|${dolomite}`;
+  let f = FORMULATIONS.get(key);
+  if (f === undefined) {
+    f = Object.freeze({
+      k0: 'Plummer & Busenberg 1982',
+      k1: 'Plummer & Busenberg 1982',
+      k2: 'Plummer & Busenberg 1982',
+      kw: 'Harned & Owen 1958',
+      kb: 'Dickson 1990b at S = 0',
+      ks: 'Nordstrom et al. 1990 (van t Hoff)',
+      kf: 'Nordstrom et al. 1990 (van t Hoff)',
+      k1p: 'Bates 1951',
+      k2p: 'Bates & Acree 1943',
+      k3p: 'Nordstrom et al. 1990 (van t Hoff)',
+      ksi: 'Nordstrom et al. 1990 (van t Hoff)',
+      knh4: 'Bates & Pinching 1949',
+      kh2s: 'Nordstrom et al. 1990 (van t Hoff)',
+      ksp_calcite: 'Plummer & Busenberg 1982',
+      ksp_aragonite: 'Plummer & Busenberg 1982',
+      ksp_dolomite: `Nordstrom et al. 1990, ${dolomite} (van t Hoff)`,
+      fugacity: 'Weiss 1974',
+      activity: ACTIVITY_NAMES[model],
+      neutral_species: saltingOut ? 'log γ = 0.1 I (salting-out)' : 'γ = 1',
+      // Said out loud because hard and sulfate-rich waters lose a few % of free Ca to pairs.
+      ion_pairs: 'none: Ca, Mg, SO4 and the carbonate ions are taken as free ions',
+    });
+    FORMULATIONS.set(key, f);
+  }
+  return f as Record<string, string>;
+}
+
+interface Thermodynamic {
+  tK: number;
+  dolomite: 'ordered' | 'disordered';
+  th: ThermodynamicLogK;
+  /** The same constants as K (10^log K). */
+  K: ThermodynamicLogK;
+  fugacity: number;
+}
+/**
+ * The thermodynamic constants depend on temperature only, while the ionic-strength iteration
+ * re-evaluates the constant set at one temperature several times: keep the last one.
+ */
+let lastThermo: Thermodynamic | undefined;
+function thermodynamicAt(tK: number, dolomite: 'ordered' | 'disordered'): Thermodynamic {
+  if (lastThermo !== undefined && lastThermo.tK === tK && lastThermo.dolomite === dolomite) return lastThermo;
+  const th: ThermodynamicLogK = {
+    k0: logKhPlummerBusenberg1982(tK),
+    k1: logK1PlummerBusenberg1982(tK),
+    k2: logK2PlummerBusenberg1982(tK),
+    kw: logKwHarnedOwen1958(tK),
+    kb: logKbDickson1990S0(tK),
+    ks: logKsNordstrom1990(tK),
+    kf: logKfNordstrom1990(tK),
+    k1p: logK1pBates1951(tK),
+    k2p: logK2pBatesAcree1943(tK),
+    k3p: logK3pNordstrom1990(tK),
+    ksi: logKsiNordstrom1990(tK),
+    knh4: logKnh4BatesPinching1949(tK),
+    kh2s: logKh2sNordstrom1990(tK),
+    kspCalcite: logKspCalcitePlummerBusenberg1982(tK),
+    kspAragonite: logKspAragonitePlummerBusenberg1982(tK),
+    kspDolomite: logKspDolomiteNordstrom1990(tK, dolomite),
+  };
+  const K: ThermodynamicLogK = {
+    k0: 10 ** th.k0,
+    k1: 10 ** th.k1,
+    k2: 10 ** th.k2,
+    kw: 10 ** th.kw,
+    kb: 10 ** th.kb,
+    ks: 10 ** th.ks,
+    kf: 10 ** th.kf,
+    k1p: 10 ** th.k1p,
+    k2p: 10 ** th.k2p,
+    k3p: 10 ** th.k3p,
+    ksi: 10 ** th.ksi,
+    knh4: 10 ** th.knh4,
+    kh2s: 10 ** th.kh2s,
+    kspCalcite: 10 ** th.kspCalcite,
+    kspAragonite: 10 ** th.kspAragonite,
+    kspDolomite: 10 ** th.kspDolomite,
+  };
+  lastThermo = { tK, dolomite, th, K, fugacity: fugacityFactorWeiss1974(tK) };
+  return lastThermo;
+}
+
 /** Builds the fresh-water ConstantSet at the given conditions and ionic strength. */
 export function freshConstants(cond: Conditions, opts: FreshOptions): FreshConstantSet {
   const tC = cond.temperatureC;
@@ -125,28 +221,10 @@ export function freshConstants(cond: Conditions, opts: FreshOptions): FreshConst
   const tK = tC + T0_K;
   const g = activityCoefficients(tC, I, model, saltingOut);
 
-  const th: ThermodynamicLogK = {
-    k0: logKhPlummerBusenberg1982(tK),
-    k1: logK1PlummerBusenberg1982(tK),
-    k2: logK2PlummerBusenberg1982(tK),
-    kw: logKwHarnedOwen1958(tK),
-    kb: logKbDickson1990S0(tK),
-    ks: logKsNordstrom1990(tK),
-    kf: logKfNordstrom1990(tK),
-    k1p: logK1pBates1951(tK),
-    k2p: logK2pBatesAcree1943(tK),
-    k3p: logK3pNordstrom1990(tK),
-    ksi: logKsiNordstrom1990(tK),
-    knh4: logKnh4BatesPinching1949(tK),
-    kh2s: logKh2sNordstrom1990(tK),
-    kspCalcite: logKspCalcitePlummerBusenberg1982(tK),
-    kspAragonite: logKspAragonitePlummerBusenberg1982(tK),
-    kspDolomite: logKspDolomiteNordstrom1990(tK, opts.dolomite ?? 'ordered'),
-  };
-
+  const { th, K, fugacity } = thermodynamicAt(tK, opts.dolomite ?? 'ordered');
   const gn = g.neutral;
-  const ks = (10 ** th.ks * g.HSO4) / (g.H * g.SO4);
-  const kf = (10 ** th.kf * gn) / (g.H * g.F);
+  const ks = (K.ks * g.HSO4) / (g.H * g.SO4);
+  const kf = (K.kf * gn) / (g.H * g.F);
   const totalSulfate = opts.totalSulfate ?? 0;
   const totalFluoride = opts.totalFluoride ?? 0;
   const free = 1 / g.H;
@@ -156,23 +234,23 @@ export function freshConstants(cond: Conditions, opts: FreshOptions): FreshConst
   return {
     model: 'fresh',
     conditions: cond,
-    k0: 10 ** th.k0 / gn,
-    fugacityFactor: fugacityFactorWeiss1974(tK),
-    k1: (10 ** th.k1 * gn) / g.HCO3,
-    k2: (10 ** th.k2 * g.HCO3) / g.CO3,
-    kw: 10 ** th.kw / g.OH,
-    kb: (10 ** th.kb * gn) / g.BOH4,
+    k0: K.k0 / gn,
+    fugacityFactor: fugacity,
+    k1: (K.k1 * gn) / g.HCO3,
+    k2: (K.k2 * g.HCO3) / g.CO3,
+    kw: K.kw / g.OH,
+    kb: (K.kb * gn) / g.BOH4,
     ks,
     kf,
-    k1p: (10 ** th.k1p * gn) / g.H2PO4,
-    k2p: (10 ** th.k2p * g.H2PO4) / g.HPO4,
-    k3p: (10 ** th.k3p * g.HPO4) / g.PO4,
-    ksi: (10 ** th.ksi * gn) / g.H3SiO4,
-    knh4: (10 ** th.knh4 * g.NH4) / gn,
-    kh2s: (10 ** th.kh2s * gn) / g.HS,
-    kspCalcite: 10 ** th.kspCalcite / (g.Ca * g.CO3),
-    kspAragonite: 10 ** th.kspAragonite / (g.Ca * g.CO3),
-    kspDolomite: 10 ** th.kspDolomite / (g.Ca * g.Mg * g.CO3 * g.CO3),
+    k1p: (K.k1p * gn) / g.H2PO4,
+    k2p: (K.k2p * g.H2PO4) / g.HPO4,
+    k3p: (K.k3p * g.HPO4) / g.PO4,
+    ksi: (K.ksi * gn) / g.H3SiO4,
+    knh4: (K.knh4 * g.NH4) / gn,
+    kh2s: (K.kh2s * gn) / g.HS,
+    kspCalcite: K.kspCalcite / (g.Ca * g.CO3),
+    kspAragonite: K.kspAragonite / (g.Ca * g.CO3),
+    kspDolomite: K.kspDolomite / (g.Ca * g.Mg * g.CO3 * g.CO3),
     totalBoron: opts.totalBoron ?? 0,
     totalSulfate,
     totalFluoride,
@@ -189,27 +267,7 @@ export function freshConstants(cond: Conditions, opts: FreshOptions): FreshConst
     activityModel: model,
     gamma: g,
     thermodynamic: th,
-    formulations: {
-      k0: 'Plummer & Busenberg 1982',
-      k1: 'Plummer & Busenberg 1982',
-      k2: 'Plummer & Busenberg 1982',
-      kw: 'Harned & Owen 1958',
-      kb: 'Dickson 1990b at S = 0',
-      ks: 'Nordstrom et al. 1990 (van t Hoff)',
-      kf: 'Nordstrom et al. 1990 (van t Hoff)',
-      k1p: 'Bates 1951',
-      k2p: 'Bates & Acree 1943',
-      k3p: 'Nordstrom et al. 1990 (van t Hoff)',
-      ksi: 'Nordstrom et al. 1990 (van t Hoff)',
-      knh4: 'Bates & Pinching 1949',
-      kh2s: 'Nordstrom et al. 1990 (van t Hoff)',
-      ksp_calcite: 'Plummer & Busenberg 1982',
-      ksp_aragonite: 'Plummer & Busenberg 1982',
-      ksp_dolomite: `Nordstrom et al. 1990, ${opts.dolomite ?? 'ordered'} (van t Hoff)`,
-      fugacity: 'Weiss 1974',
-      activity: ACTIVITY_NAMES[model],
-      neutral_species: saltingOut ? 'log γ = 0.1 I (salting-out)' : 'γ = 1',
-    },
+    formulations: formulationsFor(model, saltingOut, opts.dolomite ?? 'ordered'),
     warnings,
   };
 }
@@ -236,7 +294,7 @@ export function freshValidity(
   pushRange(out, 'Weiss (1974) fugacity', T, tC, WEISS_1974_RANGE_C, '°C', f);
   pushRange(
     out,
-    `The ${model} activity equation`,
+    ACTIVITY_LABEL[model],
     'ionic strength',
     ionicStrength,
     ACTIVITY_RANGE_MOL_KG[model],

@@ -55,6 +55,22 @@ function carbonateAtFixedTa(h: number, ta: number, k: ConstantSet, t: MinorTotal
 }
 
 /**
+ * The residuals below read their water from module-level scratch records instead of closures, so
+ * a solve allocates no function objects here (these run once per row of a batch).
+ */
+const phs = {
+  ta: 0,
+  calcium: 0,
+  k: undefined as unknown as ConstantSet,
+  t: undefined as unknown as MinorTotals,
+};
+function phsResidual(x: number): number {
+  const co3 = carbonateAtFixedTa(10 ** -x, phs.ta, phs.k, phs.t);
+  // Beyond the pH where OH- alone carries the alkalinity there is no carbonate at all.
+  return co3 > 0 ? Math.log10((phs.calcium * co3) / phs.k.kspCalcite) : -50;
+}
+
+/**
  * pHs, the pH at which a water of the same total alkalinity and calcium is in equilibrium with
  * calcite (Langelier 1936, J. Am. Water Works Assoc. 28, 1500; the exact form of Standard Methods
  * 2330 B, which keeps every alkalinity term instead of TA ≈ HCO3-). Found on the fixed-TA path,
@@ -69,11 +85,11 @@ export function phSaturationCalcite(
   t: MinorTotals,
 ): number | undefined {
   if (!(ta > 0) || !(calcium > 0)) return undefined;
-  const f = (x: number): number => {
-    const co3 = carbonateAtFixedTa(10 ** -x, ta, k, t);
-    // Beyond the pH where OH- alone carries the alkalinity there is no carbonate at all.
-    return co3 > 0 ? Math.log10((calcium * co3) / k.kspCalcite) : -50;
-  };
+  phs.ta = ta;
+  phs.calcium = calcium;
+  phs.k = k;
+  phs.t = t;
+  const f = phsResidual;
   const guess = Math.log10(k.kspCalcite / (k.k2 * calcium * ta));
   const x0 = Math.min(12, Math.max(3, guess));
   const f0 = f(x0);
@@ -101,6 +117,30 @@ export interface PrecipitationPotential {
 
 const CCPP_STEP = 0.02;
 
+const ccpp = {
+  ta: 0,
+  dic: 0,
+  calcium: 0,
+  k: undefined as unknown as ConstantSet,
+  t: undefined as unknown as MinorTotals,
+};
+/** CaCO3 removed (mol/kg) on the reaction path when the pH has become −log h. */
+function ccppX(h: number): number {
+  const phi = carbonateAlkalinityPerDic(h, ccpp.k);
+  return (ccpp.dic * phi + nonCarbonateAlkalinity(h, ccpp.k, ccpp.t) - ccpp.ta) / (phi - 2);
+}
+function ccppResidual(ph: number): number {
+  const k = ccpp.k;
+  const h = 10 ** -ph;
+  const x = ccppX(h);
+  const ca = ccpp.calcium - x;
+  const c = ccpp.dic - x;
+  if (ca <= 0 || c <= 0) return -50; // more than all the calcium or carbon would have to go
+  const k1k2 = k.k1 * k.k2;
+  const co3 = (c * k1k2) / (h * h + k.k1 * h + k1k2);
+  return Math.log10((ca * co3) / k.kspCalcite);
+}
+
 /**
  * Calcium carbonate precipitation potential, solved (not approximated): the amount x of calcite
  * that must precipitate from (x > 0) or dissolve into (x < 0) the closed water so that
@@ -119,27 +159,29 @@ export function precipitationPotentialCalcite(
 ): PrecipitationPotential {
   if (!(calcium > 0))
     fail('ccpp-needs-calcium', 'The precipitation potential needs calcium.', 'calcium_mg_l');
-  const k1k2 = k.k1 * k.k2;
-  const xOf = (h: number): number => {
-    const phi = carbonateAlkalinityPerDic(h, k);
-    return (dic * phi + nonCarbonateAlkalinity(h, k, t) - ta) / (phi - 2);
-  };
-  const g = (ph: number): number => {
-    const h = 10 ** -ph;
-    const x = xOf(h);
-    const ca = calcium - x;
-    const c = dic - x;
-    if (ca <= 0 || c <= 0) return -50; // more than all the calcium or carbon would have to go
-    const co3 = (c * k1k2) / (h * h + k.k1 * h + k1k2);
-    return Math.log10((ca * co3) / k.kspCalcite);
-  };
+  ccpp.ta = ta;
+  ccpp.dic = dic;
+  ccpp.calcium = calcium;
+  ccpp.k = k;
+  ccpp.t = t;
+  const g = ccppResidual;
   const ph0 = -Math.log10(h0);
   const g0 = g(ph0);
   if (g0 === 0) return { molKg: 0, phAfter: ph0 };
   // Precipitation releases H+ (pH falls); dissolution consumes it (pH rises).
   const ph = rootNear(g, ph0, g0 > 0 ? -1 : 1, CCPP_STEP, 0, 14);
-  if (ph !== undefined) return { molKg: xOf(10 ** -ph), phAfter: ph };
+  if (ph !== undefined) return { molKg: ccppX(10 ** -ph), phAfter: ph };
   return fail('ccpp-no-solution', 'No calcite equilibrium was found for this water between pH 0 and 14.');
+}
+
+const air = { co2: 0, ta: 0, k: undefined as unknown as ConstantSet, t: undefined as unknown as MinorTotals };
+function airDic(h: number): number {
+  const k = air.k;
+  return air.co2 * (1 + k.k1 / h + (k.k1 * k.k2) / (h * h));
+}
+function airResidual(x: number): number {
+  const h = 10 ** -x;
+  return airDic(h) * carbonateAlkalinityPerDic(h, air.k) + nonCarbonateAlkalinity(h, air.k, air.t) - air.ta;
 }
 
 /**
@@ -158,11 +200,11 @@ export function phAtAirEquilibrium(
   if (!(pco2Atm > 0))
     fail('bad-air-pco2', 'The pCO2 of the air must be a positive number (µatm).', 'air_pco2_uatm');
   const co2 = k.k0 * pco2Atm * k.fugacityFactor;
-  const dicOf = (h: number): number => co2 * (1 + k.k1 / h + (k.k1 * k.k2) / (h * h));
-  const f = (x: number): number => {
-    const h = 10 ** -x;
-    return dicOf(h) * carbonateAlkalinityPerDic(h, k) + nonCarbonateAlkalinity(h, k, t) - ta;
-  };
+  air.co2 = co2;
+  air.ta = ta;
+  air.k = k;
+  air.t = t;
+  const f = airResidual;
   // Start from the carbonate-only root TA·h² − K1·CO2·h − 2·K1·K2·CO2 = 0.
   const k1c = k.k1 * co2;
   const h0 = (k1c + Math.sqrt(k1c * k1c + 8 * Math.max(ta, 1e-12) * k1c * k.k2)) / (2 * Math.max(ta, 1e-12));
@@ -177,5 +219,5 @@ export function phAtAirEquilibrium(
     );
   }
   const h = 10 ** -x;
-  return { h, dic: dicOf(h) };
+  return { h, dic: airDic(h) };
 }

@@ -35,10 +35,10 @@ export function decideModel(
       ? undefined
       : salinityFromSpecificConductance(fresh.specificConductanceUsCm);
   const d = chooseModel(req.model, {
-    ...(req.salinity === undefined ? {} : { salinity: req.salinity }),
-    ...(fromSc === undefined ? {} : { salinityFromConductance: fromSc }),
-    ...(fresh.ionicStrengthGiven === undefined ? {} : { ionicStrength: fresh.ionicStrengthGiven }),
-    ...(fresh.tdsMgL === undefined ? {} : { tdsMgL: fresh.tdsMgL }),
+    salinity: req.salinity,
+    salinityFromConductance: fromSc,
+    ionicStrength: fresh.ionicStrengthGiven,
+    tdsMgL: fresh.tdsMgL,
     freshKeys: fresh.freshKeys,
   });
   const salinity = req.salinity ?? fromSc;
@@ -78,12 +78,8 @@ export function freshContext(
 ): FreshContext {
   const kgw = kgWaterPerLitre(req, fresh);
   const ionsMolKg = majorIonsToMolKg(fresh.ions, kgw);
-  let calcium = req.calciumMolKg;
-  if (fresh.ions.calcium !== undefined) {
-    if (calcium !== undefined)
-      fail('calcium-given-twice', 'Give calcium once: calcium_mg_l or calcium_umol_kg.', 'calcium_mg_l');
-    calcium = ionsMolKg.ca;
-  }
+  // calcium_mg_l is taken per kg of water here (the request read it per kg of solution).
+  const calcium = fresh.ions.calcium !== undefined ? ionsMolKg.ca : req.calciumMolKg;
   const magnesium =
     fresh.ions.magnesium === undefined
       ? undefined

@@ -6,10 +6,10 @@
  */
 
 import type { FreshWaterOutputs } from '../api';
-import { type Issue, warning } from '../errors';
+import { type Issue, toIssue, warning } from '../errors';
 import { MOLAR_MASS_G_PER_MOL } from '../physical';
 import type { CarbonateState, Conditions, MinorTotals } from '../types';
-import { type AlkalinityUnit, alkalinityFromEqKg } from '../units';
+import { alkalinityFromEqKg } from '../units';
 import { type FreshConstantSet, freshConstants } from './constants';
 import {
   langelierIndex,
@@ -116,59 +116,114 @@ export const TREATMENT_CAUTION =
   'the published limits for the animals and plants in the water, and follow local codes, product labels and licensed practice.';
 
 /** The outputs only the fresh model has, for one state at output conditions. */
-export function freshOutputs(s: CarbonateState, k: FreshConstantSet, ctx: FreshContext): FreshWaterOutputs {
+/** Indices that cannot be computed for this water are left out, with a warning pushed to `warnings`. */
+export function freshOutputs(
+  s: CarbonateState,
+  k: FreshConstantSet,
+  ctx: FreshContext,
+  warnings: Issue[] = [],
+): FreshWaterOutputs {
   const g = k.gamma;
-  const alk = (unit: AlkalinityUnit): number => alkalinityFromEqKg(s.ta, unit, ctx.kgWaterPerL);
-  const out: FreshWaterOutputs = {
-    ph: -Math.log10(s.h),
+  const kgw = ctx.kgWaterPerL;
+  const ph = -Math.log10(s.h);
+  const airAtm = ctx.fresh.airPco2Uatm * 1e-6;
+
+  let phAir: number | undefined;
+  let dicAir: number | undefined;
+  if (s.ta > 0) {
+    try {
+      const air = phAtAirEquilibrium(s.ta, airAtm, k, ctx.minor);
+      phAir = -Math.log10(air.h);
+      dicAir = air.dic * 1e6;
+    } catch (e) {
+      warnings.push(toIssue(e));
+    }
+  }
+
+  let siCalcite: number | undefined;
+  let siAragonite: number | undefined;
+  let siDolomite: number | undefined;
+  let phs: number | undefined;
+  let ccppMgL: number | undefined;
+  let phAfterCcpp: number | undefined;
+  const ca = ctx.calciumMolKg;
+  const hasCa = ca !== undefined && ca > 0;
+  if (hasCa) {
+    // A saturation index needs a carbonate ion to speak of; log(0) would be −∞, so it is left out.
+    siCalcite = finiteSi(ca * s.co3, k.kspCalcite);
+    siAragonite = finiteSi(ca * s.co3, k.kspAragonite);
+    const mg = ctx.magnesiumMolKg;
+    if (mg !== undefined && mg > 0) siDolomite = finiteSi(ca * mg * s.co3 * s.co3, k.kspDolomite);
+    phs = phSaturationCalcite(s.ta, ca, k, ctx.minor);
+    if (phs === undefined) {
+      warnings.push(
+        warning(
+          'no-saturation-ph',
+          'No pH makes this water saturated with calcite at its alkalinity and calcium: no Langelier or Ryznar index.',
+        ),
+      );
+    }
+    // One index that cannot be computed must not take the whole solve down with it.
+    try {
+      const p = precipitationPotentialCalcite(s.ta, s.dic, ca, s.h, k, ctx.minor);
+      ccppMgL = p.molKg * MOLAR_MASS_G_PER_MOL.CaCO3 * 1000 * kgw;
+      phAfterCcpp = p.phAfter;
+    } catch (e) {
+      warnings.push(toIssue(e));
+    }
+  }
+  const cbe =
+    ctx.plan.method === 'major-ions'
+      ? chargeBalanceErrorPercent(ctx.ionsMolKg, {
+          hco3: s.hco3,
+          co3: s.co3,
+          oh: k.kw / s.h,
+          hFree: s.h * k.freeHFactor,
+        })
+      : undefined;
+
+  // One literal with every key, absent ones undefined (JSON drops them): a fixed shape keeps the
+  // per-row cost of building the output low.
+  return {
+    ph,
     ionic_strength_mol_kg: k.ionicStrength,
     ionic_strength_method: ctx.plan.method,
     activity_model: k.activityModel,
     activity_coefficients: { h: g.H, oh: g.OH, hco3: g.HCO3, co3: g.CO3, ca: g.Ca, mg: g.Mg, co2: g.neutral },
     pksp_dolomite: -Math.log10(k.kspDolomite),
-    alkalinity_mmol_kg: alk('mmol_kg'),
-    alkalinity_mmol_l: alk('mmol_l'),
-    alkalinity_meq_l: alk('meq_l'),
-    alkalinity_mg_l_caco3: alk('mg_l_caco3'),
-    alkalinity_mg_l_hco3: alk('mg_l_hco3'),
-    alkalinity_ppm_caco3: alk('ppm_caco3'),
-    alkalinity_dkh: alk('dkh'),
+    constants_infinite_dilution: {
+      pk0: -k.thermodynamic.k0,
+      pk1: -k.thermodynamic.k1,
+      pk2: -k.thermodynamic.k2,
+      pkw: -k.thermodynamic.kw,
+      pksp_calcite: -k.thermodynamic.kspCalcite,
+      pksp_aragonite: -k.thermodynamic.kspAragonite,
+      pksp_dolomite: -k.thermodynamic.kspDolomite,
+    },
+    alkalinity_mmol_kg: alkalinityFromEqKg(s.ta, 'mmol_kg', kgw),
+    alkalinity_mmol_l: alkalinityFromEqKg(s.ta, 'mmol_l', kgw),
+    alkalinity_meq_l: alkalinityFromEqKg(s.ta, 'meq_l', kgw),
+    alkalinity_mg_l_caco3: alkalinityFromEqKg(s.ta, 'mg_l_caco3', kgw),
+    alkalinity_mg_l_hco3: alkalinityFromEqKg(s.ta, 'mg_l_hco3', kgw),
+    alkalinity_ppm_caco3: alkalinityFromEqKg(s.ta, 'ppm_caco3', kgw),
+    alkalinity_dkh: alkalinityFromEqKg(s.ta, 'dkh', kgw),
     air_pco2_uatm: ctx.fresh.airPco2Uatm,
-    pco2_excess_ratio: s.pco2 / (ctx.fresh.airPco2Uatm * 1e-6),
+    pco2_excess_ratio: s.pco2 / airAtm,
+    ph_air_equilibrium: phAir,
+    dic_air_equilibrium_umol_kg: dicAir,
+    saturation_index_calcite: siCalcite,
+    saturation_index_aragonite: siAragonite,
+    saturation_index_dolomite: siDolomite,
+    ph_saturation_calcite: phs,
+    langelier_index: phs === undefined ? undefined : langelierIndex(ph, phs),
+    ryznar_index: phs === undefined ? undefined : ryznarIndex(ph, phs),
+    ccpp_mg_l_caco3: ccppMgL,
+    ph_after_ccpp: phAfterCcpp,
+    treatment_caution: hasCa ? TREATMENT_CAUTION : undefined,
+    charge_balance_error_percent: cbe,
   };
-  const airAtm = ctx.fresh.airPco2Uatm * 1e-6;
-  if (s.ta > 0) {
-    const air = phAtAirEquilibrium(s.ta, airAtm, k, ctx.minor);
-    out.ph_air_equilibrium = -Math.log10(air.h);
-    out.dic_air_equilibrium_umol_kg = air.dic * 1e6;
-  }
+}
 
-  const ca = ctx.calciumMolKg;
-  if (ca !== undefined && ca > 0) {
-    out.saturation_index_calcite = saturationIndex(ca * s.co3, k.kspCalcite);
-    out.saturation_index_aragonite = saturationIndex(ca * s.co3, k.kspAragonite);
-    const mg = ctx.magnesiumMolKg;
-    if (mg !== undefined && mg > 0)
-      out.saturation_index_dolomite = saturationIndex(ca * mg * s.co3 * s.co3, k.kspDolomite);
-    const phs = phSaturationCalcite(s.ta, ca, k, ctx.minor);
-    if (phs !== undefined) {
-      const ph = -Math.log10(s.h);
-      out.ph_saturation_calcite = phs;
-      out.langelier_index = langelierIndex(ph, phs);
-      out.ryznar_index = ryznarIndex(ph, phs);
-    }
-    const ccpp = precipitationPotentialCalcite(s.ta, s.dic, ca, s.h, k, ctx.minor);
-    out.ccpp_mg_l_caco3 = ccpp.molKg * MOLAR_MASS_G_PER_MOL.CaCO3 * 1000 * ctx.kgWaterPerL;
-    out.ph_after_ccpp = ccpp.phAfter;
-    out.treatment_caution = TREATMENT_CAUTION;
-  }
-  if (ctx.plan.method === 'major-ions') {
-    out.charge_balance_error_percent = chargeBalanceErrorPercent(ctx.ionsMolKg, {
-      hco3: s.hco3,
-      co3: s.co3,
-      oh: k.kw / s.h,
-      hFree: s.h * k.freeHFactor,
-    });
-  }
-  return out;
+function finiteSi(product: number, ksp: number): number | undefined {
+  return product > 0 && Number.isFinite(Math.log10(product)) ? saturationIndex(product, ksp) : undefined;
 }

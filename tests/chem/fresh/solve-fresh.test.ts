@@ -233,3 +233,61 @@ describe('fresh round trips through solve()', () => {
     );
   });
 });
+
+describe('never NaN', () => {
+  const finiteEverywhere = (v: unknown, path: string): void => {
+    if (typeof v === 'number') expect(Number.isFinite(v), path).toBe(true);
+    else if (v && typeof v === 'object')
+      for (const [k, x] of Object.entries(v)) finiteEverywhere(x, `${path}.${k}`);
+  };
+  it('every number of a fresh solve is finite, or the solve is a coded error', () => {
+    fc.assert(
+      fc.property(
+        fc.double({ min: -2, max: 99, noNaN: true }),
+        fc.double({ min: 3, max: 11.5, noNaN: true }),
+        fc.double({ min: 0, max: 20, noNaN: true }),
+        fc.option(fc.double({ min: 0, max: 600, noNaN: true })),
+        fc.option(fc.double({ min: 0, max: 5000, noNaN: true })),
+        fc.constantFrom('davies', 'debye-huckel', 'truesdell-jones'),
+        fc.constantFrom('ph', 'pco2', 'ions'),
+        (t, ph, meq, ca, sc, activity, variant) => {
+          const ions =
+            variant === 'ions'
+              ? { chloride_mg_l: sc ?? 5, sodium_mg_l: (sc ?? 5) / 3, sulfate_mg_l: 10 }
+              : {};
+          const r = solve({
+            model: 'fresh',
+            temperature_c: t,
+            ...(variant === 'pco2' ? { pco2_uatm: 10 ** ph } : { ph }),
+            alkalinity_meq_l: meq,
+            calcium_mg_l: ca ?? undefined,
+            specific_conductance_us_cm: sc ?? undefined,
+            activity_model: activity,
+            ...ions,
+          });
+          if (isSolveError(r)) expect(r.error.code).toMatch(/^[a-z-]+$/);
+          else finiteEverywhere(r, 'out');
+        },
+      ),
+      { numRuns: 300 },
+    );
+  });
+});
+
+describe('fresh-water keys in the saline model', () => {
+  it('uses calcium in mg/L with the seawater density and says which fresh keys it ignores', () => {
+    const r = solved({
+      temperature_c: 25,
+      salinity: 35,
+      alkalinity_dkh: 8,
+      ph: 8.15,
+      ph_scale: 'nbs',
+      calcium_mg_l: 420,
+      magnesium_mg_l: 1300,
+    });
+    expect(r.model).toBe('saline');
+    // 420 mg/L / 40.078 g/mol / 1.023343 kg/L (EOS-80) = 10 240 µmol/kg.
+    expect(r.totals_umol_kg.calcium).toBeCloseTo((420 / 40.078 / 1.023343) * 1000, 0);
+    expect(r.warnings.find((w) => w.code === 'fresh-keys-unused')?.message).toContain('magnesium_mg_l');
+  });
+});

@@ -26,6 +26,8 @@ export default defineConfig({
         // without iife, registration fails and the app is not offline (see docs/toolchain.md).
         rollupFormat: 'iife',
         globPatterns: ['**/*.{js,css,html,png,webmanifest}'],
+        // Store screenshots are for install prompts, not for working offline.
+        globIgnores: ['screenshots/**'],
       },
       manifest: {
         name: 'Tufa — carbonate system of natural waters',
@@ -42,6 +44,22 @@ export default defineConfig({
           { src: 'icons/maskable-192.png', sizes: '192x192', type: 'image/png', purpose: 'maskable' },
           { src: 'icons/maskable-512.png', sizes: '512x512', type: 'image/png', purpose: 'maskable' },
         ],
+        screenshots: [
+          {
+            src: 'screenshots/site-phone.png',
+            sizes: '412x900',
+            type: 'image/png',
+            form_factor: 'narrow',
+            label: 'A site log with its time series',
+          },
+          {
+            src: 'screenshots/reading-wide.png',
+            sizes: '1100x971',
+            type: 'image/png',
+            form_factor: 'wide',
+            label: 'Entering a reading, results as you type',
+          },
+        ],
       },
     }),
   ],
@@ -50,6 +68,7 @@ export default defineConfig({
     setupFiles: ['tests/setup.ts'],
     // Two shared cores: generous limits, since property tests and CLI spawns slow down under load.
     testTimeout: 60_000,
+    environment: 'node',
     // Two cores: keep the pool small so browser tests and unit tests do not starve each other.
     maxWorkers: 2,
     projects: [

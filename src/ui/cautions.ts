@@ -19,11 +19,12 @@ export function resultAlerts(r: Record<string, unknown>): string[] {
   const pco2 = r.pco2_uatm;
   if (typeof pco2 === 'number' && pco2 > 10000) {
     out.push(
-      'pCO₂ is very high: fish may be stressed. Aerate gradually and re-measure; do not chase pH with chemicals.',
+      'pCO₂ is very high. That is usual for springs and groundwater, but fish in a tank or pond held at this level are stressed: aerate gradually and re-measure rather than chasing pH with chemicals.',
     );
   }
   const om = r.omega_aragonite;
-  if (typeof om === 'number' && om < 1) {
+  // A reef keeper's concern; in fresh water undersaturation is common and harmless to note.
+  if (r.model === 'saline' && typeof om === 'number' && om < 1) {
     out.push('Ω aragonite is below 1: aragonite tends to dissolve. Raise alkalinity only slowly if at all.');
   }
   return out;

@@ -24,5 +24,8 @@ export function readingInput(
   site: SiteDoc | undefined,
   settings: Settings,
 ): { input: SolveInput; unknown: string[] } {
-  return toSolveInput(values, solveContext(site, settings));
+  const out = toSolveInput(values, solveContext(site, settings));
+  // The air the water is compared with (equilibrium pH, excess pCO2), from Settings.
+  out.input.air_pco2_uatm = settings.atmospheric_pco2_uatm;
+  return out;
 }

@@ -11,7 +11,7 @@
  */
 
 import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { cpus, loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { chromium } from 'playwright-core';
@@ -28,7 +28,12 @@ export interface BrowserFigures {
   bulkSaveMs: number;
   readBackMs: number;
   readBackCount: number;
+  /** Log documents to chart columns (once per log load). */
+  columnsMs: number;
+  /** Columns to a drawn chart: merge, decimate, uPlot build and first frame (median of 5). */
   chartMs: number;
+  /** The same, first of the 5 renders. */
+  chartFirstMs: number;
   chartDrawn: number;
   coldStartMs: number;
   shellGzipBytes: number;
@@ -96,14 +101,33 @@ async function storeAndChart(url: string): Promise<Omit<BrowserFigures, 'coldSta
       s = performance.now();
       const t = Float64Array.from(back, (r) => Date.parse(r.takenAt) / 1000);
       const v = back.map((r) => r.values[0]?.value ?? null);
-      const chart = B.createTimeChart(el, B.mergeSeries([{ t, v }]), [{ label: 'Temperature', unit: '°C' }]);
-      // uPlot draws on its own commit; wait for the frame that shows it.
-      await new Promise((r) => requestAnimationFrame(() => r(undefined)));
-      const chartMs = performance.now() - s;
-      const chartDrawn = chart.drawnPoints();
-      chart.destroy();
+      const columnsMs = performance.now() - s;
+      // Five renders from the same columns: the first (cold) and the median are reported.
+      const times: number[] = [];
+      let chartDrawn = 0;
+      for (let k = 0; k < 5; k++) {
+        s = performance.now();
+        const chart = B.createTimeChart(el, B.mergeSeries([{ t, v }]), [
+          { label: 'Temperature', unit: '°C' },
+        ]);
+        // uPlot draws on its own commit; wait for the frame that shows it.
+        await new Promise((r) => requestAnimationFrame(() => r(undefined)));
+        times.push(performance.now() - s);
+        chartDrawn = chart.drawnPoints();
+        chart.destroy();
+      }
+      const chartFirstMs = times[0]!;
+      const chartMs = times.slice().sort((x, y) => x - y)[2]!;
       repo.close();
-      return { bulkSaveMs, readBackMs, readBackCount: back.length, chartMs, chartDrawn };
+      return {
+        bulkSaveMs,
+        readBackMs,
+        readBackCount: back.length,
+        columnsMs,
+        chartMs,
+        chartFirstMs,
+        chartDrawn,
+      };
     });
   } finally {
     await browser.close();
@@ -179,13 +203,18 @@ export async function runBrowserBench(): Promise<BrowserFigures> {
 
 function line(name: string, value: string, target: string, ok: boolean) {
   console.log(
-    `${name.padEnd(44)} ${value.padStart(12)}   target ${target.padEnd(10)} ${ok ? 'ok' : 'MISSED'}`,
+    `${name.padEnd(54)} ${value.padStart(12)}   target ${target.padEnd(10)} ${ok ? 'ok' : 'MISSED'}`,
   );
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) {
   const f = await runBrowserBench();
-  console.log('Browser (headless Chromium):');
+  const load = loadavg()
+    .map((x) => x.toFixed(1))
+    .join(' ');
+  console.log(
+    `Browser (headless Chromium; ${cpus().length} cores, load average ${load} — figures vary with load):`,
+  );
   line(
     'bulk-save 100 000 readings (+ outbox)',
     `${f.bulkSaveMs.toFixed(0)} ms`,
@@ -198,11 +227,18 @@ if (import.meta.url === `file://${process.argv[1]}`) {
     '< 1000 ms',
     f.readBackMs < 1000,
   );
+  line('log to chart columns (100 000 readings)', `${f.columnsMs.toFixed(0)} ms`, '(info)', true);
   line(
-    `render 100 000-point chart (${f.chartDrawn} drawn)`,
+    `render 100k-point chart, median of 5 (${f.chartDrawn} drawn)`,
     `${f.chartMs.toFixed(0)} ms`,
     '< 200 ms',
     f.chartMs < 200,
+  );
+  line(
+    'render 100k-point chart, first of 5',
+    `${f.chartFirstMs.toFixed(0)} ms`,
+    '< 200 ms',
+    f.chartFirstMs < 200,
   );
   line(
     'cold start offline to first usable input',

@@ -4,7 +4,9 @@
  * finds no serious or critical violations on the main screens (light, dark and high contrast).
  */
 
+import { readFileSync, writeFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
+import { fileURLToPath } from 'node:url';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { SHELL_BUDGET_BYTES, shellSize } from '../bench/size-budget';
@@ -90,6 +92,40 @@ describe('installable app', () => {
     await untilControlled(page);
     const script = await page.evaluate(() => navigator.serviceWorker.controller?.scriptURL);
     expect(script).toBe(new URL('sw.js', base).href);
+  });
+
+  it('offers a new version instead of activating it silently', async () => {
+    const context = await newContext(browser);
+    const p = await context.newPage();
+    const swFile = fileURLToPath(new URL('../../dist/sw.js', import.meta.url));
+    const original = readFileSync(swFile, 'utf8');
+    try {
+      await openApp(p, base);
+      await untilControlled(p);
+      // A new deploy: the worker script changes on the server.
+      writeFileSync(swFile, `${original}\n// next version ${Date.now()}\n`);
+      await p.evaluate(() => navigator.serviceWorker.getRegistration().then((r) => r?.update()));
+      await p.getByText('A new version of Tufa is ready.').waitFor({ timeout: 20_000 });
+      expect(
+        await p.evaluate(() => navigator.serviceWorker.getRegistration().then((r) => !!r?.waiting)),
+      ).toBe(true);
+      await screenshot(p, '09-update-prompt', { fullPage: false });
+      await Promise.all([
+        p.waitForEvent('load'),
+        p.getByRole('button', { name: 'Reload to update' }).click(),
+      ]);
+      await p.waitForSelector('html[data-ready="true"]');
+      const after = await p.evaluate(() =>
+        navigator.serviceWorker
+          .getRegistration()
+          .then((r) => ({ waiting: !!r?.waiting, controlled: !!navigator.serviceWorker.controller })),
+      );
+      expect(after).toEqual({ waiting: false, controlled: true });
+      expect(await p.getByText('A new version of Tufa is ready.').count()).toBe(0);
+    } finally {
+      writeFileSync(swFile, original);
+      await context.close();
+    }
   });
 
   it('keeps the first-load JavaScript of the shell within 100 KB gzip', () => {

@@ -75,6 +75,14 @@ describe('site and reading', () => {
     await page.getByRole('heading', { name: 'Reading', exact: true }).waitFor();
     await page.locator('[data-testid="speciation"]').waitFor();
     await screenshot(page, '04-reading-detail');
+
+    // Planning is loaded on demand from the reading, and a plan shows its cautions.
+    await page.getByRole('button', { name: /Plan a dose/ }).click();
+    await page.getByRole('button', { name: 'Show the result' }).click();
+    await page.getByRole('heading', { name: 'Cautions' }).waitFor({ timeout: 15_000 });
+    await screenshot(page, '04b-plan-panel');
+    await page.getByRole('button', { name: 'Save plan with this reading' }).click();
+    await expect.poll(() => page.getByText('A plan is saved with this reading.').count()).toBe(1);
     const detailUrl = page.url();
 
     await page.reload();
@@ -83,6 +91,24 @@ describe('site and reading', () => {
     await expect.poll(() => page.locator('.output .value').first().textContent()).toBe('25');
     await page.getByRole('link', { name: 'Saltmarsh holding tank' }).click();
     await expect.poll(() => page.locator('.log li').count()).toBe(1);
+  });
+
+  it('puts validity warnings beside the value they concern', async () => {
+    await openApp(page, base);
+    await page.getByRole('link', { name: /Saltmarsh holding tank/ }).click();
+    await page.getByRole('link', { name: 'New reading' }).click();
+    await page.getByLabel('Temperature', { exact: true }).fill('40'); // above the 2–35 °C of Lueker et al. 2000
+    await page.getByLabel('pH', { exact: true }).fill('8.0');
+    await page.getByLabel('Alkalinity', { exact: true }).fill('2300');
+    const tempRow = page.locator('.qrow', { has: page.getByLabel('Temperature', { exact: true }) });
+    await expect
+      .poll(() => tempRow.locator('.issue.warn').count(), { timeout: 10_000 })
+      .toBeGreaterThanOrEqual(2);
+    expect(await tempRow.textContent()).toContain('Lueker et al. 2000');
+    // The salinity row (35) is inside every range: no warning there.
+    const salRow = page.locator('.qrow', { has: page.getByLabel('Salinity', { exact: true }) });
+    expect(await salRow.locator('.issue.warn').count()).toBe(0);
+    await page.getByRole('link', { name: 'Cancel' }).click();
   });
 
   it('refuses a value that is not a number, with a code, and saves nothing', async () => {

@@ -21,6 +21,17 @@ export interface PointSeries {
 export function mergeSeries(series: PointSeries[]): Columnar {
   if (series.length === 1) {
     const s = series[0]!;
+    // The log comes oldest first: when x is already strictly ascending, copy without sorting.
+    let ascending = true;
+    for (let i = 1; i < s.t.length && ascending; i++) ascending = s.t[i]! > s.t[i - 1]!;
+    if (ascending) {
+      const y: Column = new Array(s.t.length);
+      for (let i = 0; i < s.t.length; i++) {
+        const v = s.v[i];
+        y[i] = v !== null && v !== undefined && Number.isFinite(v) ? v : null;
+      }
+      return { xs: Float64Array.from(s.t), ys: [y] };
+    }
     const order = Array.from({ length: s.t.length }, (_, i) => i).sort((a, b) => s.t[a]! - s.t[b]!);
     const xs: number[] = [];
     const y: Column = [];

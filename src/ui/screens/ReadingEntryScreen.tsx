@@ -256,8 +256,8 @@ export function ReadingEntryScreen(props: { siteId?: string; readingId?: string 
                   {plausibleNote && (
                     <span class="issue warn">Unusual value for {q.label.toLowerCase()}: please check.</span>
                   )}
-                  {(byQuantity.get(row.quantity) ?? []).map((w) => (
-                    <span key={w.code} class="issue warn">
+                  {(byQuantity.get(row.quantity) ?? []).map((w, k) => (
+                    <span key={`${w.code}-${k}`} class="issue warn">
                       <code>{w.code}</code> {w.message}
                     </span>
                   ))}

@@ -65,11 +65,15 @@ function Speciation(props: { result: SolveOutput }) {
   );
 }
 
+type PlanPanelType = typeof import('../plan/PlanPanel').PlanPanel;
+
 export function ReadingScreen(props: { readingId: string }) {
   const { repo, settings, locale, notify, dataChanged, reportError } = useApp();
   const [reading, setReading] = useState<ReadingDoc | null>();
   const [site, setSite] = useState<SiteDoc>();
   const [result, setResult] = useState<SolveResult>();
+  // The planning panel carries the plan engine: loaded only when asked for.
+  const [Planner, setPlanner] = useState<PlanPanelType>();
 
   useEffect(() => {
     (async () => {
@@ -149,8 +153,10 @@ export function ReadingScreen(props: { readingId: string }) {
             <h2 id="spec-h">Speciation</h2>
             <Speciation result={ok} />
           </section>
-          <section class="panel" aria-labelledby="const-h">
-            <h2 id="const-h">Constants and formulations</h2>
+          <details class="panel">
+            <summary>
+              <h2 class="inline-h">Constants and formulations</h2>
+            </summary>
             <table class="kv">
               <caption class="sr-only">
                 Constants used (−log10 unless named otherwise), totals and formulations
@@ -178,6 +184,30 @@ export function ReadingScreen(props: { readingId: string }) {
                     </td>
                   </tr>
                 )}
+                {Object.entries(ok as unknown as Record<string, unknown>)
+                  .filter(
+                    ([k, v]) =>
+                      typeof v === 'string' && !['model', 'model_reason', 'treatment_caution'].includes(k),
+                  )
+                  .map(([k, v]) => (
+                    <tr key={`s-${k}`}>
+                      <th scope="row">{k.replace(/_/g, ' ')}</th>
+                      <td>{String(v)}</td>
+                    </tr>
+                  ))}
+                {Object.entries(
+                  ((ok as unknown as Record<string, unknown>).activity_coefficients ?? {}) as Record<
+                    string,
+                    unknown
+                  >,
+                )
+                  .filter(([, v]) => typeof v === 'number')
+                  .map(([k, v]) => (
+                    <tr key={`g-${k}`}>
+                      <th scope="row">activity coefficient γ {k}</th>
+                      <td>{formatNumber(v as number, locale, { digits: 4 })}</td>
+                    </tr>
+                  ))}
                 {Object.entries(ok.formulations).map(([k, v]) => (
                   <tr key={`f-${k}`}>
                     <th scope="row">{k}</th>
@@ -186,9 +216,38 @@ export function ReadingScreen(props: { readingId: string }) {
                 ))}
               </tbody>
             </table>
-          </section>
+          </details>
         </>
       )}
+      <section class="panel" aria-label="Plan a change">
+        {reading.plan !== undefined && <p class="muted">A plan is saved with this reading.</p>}
+        {Planner ? (
+          <Planner
+            reading={readingInput(reading.values, site, settings).input}
+            onSave={async (plan) => {
+              try {
+                setReading(await repo.updateReading(reading.id, { plan }));
+                dataChanged();
+                notify({ kind: 'info', text: 'Plan saved with the reading.' });
+              } catch (e) {
+                reportError(storeIssue(e));
+              }
+            }}
+          />
+        ) : (
+          <button
+            type="button"
+            onClick={() =>
+              import('../plan/PlanPanel').then(
+                (m) => setPlanner(() => m.PlanPanel),
+                (e) => reportError({ code: 'plan-unavailable', message: String(e) }),
+              )
+            }
+          >
+            Plan a dose, aeration or mix for this water
+          </button>
+        )}
+      </section>
       <div class="actions">
         <a class="button primary" href={`#/site/${reading.siteId}/new-reading`}>
           Another reading here

@@ -63,12 +63,13 @@ export function ResultsPanel(props: { result: SolveResult | undefined; busy?: bo
       )}
       <p class="muted small">
         Model: {result.model}
+        {typeof record.model_reason === 'string' ? ` (${record.model_reason})` : ''}
         {result.pair ? ` · solved from ${pairLabel(result.pair)}` : ''}
       </p>
       {general.length > 0 && (
         <ul class="warnings">
-          {general.map((w) => (
-            <li key={w.code + (w.field ?? '')} class="issue warn">
+          {general.map((w, k) => (
+            <li key={`${w.code}-${k}`} class="issue warn">
               <code>{w.code}</code> {w.message}
             </li>
           ))}
@@ -79,6 +80,11 @@ export function ResultsPanel(props: { result: SolveResult | undefined; busy?: bo
           {a}
         </p>
       ))}
+      {typeof record.treatment_caution === 'string' && (
+        <p class="caution" role="note">
+          {record.treatment_caution}
+        </p>
+      )}
       <p class="caution" role="note">
         {RESULT_CAUTION}
       </p>

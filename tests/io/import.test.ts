@@ -99,6 +99,22 @@ describe('CSV import', () => {
     expect((await repo.listSites()).length).toBe(2);
   });
 
+  it('re-importing a big file (the bulk existence check) creates no duplicates either', async () => {
+    const { store, repo } = await fresh();
+    const rows = Array.from(
+      { length: 1200 },
+      (_, i) => `Mill pond;${new Date(Date.UTC(2026, 5, 1) + i * 60000).toISOString()};8,${100 + (i % 50)}`,
+    );
+    const text = `site;taken_at;ph\n${rows.join('\n')}\n`;
+    expect((await importText(store, text, 'UTC')).report).toMatchObject({ ok: true, written: 1200 });
+    expect((await importText(store, text, 'UTC')).report).toMatchObject({
+      ok: true,
+      written: 0,
+      alreadyPresent: 1200,
+    });
+    expect((await repo.listAllReadings()).length).toBe(1200);
+  });
+
   it('a malformed file writes nothing and reports every bad row with its column', async () => {
     const { store, repo } = await fresh();
     const bad =

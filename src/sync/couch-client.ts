@@ -243,6 +243,13 @@ export class CouchClient {
     return r.status === 404 ? undefined : r.body;
   }
 
+  /** Every leaf revision of a doc, deleted ones included; empty when the server never had it. */
+  async leafRevs(id: string): Promise<CouchDoc[]> {
+    const r = await this.request<{ ok?: CouchDoc }[]>('GET', `${encodeURIComponent(id)}?open_revs=all`);
+    if (r.status === 404 || !Array.isArray(r.body)) return [];
+    return r.body.flatMap((x) => (x.ok ? [x.ok] : []));
+  }
+
   /** Removes one losing revision of a doc (after the user has resolved its conflict). */
   async deleteRev(id: string, rev: string): Promise<void> {
     await this.request('DELETE', `${encodeURIComponent(id)}?rev=${encodeURIComponent(rev)}`);

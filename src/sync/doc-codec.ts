@@ -9,7 +9,7 @@ import type { CouchDoc } from './couch-client';
 
 export function toCouch(doc: TufaDoc): CouchDoc {
   const { id, rev, ...rest } = doc;
-  return rev === undefined ? { _id: id, ...rest } : { _id: id, _rev: rev, ...rest };
+  return rev === undefined || rev === null ? { _id: id, ...rest } : { _id: id, _rev: rev, ...rest };
 }
 
 /** Our doc from a server doc, or `undefined` for a CouchDB deletion of a doc we never had. */

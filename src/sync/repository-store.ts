@@ -96,6 +96,12 @@ export class RepositoryStore implements SyncStore, ImportTarget, BackupStore {
     await this.repo.bulkPut(docs, { queue: true });
   }
 
+  async queueAll(): Promise<number> {
+    const docs = await this.allDocs();
+    if (docs.length) await this.repo.bulkPut(docs, { queue: true });
+    return docs.length;
+  }
+
   async dropOutbox(docIds: readonly string[]): Promise<void> {
     const ids = new Set(docIds);
     await this.repo.ackOutbox((await this.repo.listOutbox()).filter((e) => ids.has(e.docId)));

@@ -175,11 +175,20 @@ export class SyncEngine {
     return `tufa-pull-${this.o.deviceId}`;
   }
 
+  /**
+   * Where to pull from. The local checkpoint counts only if the server's `_local` copy agrees.
+   * If this device has synced before but the server has no checkpoint of it at all, the server
+   * database was recreated or restored: everything local is queued again (pushes are idempotent).
+   */
   private async startSeq(): Promise<string | number> {
     const local = await this.store.getMeta<string | number>(CHECKPOINT);
     if (local === undefined) return 0;
     const remote = await this.client.getLocal<{ last_seq?: string | number }>(this.checkpointName());
-    return remote && String(remote.last_seq) === String(local) ? local : 0;
+    if (!remote) {
+      await this.store.queueAll();
+      return 0;
+    }
+    return String(remote.last_seq) === String(local) ? local : 0;
   }
 
   private async pull(total: SyncRunResult): Promise<void> {
@@ -189,8 +198,9 @@ export class SyncEngine {
       const docs = page.results.flatMap((r) => (r.doc && !r.id.startsWith('_design/') ? [r.doc] : []));
       if (docs.length > 0) await this.applyPulled(docs, total);
       since = page.last_seq;
-      await this.store.setMeta(CHECKPOINT, since);
+      // Server copy first: a device checkpoint without one would look like a server reset.
       await this.client.putLocal(this.checkpointName(), { last_seq: since, device: this.o.deviceId });
+      await this.store.setMeta(CHECKPOINT, since);
       if (page.results.length < this.o.pullLimit) return;
     }
   }
@@ -301,6 +311,7 @@ export class SyncEngine {
       const byId = new Map(rows.map((r) => [r.id, r]));
       const ok: { docId: string; rev: string; updatedAt: string }[] = [];
       const missing: string[] = [];
+      const fresh: TufaDoc[] = [];
       for (const d of sent) {
         const row = byId.get(d.id);
         if (!row) {
@@ -311,7 +322,24 @@ export class SyncEngine {
           const server = await this.client.getDoc(d.id);
           if (server && sameContent(server, toCouch(d))) {
             ok.push({ docId: d.id, rev: server._rev!, updatedAt: d.updatedAt }); // our earlier write, answer lost
-          } else if (server) {
+          } else if (!server) {
+            // Not readable: deleted on the server (a tombstone leaf) or never there (database recreated).
+            const leaves = await this.client.leafRevs(d.id);
+            const tomb = leaves.find((l) => l._deleted && l._rev);
+            if (leaves.length === 0) fresh.push(d);
+            else if (tomb?._rev) {
+              await this.store.putConflict({
+                docId: d.id,
+                kind: 'edit',
+                local: d,
+                others: [{ rev: tomb._rev, doc: { ...d, deleted: true, rev: tomb._rev } }],
+                baseRev: tomb._rev,
+                deleteRevs: [],
+                detectedAt: this.o.now().toISOString(),
+              });
+              total.conflicts++;
+            }
+          } else {
             const theirs = fromCouch(server, d, this.o.now());
             if (theirs && server._rev) {
               await this.store.putConflict({
@@ -333,6 +361,17 @@ export class SyncEngine {
               `The server refused ${d.type} ${d.id}: ${row.error ?? 'no revision in the answer'}${row.reason ? ` (${row.reason})` : ''}.`,
             ),
           );
+        }
+      }
+      if (fresh.length) {
+        // The server has no trace of these: send them as new documents.
+        const again = await this.client.bulkDocs(
+          fresh.map((d) => toCouch({ ...d, rev: undefined } as TufaDoc)),
+        );
+        for (const r of again) {
+          const d = fresh.find((x) => x.id === r.id);
+          if (d && r.rev && r.error === undefined)
+            ok.push({ docId: d.id, rev: r.rev, updatedAt: d.updatedAt });
         }
       }
       if (ok.length) await this.store.markPushed(ok);

@@ -57,6 +57,8 @@ export interface SyncStore {
   /** A local change (e.g. a conflict resolved by the user): stored and queued. */
   putLocal(doc: TufaDoc): Promise<void>;
   dropOutbox(docIds: readonly string[]): Promise<void>;
+  /** Queues every local doc again (the server lost its data); returns how many. */
+  queueAll(): Promise<number>;
   getMeta<T>(key: string): Promise<T | undefined>;
   setMeta(key: string, value: unknown): Promise<void>;
   conflicts(): Promise<ConflictRecord[]>;

@@ -119,4 +119,44 @@ describe('two devices against a real CouchDB API', () => {
     expect(after.name).toBe('Well W7 (north)');
     expect(after._conflicts).toBeUndefined();
   }, 60000);
+
+  it('the server database is recreated empty: the device sends everything again', async () => {
+    const db = `${DB}-reset`;
+    await server.createDb(db);
+    const a = await device(server.url, db);
+    const site = await a.repo.createSite(siteInput('Spring S4'));
+    for (let i = 0; i < 3; i++) await a.repo.createReading(readingInput(site.id, i));
+    await a.engine.sync();
+    expect((await server.allDocs(db)).length).toBe(4);
+    expect(await fetch(`${server.url}${db}`, { method: 'DELETE' }).then((r) => r.ok)).toBe(true);
+    await server.createDb(db);
+    const run = await a.engine.sync();
+    expect(run.pushed).toBe(4);
+    expect((await server.allDocs(db)).length).toBe(4);
+    expect(await a.repo.outboxSize()).toBe(0);
+  }, 60000);
+
+  it('an edit meets a deletion made on the server: both kept, the user decides', async () => {
+    const db = `${DB}-deleted`;
+    await server.createDb(db);
+    const a = await device(server.url, db);
+    const site = await a.repo.createSite(siteInput('Tank 9'));
+    const r = await a.repo.createReading(readingInput(site.id, 1));
+    await a.engine.sync();
+    const cur = (await (await fetch(`${server.url}${db}/${r.id}`)).json()) as { _rev: string };
+    expect((await fetch(`${server.url}${db}/${r.id}?rev=${cur._rev}`, { method: 'DELETE' })).ok).toBe(true);
+    await a.repo.updateReading(r.id, { notes: 'pH probe replaced' });
+    const run = await a.engine.sync();
+    expect(run.conflicts).toBe(1);
+    const [c] = await a.store.conflicts();
+    expect(c?.others[0]?.doc.deleted).toBe(true);
+    expect(c?.local.type === 'reading' && c.local.notes).toBe('pH probe replaced');
+    await a.engine.resolve(r.id, 'local');
+    await a.engine.sync();
+    const back = (await (await fetch(`${server.url}${db}/${r.id}`)).json()) as {
+      notes: string;
+      deleted: boolean;
+    };
+    expect(back).toMatchObject({ notes: 'pH probe replaced', deleted: false });
+  }, 60000);
 });

@@ -19,7 +19,10 @@ export function parseNumber(raw: string, decimalComma: boolean): number | undefi
   return Number.isFinite(v) ? v : undefined;
 }
 
-/** Writes a number for CSV with a point decimal, shortest round-trip form, never `NaN`. */
+/**
+ * Writes a number for CSV with a point decimal, never `NaN`: 12 significant digits, more than any
+ * measurement or result has, so exact unit conversions print as 9 and not 9.000000000000002.
+ */
 export function formatNumber(v: number | undefined): string {
-  return v === undefined || !Number.isFinite(v) ? '' : String(v);
+  return v === undefined || !Number.isFinite(v) ? '' : String(Number(v.toPrecision(12)));
 }

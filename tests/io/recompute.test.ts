@@ -59,7 +59,10 @@ describe('tufa recompute --csv', () => {
       alkalinity_umol_kg: 2300,
     });
     expect('error' in direct).toBe(false);
-    expect(Number(row.computed_dic_umol_kg)).toBe((direct as { dic_umol_kg: number }).dic_umol_kg);
+    // CSV carries 12 significant digits.
+    expect(Number(row.computed_dic_umol_kg)).toBe(
+      Number((direct as { dic_umol_kg: number }).dic_umol_kg.toPrecision(12)),
+    );
     expect(err).toContain('line 3, column "Temp (°C)": value-not-a-number');
   });
   it('exits 2 with help for unusable options', async () => {

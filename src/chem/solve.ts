@@ -96,7 +96,7 @@ export function solveRequest(reqIn: SolveRequest, options: SolveOptions = {}): S
     return solvePair(PARAM_OF[a], va, PARAM_OF[b], vb, k, req.minor);
   };
   const sameConditions = req.outTemperatureC === req.temperatureC && req.outPressureDbar === req.pressureDbar;
-  const warnings: Issue[] = [...req.warnings, ...decision.warnings];
+  const warnings: Issue[] = [...req.warnings, ...decision.warnings, ...(fresh?.plan.warnings ?? [])];
   if (model === 'saline') {
     // The saline model takes its ion ratios from salinity: say which fresh-water keys it did not use.
     const unused = decision.fresh.freshKeys.filter((k) => !SALINE_USES.has(k));

@@ -291,3 +291,20 @@ describe('fresh-water keys in the saline model', () => {
     expect(r.warnings.find((w) => w.code === 'fresh-keys-unused')?.message).toContain('magnesium_mg_l');
   });
 });
+
+describe('ionic-strength estimates say when they are weak', () => {
+  it('warns when only the alkalinity is known, and when conductance is beyond its fitted range', () => {
+    const a = solved({ model: 'fresh', temperature_c: 15, ph: 7.5, alkalinity_meq_l: 2 });
+    expect(a.ionic_strength_method).toBe('alkalinity-only');
+    expect(a.warnings.map((w) => w.code)).toContain('ionic-strength-from-alkalinity');
+    const b = solved({
+      model: 'fresh',
+      temperature_c: 15,
+      ph: 7.5,
+      alkalinity_meq_l: 2,
+      specific_conductance_us_cm: 9000,
+      salinity: 1,
+    });
+    expect(b.warnings.map((w) => w.code)).toContain('ionic-strength-estimate-out-of-range');
+  });
+});

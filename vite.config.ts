@@ -10,6 +10,9 @@ export default defineConfig({
   test: {
     root: '.',
     include: ['tests/**/*.test.ts'],
+    setupFiles: ['tests/setup.ts'],
+    // Two shared cores: generous limits, since property tests and CLI spawns slow down under load.
+    testTimeout: 60_000,
     environment: 'node',
     // Two cores: keep the pool small so browser tests and unit tests do not starve each other.
     maxWorkers: 2,

@@ -48,8 +48,24 @@ export interface SolveInput {
   fluoride_constant?: 'perezfraga1987' | 'dicksonriley1979';
   output_temperature_c?: number;
   output_pressure_dbar?: number;
+  /**
+   * Standard uncertainties to propagate: input key → uncertainty in that key's unit, plus
+   * `constants: true` for the constants (Orr et al. 2018), or pk0, pk1, pk2, pkb, pkw, pksp_calcite,
+   * pksp_aragonite, total_boron (relative) one by one.
+   */
+  uncertainty?: Record<string, number | boolean>;
   /** Further keys (fresh-water ions, uncertainties, ...) are added by later capabilities. */
   [key: string]: unknown;
+}
+
+/** The uncertainty of one output of a solve (or of a titration). */
+export interface OutputUncertainty {
+  /** Standard uncertainty, in the unit of the output. */
+  standard_uncertainty: number;
+  /** The input (or constant) with the largest contribution; `none` when nothing moves the output. */
+  dominant_input: string;
+  /** |∂output/∂input|·u(input) per input, in the unit of the output; they add in quadrature. */
+  contributions: Record<string, number>;
 }
 
 /** One solved water at output conditions. */
@@ -149,6 +165,8 @@ export interface Conditions {
 export interface SolveOutput extends SolvedWater, Partial<FreshWaterOutputs> {
   /** Other roots for two-root pairs, in the same shape. */
   alternatives?: SolvedWater[];
+  /** When the input asked for it: the uncertainty of every numeric output, keyed by output name. */
+  uncertainty?: Record<string, OutputUncertainty>;
 }
 
 export type SolveResult = SolveOutput | { error: Issue };

@@ -64,6 +64,8 @@ export const KNOWN_INPUT_KEYS: ReadonlySet<string> = new Set([
   ...FRESH_INPUT_KEYS,
   'pair',
   'root',
+  // Standard uncertainties to propagate (read by solve(), see uncertainty/solveUncertainty.ts).
+  'uncertainty',
   // Free-text keys that travel with a row (CSV ids, notes) and are passed through untouched.
   'id',
   'label',

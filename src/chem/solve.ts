@@ -17,6 +17,7 @@ import { applyShifts, type ConstantShifts, constantsFor } from './models';
 import { revelleFactor } from './solver/buffer';
 import { type Param, solvePair } from './solver/pairs';
 import type { CarbonateState, ConstantSet, MinorTotals, PhScale, WaterModel } from './types';
+import { solveUncertainty } from './uncertainty/solveUncertainty';
 
 export interface SolveOptions {
   /** Offsets of constants (p-units) and factors, for uncertainty propagation. */
@@ -26,10 +27,31 @@ export interface SolveOptions {
 /** Never throws: a request that cannot be solved becomes `{ error: { code, message } }`. */
 export function solve(input: unknown, options: SolveOptions = {}): SolveResult {
   try {
+    if (
+      typeof input === 'object' &&
+      input !== null &&
+      (input as { uncertainty?: unknown }).uncertainty !== undefined
+    ) {
+      return solveWithUncertainty(input as Record<string, unknown>, options);
+    }
     return solveRequest(parseSolveInput(input), options);
   } catch (e) {
     return { error: toIssue(e) };
   }
+}
+
+/**
+ * A solve whose input carries `uncertainty`: the plain solve, plus the standard uncertainty of
+ * every numeric output by derivatives of this same solver (../uncertainty/solveUncertainty.ts),
+ * one extra solve per uncertain input or constant.
+ */
+function solveWithUncertainty(input: Record<string, unknown>, options: SolveOptions): SolveOutput {
+  const { uncertainty, ...plain } = input;
+  const out = solveRequest(parseSolveInput(plain), options);
+  out.uncertainty = solveUncertainty(plain, uncertainty, out, (i, o) =>
+    solve(i, o.shifts ? { ...options, shifts: { ...options.shifts, ...o.shifts } } : options),
+  );
+  return out;
 }
 
 const PARAM_OF: Record<CarbonateKey, Param> = {

@@ -7,6 +7,7 @@ import { runConvert } from './convert';
 import { type CliIo, EXIT_OK, EXIT_USAGE } from './io';
 import { runPlan } from './plan';
 import { runSolve } from './solve';
+import { runTitrate } from './titrate';
 
 type Command = (args: string[], io: CliIo) => Promise<number>;
 
@@ -14,6 +15,10 @@ const COMMANDS: Record<string, { run: Command; summary: string }> = {
   solve: {
     run: runSolve,
     summary: 'carbonate system from two or more measured parameters (JSON Lines or CSV)',
+  },
+  titrate: {
+    run: runTitrate,
+    summary: 'alkalinity (and DIC) from a field acid titration: Gran, inflection, endpoint, curve fit',
   },
   convert: {
     run: runConvert,

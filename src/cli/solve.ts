@@ -32,6 +32,8 @@ Input: one JSON object per line (or a CSV whose header row uses the same names).
             fluoride_constant (perezfraga1987 | dicksonriley1979)
             output_temperature_c output_pressure_dbar   pair (e.g. "ph+alkalinity_umol_kg")
             root (high-ph | low-ph: which root of a two-root pair is reported first)
+            uncertainty: {"<input key>": standard uncertainty, ..., "constants": true} (JSON only)
+              adds "uncertainty": {"<output>": {standard_uncertainty, dominant_input, contributions}}
   model                  saline | fresh | auto (default). auto: fresh below salinity 2, from salinity,
                          else specific conductance, ionic strength or TDS; S 0.5–5 warns (brackish)
   fresh water (ph is the activity pH, ph_scale nbs, unless ph_scale is given):

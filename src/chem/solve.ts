@@ -11,7 +11,12 @@ import type { CarbonateKey, FreshWaterOutputs, SolvedWater, SolveOutput, SolveRe
 import { type Issue, toIssue, warning } from './errors';
 import type { FreshConstantSet } from './fresh/constants';
 import { decideModel, freshContext } from './fresh/setup';
-import { type FreshContext, freshOutputs, solveAtIonicStrength } from './fresh/solve-fresh';
+import {
+  assignFreshOutputs,
+  type FreshContext,
+  freshOutputs,
+  solveAtIonicStrength,
+} from './fresh/solve-fresh';
 import { choosePair, parseSolveInput, type SolveRequest } from './input';
 import { applyShifts, type ConstantShifts, constantsFor } from './models';
 import { revelleFactor } from './solver/buffer';
@@ -266,7 +271,7 @@ function addFreshOutputs(
   warnings: Issue[],
 ): void {
   const found: Issue[] = [];
-  Object.assign(o, freshOutputs(s, k, ctx, found));
+  assignFreshOutputs(o, freshOutputs(s, k, ctx, found));
   addUnique(warnings, found);
   if (ctx.calciumMolKg === undefined) {
     // Without calcium there is no saturation state: null, never a made-up zero.

@@ -11,8 +11,10 @@ import {
   hasMajorIons,
   type IonicStrengthMethod,
   ionicStrengthFromConductance,
+  ionicStrengthFromIons,
   ionicStrengthFromTds,
   type MajorIonsMgL,
+  type MajorIonsMolKg,
 } from './ionic-strength';
 import { ionicStrengthFromSalinity } from './model-choice';
 
@@ -184,11 +186,17 @@ export function planIonicStrength(
   f: FreshRequest,
   salinity: number | undefined,
   alkalinityMolKg: number | undefined,
+  ionsMolKg?: MajorIonsMolKg,
 ): IonicStrengthPlan {
   if (hasMajorIons(f.ions)) {
+    // First guess: the ions given plus the alkalinity carried as HCO3- (the solve refines it).
+    const hco3 = Math.max(alkalinityMolKg ?? 0, 0);
     return {
       method: 'major-ions',
-      initial: Math.max(alkalinityMolKg ?? 0, 0) / 2,
+      initial:
+        ionsMolKg === undefined
+          ? hco3 / 2
+          : ionicStrengthFromIons(ionsMolKg, { hco3, co3: 0, oh: 0, hFree: 0 }),
       iterate: true,
       warnings: [],
     };

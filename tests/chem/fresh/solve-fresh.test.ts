@@ -308,3 +308,23 @@ describe('ionic-strength estimates say when they are weak', () => {
     expect(b.warnings.map((w) => w.code)).toContain('ionic-strength-estimate-out-of-range');
   });
 });
+
+describe('assignFreshOutputs', () => {
+  it('copies every key freshOutputs produces (a key added there and forgotten here fails this)', async () => {
+    const { parseSolveInput } = await import('../../../src/chem/input');
+    const { freshContext } = await import('../../../src/chem/fresh/setup');
+    const { assignFreshOutputs, freshConstantsAt, freshOutputs } = await import(
+      '../../../src/chem/fresh/solve-fresh'
+    );
+    const { solvePair } = await import('../../../src/chem/solver/pairs');
+    const req = parseSolveInput({ ...spring });
+    const ctx = freshContext(req);
+    const k = freshConstantsAt({ temperatureC: 9, salinity: 0, pressureDbar: 0 }, 0.009, ctx);
+    const s = solvePair('ph', 7.25, 'ta', 4.9e-3, k, ctx.minor)[0]!;
+    const f = freshOutputs(s, k, ctx);
+    const target = {};
+    assignFreshOutputs(target, f);
+    expect(Object.keys(target).sort()).toEqual(Object.keys(f).sort());
+    expect(target).toEqual(f);
+  });
+});

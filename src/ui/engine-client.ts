@@ -1,6 +1,8 @@
 /** The page's side of the engine worker: promise per request, one worker for the app's life. */
 
 import type { SolveInput, SolveResult } from '../chem/api';
+import type { TitrateOutcome } from '../chem/titration/titrate';
+import type { TitrationInput } from '../chem/titration/types';
 import type { EngineRequest, EngineResponse } from './engine.worker';
 
 let worker: Worker | undefined;
@@ -40,4 +42,10 @@ export async function solveColumns(inputs: SolveInput[], keys: string[]): Promis
   const r = await ask({ kind: 'columns', inputs, keys });
   if (r.kind !== 'columns') throw new Error('engine worker answered the wrong request');
   return r.columns;
+}
+
+export async function titrateInWorker(input: TitrationInput): Promise<TitrateOutcome> {
+  const r = await ask({ kind: 'titrate', input });
+  if (r.kind !== 'titrate') throw new Error('engine worker answered the wrong request');
+  return r.result;
 }

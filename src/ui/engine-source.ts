@@ -1,3 +1,5 @@
 /** The one place the app picks up the carbonate engine (used by the worker and by tests). */
 
 export { solve } from '../chem/solve';
+export { freshTitrationConstants as titrationConstants } from '../chem/titration/reduceTitration';
+export { titrate } from '../chem/titration/titrate';

@@ -6,15 +6,19 @@
 
 import type { SolveInput, SolveResult } from '../chem/api';
 import { toIssue } from '../chem/errors';
-import { solve } from './engine-source';
+import type { TitrateOutcome } from '../chem/titration/titrate';
+import type { TitrationInput } from '../chem/titration/types';
+import { solve, titrate, titrationConstants } from './engine-source';
 
 export type EngineRequest =
   | { id: number; kind: 'solve'; input: SolveInput }
-  | { id: number; kind: 'columns'; inputs: SolveInput[]; keys: string[] };
+  | { id: number; kind: 'columns'; inputs: SolveInput[]; keys: string[] }
+  | { id: number; kind: 'titrate'; input: TitrationInput };
 
 export type EngineResponse =
   | { id: number; kind: 'solve'; result: SolveResult }
-  | { id: number; kind: 'columns'; columns: (number | null)[][] };
+  | { id: number; kind: 'columns'; columns: (number | null)[][] }
+  | { id: number; kind: 'titrate'; result: TitrateOutcome };
 
 function safeSolve(input: SolveInput): SolveResult {
   try {
@@ -27,6 +31,16 @@ function safeSolve(input: SolveInput): SolveResult {
 const scope = self as unknown as DedicatedWorkerGlobalScope;
 scope.onmessage = (ev: MessageEvent<EngineRequest>) => {
   const req = ev.data;
+  if (req.kind === 'titrate') {
+    let result: TitrateOutcome;
+    try {
+      result = titrate(req.input, titrationConstants);
+    } catch (e) {
+      result = { error: toIssue(e) };
+    }
+    scope.postMessage({ id: req.id, kind: 'titrate', result } satisfies EngineResponse);
+    return;
+  }
   if (req.kind === 'solve') {
     scope.postMessage({ id: req.id, kind: 'solve', result: safeSolve(req.input) } satisfies EngineResponse);
     return;

@@ -7,15 +7,24 @@ import { useEffect, useMemo, useRef, useState } from 'preact/hooks';
 import type { SolveResult } from '../../chem/api';
 import { isSolveError } from '../../chem/api';
 import type { Issue } from '../../chem/errors';
+import type { TitrateOutcome } from '../../chem/titration/titrate';
 import { storeIssue } from '../../store/errors';
 import type { MeasuredValue, ReadingDoc, SiteDoc } from '../../store/schema';
 import { useApp } from '../app-context';
-import { solveInWorker } from '../engine-client';
+import { solveInWorker, titrateInWorker } from '../engine-client';
 import { formatNumber, parseDecimal } from '../numbers';
 import { QUANTITIES, quantity, quantityForKey } from '../quantities';
 import { go } from '../router';
 import { readingInput } from '../solve-context';
+import { titrationInput, withTitration } from '../titration';
 import { ResultsPanel } from './ResultsPanel';
+import {
+  EMPTY_TITRATION,
+  formFromRecord,
+  recordFromForm,
+  TitrationFields,
+  type TitrationForm,
+} from './TitrationSection';
 
 interface Row {
   quantity: string;
@@ -65,6 +74,8 @@ export function ReadingEntryScreen(props: { siteId?: string; readingId?: string 
   const [busy, setBusy] = useState(false);
   const [saveIssue, setSaveIssue] = useState<Issue>();
   const [loaded, setLoaded] = useState(false);
+  const [tform, setTform] = useState<TitrationForm>(EMPTY_TITRATION);
+  const [toutcome, setToutcome] = useState<TitrateOutcome>();
   const seq = useRef(0);
 
   useEffect(() => {
@@ -78,6 +89,7 @@ export function ReadingEntryScreen(props: { siteId?: string; readingId?: string 
           setRows(rowsFrom(r.values, locale));
           setWhen(toLocalInput(new Date(r.takenAt)));
           setNotes(r.notes);
+          setTform(formFromRecord(r.titration));
         }
       } else if (props.siteId) {
         s = await repo.getSite(props.siteId);
@@ -109,24 +121,35 @@ export function ReadingEntryScreen(props: { siteId?: string; readingId?: string 
     .map((p) => ({ quantity: p.row.quantity, unit: p.row.unit, value: p.value as number }));
   const valuesKey = JSON.stringify(values);
 
+  const titration = useMemo(() => recordFromForm(tform, locale), [tform, locale]);
+  const titrationKey = JSON.stringify(titration.record ?? null);
+
   useEffect(() => {
     if (!loaded) return;
-    if (values.length < 2) {
+    if (values.length < (titration.record ? 1 : 2)) {
       setResult(undefined);
+      setToutcome(undefined);
       return;
     }
     const mine = ++seq.current;
     setBusy(true);
-    const t = setTimeout(() => {
+    const t = setTimeout(async () => {
+      let reduced: TitrateOutcome | undefined;
+      if (titration.record) {
+        const ti = titrationInput(titration.record, values);
+        reduced = 'code' in ti ? { error: ti } : await titrateInWorker(ti);
+      }
       const { input } = readingInput(values, site, settings);
-      solveInWorker(input).then((r) => {
-        if (mine !== seq.current) return; // a newer keystroke won
-        setResult(r);
-        setBusy(false);
-      });
+      const r = await solveInWorker(
+        withTitration(input, reduced && !('error' in reduced) ? reduced : undefined),
+      );
+      if (mine !== seq.current) return; // a newer keystroke won
+      setToutcome(reduced);
+      setResult(r);
+      setBusy(false);
     }, 120);
     return () => clearTimeout(t);
-  }, [valuesKey, site, settings, loaded]);
+  }, [valuesKey, titrationKey, site, settings, loaded]);
 
   // Issues about an input (engine warnings or the error) go beside that input's row.
   const byQuantity = new Map<string, Issue[]>();
@@ -153,6 +176,13 @@ export function ReadingEntryScreen(props: { siteId?: string; readingId?: string 
       });
       return;
     }
+    if (titration.issues.length) {
+      setSaveIssue({
+        code: titration.issues[0]!.code,
+        message: `Titration: ${titration.issues[0]!.message}`,
+      });
+      return;
+    }
     if (values.length === 0) {
       setSaveIssue({ code: 'reading-empty', message: 'Enter at least one measured value.' });
       return;
@@ -165,13 +195,19 @@ export function ReadingEntryScreen(props: { siteId?: string; readingId?: string 
     try {
       const timeZone = Intl.DateTimeFormat().resolvedOptions().timeZone || 'UTC';
       const doc = existing
-        ? await repo.updateReading(existing.id, { values, notes, takenAt: taken.toISOString() })
+        ? await repo.updateReading(existing.id, {
+            values,
+            notes,
+            takenAt: taken.toISOString(),
+            titration: titration.record,
+          })
         : await repo.createReading({
             siteId: site!.id,
             takenAt: taken.toISOString(),
             timeZone,
             values,
             notes,
+            ...(titration.record ? { titration: titration.record } : {}),
           });
       dataChanged();
       notify({ kind: 'info', text: existing ? 'Reading updated.' : 'Reading saved on this device.' });
@@ -288,6 +324,12 @@ export function ReadingEntryScreen(props: { siteId?: string; readingId?: string 
               </select>
             </label>
           )}
+          <TitrationFields
+            form={tform}
+            onChange={setTform}
+            outcome={toutcome}
+            issues={titration.record || tform.pointsText.trim() === '' ? [] : titration.issues}
+          />
           <label class="field">
             <span>Notes</span>
             <textarea rows={2} value={notes} onInput={(e) => setNotes(e.currentTarget.value)} />

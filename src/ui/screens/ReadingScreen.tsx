@@ -3,16 +3,19 @@
 import { useEffect, useRef, useState } from 'preact/hooks';
 import type { SolveOutput, SolveResult } from '../../chem/api';
 import { isSolveError } from '../../chem/api';
+import type { TitrateOutcome } from '../../chem/titration/titrate';
 import { storeIssue } from '../../store/errors';
 import type { ReadingDoc, SiteDoc } from '../../store/schema';
 import { useApp } from '../app-context';
 import { drawSpeciation, fractionsAt } from '../charts/speciation';
-import { solveInWorker } from '../engine-client';
+import { solveInWorker, titrateInWorker } from '../engine-client';
 import { formatDateTime, formatNumber } from '../numbers';
 import { quantity } from '../quantities';
 import { go } from '../router';
 import { readingInput } from '../solve-context';
+import { METHOD_LABELS, titrationInput, withTitration } from '../titration';
 import { ResultsPanel } from './ResultsPanel';
+import { TitrationSummary } from './TitrationSection';
 
 function Speciation(props: { result: SolveOutput }) {
   const ref = useRef<HTMLCanvasElement>(null);
@@ -72,6 +75,7 @@ export function ReadingScreen(props: { readingId: string }) {
   const [reading, setReading] = useState<ReadingDoc | null>();
   const [site, setSite] = useState<SiteDoc>();
   const [result, setResult] = useState<SolveResult>();
+  const [toutcome, setToutcome] = useState<TitrateOutcome>();
   // The planning panel carries the plan engine: loaded only when asked for.
   const [Planner, setPlanner] = useState<PlanPanelType>();
 
@@ -82,7 +86,17 @@ export function ReadingScreen(props: { readingId: string }) {
       setReading(r);
       const s = await repo.getSite(r.siteId);
       setSite(s);
-      setResult(await solveInWorker(readingInput(r.values, s, settings).input));
+      // A stored titration is raw data: reduce it again now (methods may have improved).
+      let reduced: TitrateOutcome | undefined;
+      if (r.titration) {
+        const ti = titrationInput(r.titration, r.values);
+        reduced = 'code' in ti ? { error: ti } : await titrateInWorker(ti);
+      }
+      setToutcome(reduced);
+      const input = readingInput(r.values, s, settings).input;
+      setResult(
+        await solveInWorker(withTitration(input, reduced && !('error' in reduced) ? reduced : undefined)),
+      );
     })().catch((e) => reportError(storeIssue(e)));
   }, [props.readingId, settings]);
 
@@ -143,6 +157,19 @@ export function ReadingScreen(props: { readingId: string }) {
         </dl>
         {reading.notes && <p>{reading.notes}</p>}
       </section>
+      {reading.titration && (
+        <section class="panel" aria-labelledby="titration-h">
+          <h2 id="titration-h">Titration</h2>
+          <p class="muted">
+            {reading.titration.points.length} points,{' '}
+            {formatNumber(reading.titration.sampleVolumeMl, locale, { digits: 4 })} mL sample,{' '}
+            {formatNumber(reading.titration.titrantNormality, locale, { digits: 4 })} eq/L acid ·{' '}
+            {METHOD_LABELS[(reading.titration.method as keyof typeof METHOD_LABELS | undefined) ?? 'gran'] ??
+              reading.titration.method}
+          </p>
+          <TitrationSummary outcome={toutcome} />
+        </section>
+      )}
       <section class="panel" aria-labelledby="computed-h">
         <h2 id="computed-h">Computed</h2>
         <ResultsPanel result={result} full />

@@ -11,7 +11,12 @@ import type { CarbonateKey, FreshWaterOutputs, SolvedWater, SolveOutput, SolveRe
 import { type Issue, toIssue, warning } from './errors';
 import type { FreshConstantSet } from './fresh/constants';
 import { decideModel, freshContext } from './fresh/setup';
-import { type FreshContext, freshOutputs, solveAtIonicStrength } from './fresh/solve-fresh';
+import {
+  assignFreshOutputs,
+  type FreshContext,
+  freshOutputs,
+  solveAtIonicStrength,
+} from './fresh/solve-fresh';
 import { choosePair, parseSolveInput, type SolveRequest } from './input';
 import { applyShifts, type ConstantShifts, constantsFor } from './models';
 import { revelleFactor } from './solver/buffer';
@@ -118,7 +123,7 @@ export function solveRequest(reqIn: SolveRequest, options: SolveOptions = {}): S
     return solvePair(PARAM_OF[a], va, PARAM_OF[b], vb, k, req.minor);
   };
   const sameConditions = req.outTemperatureC === req.temperatureC && req.outPressureDbar === req.pressureDbar;
-  const warnings: Issue[] = [...req.warnings, ...decision.warnings];
+  const warnings: Issue[] = [...req.warnings, ...decision.warnings, ...(fresh?.plan.warnings ?? [])];
   if (model === 'saline') {
     // The saline model takes its ion ratios from salinity: say which fresh-water keys it did not use.
     const unused = decision.fresh.freshKeys.filter((k) => !SALINE_USES.has(k));
@@ -266,7 +271,7 @@ function addFreshOutputs(
   warnings: Issue[],
 ): void {
   const found: Issue[] = [];
-  Object.assign(o, freshOutputs(s, k, ctx, found));
+  assignFreshOutputs(o, freshOutputs(s, k, ctx, found));
   addUnique(warnings, found);
   if (ctx.calciumMolKg === undefined) {
     // Without calcium there is no saturation state: null, never a made-up zero.

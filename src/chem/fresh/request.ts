@@ -11,8 +11,10 @@ import {
   hasMajorIons,
   type IonicStrengthMethod,
   ionicStrengthFromConductance,
+  ionicStrengthFromIons,
   ionicStrengthFromTds,
   type MajorIonsMgL,
+  type MajorIonsMolKg,
 } from './ionic-strength';
 import { ionicStrengthFromSalinity } from './model-choice';
 
@@ -150,6 +152,21 @@ export function alkalinityFromFieldUnits(
   return { key, umolKg: alkalinityToEqKg(v, ALKALINITY_FIELD_KEYS[key], densityKgL) * 1e6 };
 }
 
+/** The conductance and TDS factors are fitted to natural waters below about 0.1 mol/kg (common practice). */
+export const EMPIRICAL_I_LIMIT_MOL_KG = 0.1;
+
+function empiricalRangeWarning(i: number, what: string, field: string): Issue[] {
+  if (i <= EMPIRICAL_I_LIMIT_MOL_KG) return [];
+  return [
+    warning(
+      'ionic-strength-estimate-out-of-range',
+      `The ionic strength ${i.toPrecision(3)} mol/kg estimated from ${what} is beyond the ~${EMPIRICAL_I_LIMIT_MOL_KG} mol/kg ` +
+        'for which the linear factors were fitted; give the major ions or ionic_strength_mol_kg for a better value.',
+      field,
+    ),
+  ];
+}
+
 export interface IonicStrengthPlan {
   method: IonicStrengthMethod | 'salinity-seawater' | 'alkalinity-only';
   /** First estimate, mol/kg; the final value unless `iterate` is set. */
@@ -169,11 +186,17 @@ export function planIonicStrength(
   f: FreshRequest,
   salinity: number | undefined,
   alkalinityMolKg: number | undefined,
+  ionsMolKg?: MajorIonsMolKg,
 ): IonicStrengthPlan {
   if (hasMajorIons(f.ions)) {
+    // First guess: the ions given plus the alkalinity carried as HCO3- (the solve refines it).
+    const hco3 = Math.max(alkalinityMolKg ?? 0, 0);
     return {
       method: 'major-ions',
-      initial: Math.max(alkalinityMolKg ?? 0, 0) / 2,
+      initial:
+        ionsMolKg === undefined
+          ? hco3 / 2
+          : ionicStrengthFromIons(ionsMolKg, { hco3, co3: 0, oh: 0, hFree: 0 }),
       iterate: true,
       warnings: [],
     };
@@ -189,7 +212,11 @@ export function planIonicStrength(
           : 'conductance-griffin-jurinak-1973',
       initial: ionicStrengthFromConductance(f.specificConductanceUsCm, f.conductanceFactor),
       iterate: false,
-      warnings: [],
+      warnings: empiricalRangeWarning(
+        ionicStrengthFromConductance(f.specificConductanceUsCm, f.conductanceFactor),
+        'specific conductance',
+        'specific_conductance_us_cm',
+      ),
     };
   }
   if (f.tdsMgL !== undefined) {
@@ -197,7 +224,7 @@ export function planIonicStrength(
       method: 'tds-langelier-1936',
       initial: ionicStrengthFromTds(f.tdsMgL),
       iterate: false,
-      warnings: [],
+      warnings: empiricalRangeWarning(ionicStrengthFromTds(f.tdsMgL), 'TDS', 'tds_mg_l'),
     };
   }
   if (salinity !== undefined && salinity > 0) {

@@ -85,11 +85,12 @@ export function freshContext(
       ? undefined
       : mgLToMolKgWater(fresh.ions.magnesium, MOLAR_MASS_G_PER_MOL.Mg, kgw);
   const ta = req.measured.alkalinity_umol_kg;
-  const plan = planIonicStrength(fresh, req.salinity, ta === undefined ? undefined : ta * 1e-6);
+  const ions = { ...ionsMolKg, ca: calcium ?? 0, mg: magnesium ?? 0 };
+  const plan = planIonicStrength(fresh, req.salinity, ta === undefined ? undefined : ta * 1e-6, ions);
   return {
     fresh,
     plan,
-    ionsMolKg: { ...ionsMolKg, ca: calcium ?? 0, mg: magnesium ?? 0 },
+    ionsMolKg: ions,
     calciumMolKg: calcium,
     magnesiumMolKg: magnesium,
     kgWaterPerL: kgw,

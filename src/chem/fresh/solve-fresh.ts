@@ -227,3 +227,38 @@ export function freshOutputs(
 function finiteSi(product: number, ksp: number): number | undefined {
   return product > 0 && Number.isFinite(Math.log10(product)) ? saturationIndex(product, ksp) : undefined;
 }
+
+/**
+ * Copies the fresh outputs onto a solve output, one explicit store per key in a fixed order:
+ * several times faster than Object.assign on this many keys, and it runs once per row.
+ */
+export function assignFreshOutputs(target: Partial<FreshWaterOutputs>, f: FreshWaterOutputs): void {
+  target.ph = f.ph;
+  target.ionic_strength_mol_kg = f.ionic_strength_mol_kg;
+  target.ionic_strength_method = f.ionic_strength_method;
+  target.activity_model = f.activity_model;
+  target.activity_coefficients = f.activity_coefficients;
+  target.pksp_dolomite = f.pksp_dolomite;
+  target.constants_infinite_dilution = f.constants_infinite_dilution;
+  target.alkalinity_mmol_kg = f.alkalinity_mmol_kg;
+  target.alkalinity_mmol_l = f.alkalinity_mmol_l;
+  target.alkalinity_meq_l = f.alkalinity_meq_l;
+  target.alkalinity_mg_l_caco3 = f.alkalinity_mg_l_caco3;
+  target.alkalinity_mg_l_hco3 = f.alkalinity_mg_l_hco3;
+  target.alkalinity_ppm_caco3 = f.alkalinity_ppm_caco3;
+  target.alkalinity_dkh = f.alkalinity_dkh;
+  target.air_pco2_uatm = f.air_pco2_uatm;
+  target.pco2_excess_ratio = f.pco2_excess_ratio;
+  target.ph_air_equilibrium = f.ph_air_equilibrium;
+  target.dic_air_equilibrium_umol_kg = f.dic_air_equilibrium_umol_kg;
+  target.saturation_index_calcite = f.saturation_index_calcite;
+  target.saturation_index_aragonite = f.saturation_index_aragonite;
+  target.saturation_index_dolomite = f.saturation_index_dolomite;
+  target.ph_saturation_calcite = f.ph_saturation_calcite;
+  target.langelier_index = f.langelier_index;
+  target.ryznar_index = f.ryznar_index;
+  target.ccpp_mg_l_caco3 = f.ccpp_mg_l_caco3;
+  target.ph_after_ccpp = f.ph_after_ccpp;
+  target.treatment_caution = f.treatment_caution;
+  target.charge_balance_error_percent = f.charge_balance_error_percent;
+}

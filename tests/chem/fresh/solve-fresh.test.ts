@@ -291,3 +291,40 @@ describe('fresh-water keys in the saline model', () => {
     expect(r.warnings.find((w) => w.code === 'fresh-keys-unused')?.message).toContain('magnesium_mg_l');
   });
 });
+
+describe('ionic-strength estimates say when they are weak', () => {
+  it('warns when only the alkalinity is known, and when conductance is beyond its fitted range', () => {
+    const a = solved({ model: 'fresh', temperature_c: 15, ph: 7.5, alkalinity_meq_l: 2 });
+    expect(a.ionic_strength_method).toBe('alkalinity-only');
+    expect(a.warnings.map((w) => w.code)).toContain('ionic-strength-from-alkalinity');
+    const b = solved({
+      model: 'fresh',
+      temperature_c: 15,
+      ph: 7.5,
+      alkalinity_meq_l: 2,
+      specific_conductance_us_cm: 9000,
+      salinity: 1,
+    });
+    expect(b.warnings.map((w) => w.code)).toContain('ionic-strength-estimate-out-of-range');
+  });
+});
+
+describe('assignFreshOutputs', () => {
+  it('copies every key freshOutputs produces (a key added there and forgotten here fails this)', async () => {
+    const { parseSolveInput } = await import('../../../src/chem/input');
+    const { freshContext } = await import('../../../src/chem/fresh/setup');
+    const { assignFreshOutputs, freshConstantsAt, freshOutputs } = await import(
+      '../../../src/chem/fresh/solve-fresh'
+    );
+    const { solvePair } = await import('../../../src/chem/solver/pairs');
+    const req = parseSolveInput({ ...spring });
+    const ctx = freshContext(req);
+    const k = freshConstantsAt({ temperatureC: 9, salinity: 0, pressureDbar: 0 }, 0.009, ctx);
+    const s = solvePair('ph', 7.25, 'ta', 4.9e-3, k, ctx.minor)[0]!;
+    const f = freshOutputs(s, k, ctx);
+    const target = {};
+    assignFreshOutputs(target, f);
+    expect(Object.keys(target).sort()).toEqual(Object.keys(f).sort());
+    expect(target).toEqual(f);
+  });
+});

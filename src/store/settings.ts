@@ -12,6 +12,8 @@ export interface Settings {
   model: 'auto' | 'saline' | 'fresh';
   /** Atmospheric pCO2 for air-equilibrium comparisons, µatm. */
   atmospheric_pco2_uatm: number;
+  /** Standard uncertainty of a pH reading, propagated to every output on the reading page. */
+  ph_uncertainty: number;
   theme: ThemeChoice;
   /** BCP 47 tag for number and date display; empty = the browser's. */
   locale: string;
@@ -25,6 +27,8 @@ export const DEFAULT_SETTINGS: Settings = {
   model: 'auto',
   // Order of today's global mean in dry air (common practice default; users set their own).
   atmospheric_pco2_uatm: 420,
+  // A field meter after a two-point calibration (common practice figure; set your own).
+  ph_uncertainty: 0.02,
   theme: 'system',
   locale: '',
 };

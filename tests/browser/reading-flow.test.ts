@@ -74,6 +74,16 @@ describe('site and reading', () => {
     await page.getByRole('button', { name: 'Save reading' }).click();
     await page.getByRole('heading', { name: 'Reading', exact: true }).waitFor();
     await page.locator('[data-testid="speciation"]').waitFor();
+    // The reading page propagates the constants' and the pH reading's uncertainty to every output.
+    const withU = solve({
+      ...readingInput(values, site, DEFAULT_SETTINGS).input,
+      uncertainty: { constants: true, ph: 0.02 },
+    });
+    if (isSolveError(withU) || !withU.uncertainty?.dic_umol_kg) throw new Error('engine gave no uncertainty');
+    const uDic = formatNumber(withU.uncertainty.dic_umol_kg.standard_uncertainty, undefined, { digits: 2 });
+    await expect
+      .poll(() => page.locator('.output[data-key="dic_umol_kg"] .uncertainty').textContent())
+      .toContain(`± ${uDic}`);
     await screenshot(page, '04-reading-detail');
 
     // Planning is loaded on demand from the reading, and a plan shows its cautions.

@@ -1,4 +1,5 @@
 import 'fake-indexeddb/auto';
+import { openDB } from 'idb';
 import { describe, expect, it } from 'vitest';
 import { LATEST_VERSION, openTufaDb } from '../../src/store/database';
 import { openRepository } from '../../src/store/repository';
@@ -67,5 +68,23 @@ describe('schema migrations', () => {
 
   it('refuses a version that does not exist', async () => {
     await expect(openTufaDb({ name: 'never', version: LATEST_VERSION + 1 })).rejects.toThrow(RangeError);
+  });
+});
+
+describe('upgrade blocked by an open older connection', () => {
+  it('tells the user with store-upgrade-blocked, then proceeds once the old tab closes', async () => {
+    const name = `tufa-blocked-${process.pid}`;
+    (await openTufaDb({ name, version: 1 })).close();
+    // Another tab still holds version 1 and does not give way (as a build without a handler would);
+    // our own connections close themselves on versionchange, so open this one bare.
+    const old = await openDB(name, 1);
+    const issues: string[] = [];
+    const opening = openTufaDb({ name, onBlocked: (i) => issues.push(i.code) });
+    await new Promise((r) => setTimeout(r, 50));
+    expect(issues).toEqual(['store-upgrade-blocked']);
+    old.close();
+    const db = await opening;
+    expect(db.version).toBe(LATEST_VERSION);
+    db.close();
   });
 });

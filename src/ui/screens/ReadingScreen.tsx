@@ -94,9 +94,13 @@ export function ReadingScreen(props: { readingId: string }) {
       }
       setToutcome(reduced);
       const input = readingInput(r.values, s, settings).input;
-      setResult(
-        await solveInWorker(withTitration(input, reduced && !('error' in reduced) ? reduced : undefined)),
-      );
+      const full = withTitration(input, reduced && !('error' in reduced) ? reduced : undefined);
+      // Uncertainty of every output from the constants (Orr et al. 2018 values in the engine) and the pH reading.
+      full.uncertainty = {
+        constants: true,
+        ...(typeof full.ph === 'number' ? { ph: settings.ph_uncertainty } : {}),
+      };
+      setResult(await solveInWorker(full));
     })().catch((e) => reportError(storeIssue(e)));
   }, [props.readingId, settings]);
 

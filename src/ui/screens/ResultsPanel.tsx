@@ -1,6 +1,6 @@
 /** The computed numbers of a reading, with the engine's warnings and the dosing caution beside them. */
 
-import type { SolveResult } from '../../chem/api';
+import type { OutputUncertainty, SolveResult } from '../../chem/api';
 import { isSolveError } from '../../chem/api';
 import { useApp } from '../app-context';
 import { RESULT_CAUTION, resultAlerts } from '../cautions';
@@ -31,6 +31,7 @@ export function ResultsPanel(props: { result: SolveResult | undefined; busy?: bo
     );
   }
   const record = result as unknown as Record<string, unknown>;
+  const uncertainty = record.uncertainty as Record<string, OutputUncertainty> | undefined;
   const rows = numericOutputs(record).filter((r) => props.full || r.def.headline);
   // Warnings about an input are shown beside that input on the entry screen; here the rest.
   const general = result.warnings.filter((w) => props.full || !w.field || !quantityForKey(w.field));
@@ -50,6 +51,16 @@ export function ResultsPanel(props: { result: SolveResult | undefined; busy?: bo
                 )}
               </span>
               {def.unit && <span class="unit"> {def.unit}</span>}
+              {props.full && uncertainty?.[def.key] && uncertainty[def.key]!.standard_uncertainty > 0 && (
+                <span
+                  class="uncertainty"
+                  title={`largest contribution: ${uncertainty[def.key]!.dominant_input}`}
+                >
+                  {' '}
+                  ± {formatNumber(uncertainty[def.key]!.standard_uncertainty, locale, { digits: 2 })}
+                  <span class="small"> ({uncertainty[def.key]!.dominant_input})</span>
+                </span>
+              )}
             </dd>
           </div>
         ))}
@@ -83,6 +94,13 @@ export function ResultsPanel(props: { result: SolveResult | undefined; busy?: bo
       {typeof record.treatment_caution === 'string' && (
         <p class="caution" role="note">
           {record.treatment_caution}
+        </p>
+      )}
+      {props.full && uncertainty && (
+        <p class="muted small">
+          ± is one standard uncertainty from the published uncertainties of the constants and a pH reading
+          uncertain by {formatNumber(settings.ph_uncertainty, locale, { digits: 2 })} (Settings); in brackets
+          the largest contribution.
         </p>
       )}
       <p class="caution" role="note">

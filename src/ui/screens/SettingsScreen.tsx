@@ -121,6 +121,19 @@ export function SettingsScreen() {
         <p id="pco2-msg" class={pco2Issue ? 'issue error' : 'muted small'}>
           {pco2Issue ?? 'Used to compare a water with air (how far it is from equilibrium).'}
         </p>
+        <label class="field">
+          <span>Uncertainty of a pH reading (pH units)</span>
+          <select
+            value={String(settings.ph_uncertainty)}
+            onChange={(e) => set({ ph_uncertainty: Number(e.currentTarget.value) })}
+          >
+            {[0.005, 0.01, 0.02, 0.05, 0.1].map((u) => (
+              <option key={u} value={String(u)}>
+                ± {formatNumber(u, locale, { digits: 2 })}
+              </option>
+            ))}
+          </select>
+        </label>
       </fieldset>
 
       <fieldset>

@@ -181,6 +181,33 @@ async function queue(tx: DocTx, entries: OutboxEntry[]): Promise<void> {
   await Promise.all([...byBucket.values()].map((b) => tx.objectStore('outboxBuckets').put(b)));
 }
 
+interface OutboxAccess {
+  get(bucket: number): Promise<OutboxBucket | undefined>;
+  put(b: OutboxBucket): Promise<unknown>;
+}
+
+/** Drops outbox entries that still have the pushed `updatedAt` (a newer change stays queued). */
+async function ackIn(store: OutboxAccess, pushed: OutboxEntry[]): Promise<number> {
+  const buckets = unique(pushed.map((e) => bucketOf(e.docId)));
+  const got = await Promise.all(buckets.map((b) => store.get(b)));
+  let removed = 0;
+  for (const e of pushed) {
+    const bucket = got[buckets.indexOf(bucketOf(e.docId))];
+    const cur = bucket?.entries[e.docId];
+    if (bucket && cur && cur.updatedAt === e.updatedAt) {
+      delete bucket.entries[e.docId];
+      removed++;
+    }
+  }
+  await Promise.all(got.filter((b): b is OutboxBucket => b !== undefined).map((b) => store.put(b)));
+  return removed;
+}
+
+function outboxIn(tx: DocTx): OutboxAccess {
+  const store = tx.objectStore('outboxBuckets');
+  return { get: (b) => store.get(b), put: (b) => store.put(b) };
+}
+
 export class Repository {
   constructor(
     readonly db: IDBPDatabase<TufaDB>,
@@ -340,6 +367,80 @@ export class Repository {
     return docs.length;
   }
 
+  /**
+   * After the server accepted a push, in ONE transaction: set the server revision on each doc as it
+   * is now (a local edit made during the push keeps its content and gets the new base revision),
+   * and drop its outbox entry only where the entry still has the pushed `updatedAt` (that later
+   * edit stays queued). Doing read and write in one transaction is what keeps an edit that lands
+   * mid-push from being overwritten by the copy read before it.
+   */
+  async recordPushed(rows: { docId: string; rev: string; updatedAt: string }[]): Promise<number> {
+    if (rows.length === 0) return 0;
+    let acked = 0;
+    await this.inDocTx(async (tx) => {
+      const ids = rows.map((r) => r.docId);
+      const [sites, readings] = await Promise.all([
+        Promise.all(ids.map((i) => tx.objectStore('sites').get(i))),
+        findReadings(lookupIn(tx), ids),
+      ]);
+      const siteWrites: SiteDoc[] = [];
+      const readingWrites: ReadingDoc[] = [];
+      const acks: OutboxEntry[] = [];
+      rows.forEach((r, i) => {
+        const cur: TufaDoc | undefined = sites[i] ?? readings.get(r.docId);
+        if (!cur) return;
+        if (cur.rev !== r.rev) {
+          if (cur.type === 'site') siteWrites.push({ ...cur, rev: r.rev });
+          else readingWrites.push({ ...cur, rev: r.rev });
+        }
+        acks.push({ docId: r.docId, type: cur.type, updatedAt: r.updatedAt });
+      });
+      await Promise.all(siteWrites.map((d) => tx.objectStore('sites').put(d)));
+      await putReadings(tx, readingWrites);
+      acked = await ackIn(outboxIn(tx), acks);
+    });
+    return acked;
+  }
+
+  /**
+   * Writes docs that came from the server (not queued), in ONE transaction, except those changed
+   * locally since sync looked at them: `seen` gives the local `updatedAt` sync decided on
+   * (undefined: there was no local doc). Docs not in `seen` are written as they are. Returns the
+   * ids left alone, so sync can keep both versions.
+   */
+  async applyRemoteIfUnchanged(
+    docs: TufaDoc[],
+    seen: ReadonlyMap<string, string | undefined>,
+  ): Promise<string[]> {
+    for (const d of docs) validateDoc(d);
+    const skipped: string[] = [];
+    await this.inDocTx(async (tx) => {
+      const ids = docs.filter((d) => seen.has(d.id)).map((d) => d.id);
+      const [sites, readings] = await Promise.all([
+        Promise.all(ids.map((i) => tx.objectStore('sites').get(i))),
+        findReadings(lookupIn(tx), ids),
+      ]);
+      const now = new Map<string, string>();
+      ids.forEach((id, i) => {
+        const cur = sites[i] ?? readings.get(id);
+        if (cur) now.set(id, cur.updatedAt);
+      });
+      const write = docs.filter((d) => {
+        if (!seen.has(d.id) || now.get(d.id) === seen.get(d.id)) return true;
+        skipped.push(d.id);
+        return false;
+      });
+      await Promise.all(
+        write.filter((d): d is SiteDoc => d.type === 'site').map((d) => tx.objectStore('sites').put(d)),
+      );
+      await putReadings(
+        tx,
+        write.filter((d): d is ReadingDoc => d.type === 'reading'),
+      );
+    });
+    return skipped;
+  }
+
   /** Current versions of the given documents (tombstones included), e.g. to push an outbox. */
   async getDocs(ids: { docId: string; type: 'site' | 'reading' }[]): Promise<TufaDoc[]> {
     return this.run(async () => {
@@ -389,19 +490,8 @@ export class Repository {
   async ackOutbox(pushed: OutboxEntry[]): Promise<number> {
     return this.run(async () => {
       const tx = this.db.transaction('outboxBuckets', 'readwrite', STRICT);
-      const buckets = unique(pushed.map((e) => bucketOf(e.docId)));
-      const got = await Promise.all(buckets.map((b) => tx.store.get(b)));
-      let removed = 0;
-      for (const e of pushed) {
-        const bucket = got[buckets.indexOf(bucketOf(e.docId))];
-        const cur = bucket?.entries[e.docId];
-        if (bucket && cur && cur.updatedAt === e.updatedAt) {
-          delete bucket.entries[e.docId];
-          removed++;
-        }
-      }
-      await Promise.all([
-        ...got.filter((b): b is OutboxBucket => b !== undefined).map((b) => tx.store.put(b)),
+      const [removed] = await Promise.all([
+        ackIn({ get: (b) => tx.store.get(b), put: (b) => tx.store.put(b) }, pushed),
         tx.done,
       ]);
       return removed;

@@ -2,10 +2,9 @@
  * The sync engine's, the importer's and the backup's view of the IndexedDB repository
  * (`src/store/repository.ts`), through its public API only (the store lays readings out in pages).
  *
- * Recording a push and applying pulled docs each take two repository calls (read, then write).
- * A local edit whose transaction starts between the two would be overwritten; the window is a few
- * milliseconds, and `applyRemote` re-checks `updatedAt` first to keep it that small. A repository
- * call doing both in one transaction would close it (noted for the store's owner).
+ * Recording a push and applying pulled docs each read the local doc and write it back; both run
+ * in one repository transaction (`recordPushed`, `applyRemoteIfUnchanged`), so a local edit
+ * cannot slip in between and be overwritten.
  *
  * Conflicts are kept in the repository's `conflicts` store (one record per other version,
  * id `${docId}@${rev}`); kind, base revision and branches to delete go to `syncMeta` under
@@ -56,36 +55,12 @@ export class RepositoryStore implements SyncStore, ImportTarget, BackupStore {
   }
 
   async markPushed(rows: { docId: string; rev: string; updatedAt: string }[]): Promise<void> {
-    if (rows.length === 0) return;
-    const docs = await this.getDocs(rows.map((r) => r.docId));
-    const withRev: TufaDoc[] = [];
-    for (const r of rows) {
-      const d = docs.get(r.docId);
-      if (d && d.rev !== r.rev) withRev.push({ ...d, rev: r.rev });
-    }
-    if (withRev.length) await this.repo.applyRemote(withRev);
-    const types = new Map([...docs.values()].map((d) => [d.id, d.type]));
-    await this.repo.ackOutbox(
-      rows.flatMap((r) => {
-        const type = types.get(r.docId);
-        return type ? [{ docId: r.docId, type, updatedAt: r.updatedAt }] : [];
-      }),
-    );
+    await this.repo.recordPushed(rows);
   }
 
   async applyRemote(docs: TufaDoc[], seen?: Map<string, string | undefined>): Promise<string[]> {
-    const skipped: string[] = [];
-    let write = docs;
-    if (seen && seen.size > 0) {
-      const now = await this.getDocs([...seen.keys()]);
-      write = docs.filter((d) => {
-        if (!seen.has(d.id) || now.get(d.id)?.updatedAt === seen.get(d.id)) return true;
-        skipped.push(d.id);
-        return false;
-      });
-    }
-    if (write.length) await this.repo.applyRemote(write);
-    return skipped;
+    if (docs.length === 0) return [];
+    return this.repo.applyRemoteIfUnchanged(docs, seen ?? new Map());
   }
 
   async putLocal(doc: TufaDoc): Promise<void> {

@@ -15,6 +15,8 @@ export interface UnitDef {
   key: string;
   /** Exact conversion into the key's unit (identity when absent). */
   toKey?: (v: number) => number;
+  /** Engine options the unit implies (a pH on a named scale sets `ph_scale` for that reading). */
+  options?: Record<string, string>;
 }
 
 export interface QuantityDef {
@@ -42,7 +44,17 @@ export const QUANTITIES: QuantityDef[] = [
   {
     id: 'ph',
     label: 'pH',
-    units: [{ id: 'ph', label: 'pH', key: 'ph' }],
+    // `ph`: on the scale of the site (or Settings), as the reading form enters it. The named scales
+    // come from imported files that say which scale a column is on (same ids as `src/io/quantities.ts`).
+    units: [
+      { id: 'ph', label: 'pH', key: 'ph' },
+      ...(['nbs', 'total', 'free', 'seawater'] as const).map((scale) => ({
+        id: scale,
+        label: `pH (${scale === 'nbs' ? 'NBS' : scale} scale)`,
+        key: 'ph',
+        options: { ph_scale: scale },
+      })),
+    ],
     plausible: [2, 12],
     common: true,
   },
@@ -153,6 +165,7 @@ export function toSolveInput(
       continue;
     }
     input[u.key] = u.toKey ? u.toKey(row.value) : row.value;
+    if (u.options) Object.assign(input, u.options);
   }
   return { input, unknown };
 }

@@ -19,6 +19,27 @@ describe('measured quantities map to solve input keys', () => {
     expect(input.model).toBe('saline');
     expect(unknown).toEqual(['turbidity (ntu)']);
   });
+  it('takes the pH scale from a unit that names it, over the site or settings scale', () => {
+    for (const scale of ['total', 'free', 'seawater', 'nbs']) {
+      const { input, unknown } = toSolveInput([{ quantity: 'ph', value: 7.95, unit: scale }], {
+        model: 'saline',
+        ph_scale: scale === 'nbs' ? 'total' : 'nbs',
+      });
+      expect(unknown).toEqual([]);
+      expect(input.ph).toBe(7.95);
+      expect(input.ph_scale).toBe(scale);
+    }
+    // Plain `ph` keeps the scale of the context.
+    expect(
+      toSolveInput([{ quantity: 'ph', value: 8, unit: 'ph' }], { ph_scale: 'free' }).input.ph_scale,
+    ).toBe('free');
+  });
+  it('knows every pH unit id the importer writes', async () => {
+    const io = await import('../../src/io/quantities');
+    const ui = QUANTITIES.find((q) => q.id === 'ph')!.units.map((u) => u.id);
+    const imported = io.QUANTITIES.find((q) => q.id === 'ph')!.units.map((u) => u.id);
+    expect(ui.sort()).toEqual(imported.sort());
+  });
   it('finds the row an engine warning is about', () => {
     expect(quantityForKey('temperature_c')).toBe('temperature');
     expect(quantityForKey('alkalinity_mg_l_caco3')).toBe('alkalinity');

@@ -106,6 +106,13 @@ export class CouchClient {
   async login(): Promise<void> {
     const a = this.config.auth;
     if (a.kind !== 'session') return;
+    if (!a.password)
+      throw new SyncError(
+        'sync-password-needed',
+        'The server session has ended: enter the password again (it is not stored on this device).',
+        false,
+        401,
+      );
     const res = await this.raw('POST', `${this.config.url}_session`, { name: a.user, password: a.password });
     if (res.status === 401)
       throw new SyncError('sync-auth-failed', 'The server refused this user name and password.', false, 401);
@@ -117,7 +124,10 @@ export class CouchClient {
 
   /** One JSON request to the database; logs in first for cookie sessions and once more on expiry. */
   async request<T>(method: string, path: string, body?: unknown): Promise<{ status: number; body: T }> {
-    if (this.config.auth.kind === 'session' && !this.loggedIn) await this.login();
+    // Without a password in memory (not remembered, page reloaded) the browser's session cookie
+    // from the last sign-in may still be valid: try it, and ask for the password only on a 401.
+    const a = this.config.auth;
+    if (a.kind === 'session' && !this.loggedIn && a.password) await this.login();
     let res = await this.raw(method, `${this.base}${path}`, body);
     if (res.status === 401 && this.config.auth.kind === 'session') {
       this.loggedIn = false;

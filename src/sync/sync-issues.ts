@@ -12,6 +12,7 @@ export type SyncCode =
   | 'sync-offline'
   | 'sync-timeout'
   | 'sync-auth-failed'
+  | 'sync-password-needed'
   | 'sync-forbidden'
   | 'sync-db-missing'
   | 'sync-server-error'

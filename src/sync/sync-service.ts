@@ -1,7 +1,12 @@
 /**
  * Sync as the app uses it: the connection settings (kept in `syncMeta` on this device only, never
  * in backups or exports), one engine built from them, status for the screen, and conflict
- * resolution. The settings screen mounts `SyncPanel` (`src/ui/sync/SyncPanel.tsx`) with one of these.
+ * resolution.
+ *
+ * The password is stored with the settings only when the user asks to be remembered on this
+ * device; otherwise it lives in this object's memory and is gone when the page closes (sync then
+ * waits with `sync-password-needed` until it is typed again). With a cookie session the browser
+ * also holds the server's session cookie, which lets sync go on after a reload until it expires. The settings screen mounts `SyncPanel` (`src/ui/sync/SyncPanel.tsx`) with one of these.
  */
 
 import type { Issue } from '../chem/errors';
@@ -18,6 +23,8 @@ export interface ConnectionSettings {
   auth: Auth['kind'];
   user: string;
   password: string;
+  /** Keep the password in this device's database (default: only in memory for this session). */
+  remember?: boolean;
 }
 
 const CONNECTION = 'connection';
@@ -53,14 +60,19 @@ export class SyncService {
   private listeners = new Set<(s: SyncStatus) => void>();
   private unsubscribe: (() => void) | undefined;
   private status: SyncStatus = NOT_CONFIGURED;
+  /** The password of this session when it is not remembered on the device. */
+  private sessionPassword = '';
 
   constructor(
     readonly store: SyncStore,
     private readonly fetchImpl?: Fetch,
   ) {}
 
+  /** The stored connection, with this session's password filled in when it is not stored. */
   async connection(): Promise<ConnectionSettings | undefined> {
-    return this.store.getMeta<ConnectionSettings>(CONNECTION);
+    const c = await this.store.getMeta<ConnectionSettings>(CONNECTION);
+    if (!c) return undefined;
+    return c.password || !this.sessionPassword ? c : { ...c, password: this.sessionPassword };
   }
 
   private async deviceId(): Promise<string> {
@@ -81,6 +93,18 @@ export class SyncService {
     }
     const url = checkServerUrl(c.url);
     if ('error' in url) return false;
+    if (c.auth === 'basic' && !c.password) {
+      this.engine = undefined;
+      this.emit({
+        ...NOT_CONFIGURED,
+        error: syncIssue(
+          'sync-password-needed',
+          'Enter the server password again: it is kept only while Tufa is open, not on this device.',
+          'password',
+        ),
+      });
+      return false;
+    }
     const client = new CouchClient({ url: url.url.href, db: c.db, auth: authOf(c) }, this.fetchImpl);
     this.unsubscribe?.();
     this.engine = new SyncEngine(this.store, client, { deviceId: await this.deviceId() });
@@ -106,12 +130,19 @@ export class SyncService {
         e && typeof e === 'object' && 'toIssue' in e ? (e as { toIssue(): Issue }).toIssue() : undefined;
       return { error: issue ?? syncIssue('sync-bad-response', String(e)) };
     }
-    await this.store.setMeta(CONNECTION, { ...c, url: url.url.href });
+    this.sessionPassword = c.remember ? '' : c.password;
+    await this.store.setMeta(CONNECTION, {
+      ...c,
+      url: url.url.href,
+      remember: c.remember === true,
+      password: c.remember ? c.password : '',
+    });
     await this.start();
     return checked;
   }
 
   async disconnect(): Promise<void> {
+    this.sessionPassword = '';
     await this.store.setMeta(CONNECTION, undefined);
     this.unsubscribe?.();
     this.engine = undefined;
@@ -122,6 +153,16 @@ export class SyncService {
   async syncNow(): Promise<void> {
     if (!this.engine && !(await this.start())) return;
     await this.engine?.sync().catch(() => undefined);
+  }
+
+  /** Re-reads pending and conflict counts (after a local change) without syncing. */
+  async refresh(): Promise<void> {
+    await this.engine?.refreshStatus();
+  }
+
+  /** Whether a server is set up (sync may still wait for a password or the network). */
+  async configured(): Promise<boolean> {
+    return (await this.store.getMeta<ConnectionSettings>(CONNECTION)) !== undefined;
   }
 
   subscribe(fn: (s: SyncStatus) => void): () => void {

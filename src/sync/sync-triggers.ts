@@ -90,7 +90,7 @@ interface WorkerScopeLike {
     matchAll(o: {
       type: 'window';
       includeUncontrolled: boolean;
-    }): Promise<{ postMessage(m: unknown): void }[]>;
+    }): Promise<readonly { postMessage(m: unknown): void }[]>;
   };
 }
 

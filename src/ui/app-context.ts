@@ -5,6 +5,7 @@ import { useContext } from 'preact/hooks';
 import type { Issue } from '../chem/errors';
 import type { Repository } from '../store/repository';
 import type { Settings } from '../store/settings';
+import type { SyncService } from '../sync/sync-service';
 
 export interface Notice {
   text: string;
@@ -20,8 +21,11 @@ export interface AppState {
   locale: string | undefined;
   notify: (n: Notice) => void;
   reportError: (issue: Issue) => void;
-  /** Bumped after data changes so lists reload. */
+  /** Sync with a server; absent when it could not start (the app works without it). */
+  sync: SyncService | undefined;
+  /** Bumped after data changes (here or pulled by sync) so lists reload. */
   dataVersion: number;
+  /** Call after a local change: lists reload and the change is sent (now, or when back online). */
   dataChanged: () => void;
 }
 

@@ -1,10 +1,12 @@
 /** The app shell: top bar, the current screen, notices (undo, errors, update ready), offline state. */
 
-import { useEffect, useState } from 'preact/hooks';
+import { useEffect, useRef, useState } from 'preact/hooks';
 import type { Issue } from '../chem/errors';
 import { storeIssue } from '../store/errors';
 import type { Repository } from '../store/repository';
 import type { Settings } from '../store/settings';
+import type { SyncService } from '../sync/sync-service';
+import { requestBackgroundSync } from '../sync/sync-triggers';
 import { AppContext, type AppState, type Notice } from './app-context';
 import { useRoute } from './router';
 import { ReadingEntryScreen } from './screens/ReadingEntryScreen';
@@ -13,6 +15,7 @@ import { SettingsScreen } from './screens/SettingsScreen';
 import { SiteFormScreen } from './screens/SiteFormScreen';
 import { SiteScreen } from './screens/SiteScreen';
 import { SitesScreen } from './screens/SitesScreen';
+import { SyncBadge } from './sync/SyncBadge';
 
 function applyTheme(theme: Settings['theme']) {
   const dark = theme === 'dark' || (theme === 'system' && matchMedia('(prefers-color-scheme: dark)').matches);
@@ -24,12 +27,40 @@ export function App(props: {
   initialSettings: Settings;
   updateReady?: () => void;
   bootIssue?: Issue;
+  sync?: SyncService;
 }) {
   const route = useRoute();
   const [settings, setSettings] = useState(props.initialSettings);
   const [notice, setNotice] = useState<Notice>();
   const [dataVersion, setDataVersion] = useState(0);
   const [online, setOnline] = useState(navigator.onLine);
+  const pushTimer = useRef<ReturnType<typeof setTimeout>>(undefined);
+  const sync = props.sync;
+
+  // A sync that finished may have brought changes from other devices: reload what is shown.
+  useEffect(() => {
+    if (!sync) return;
+    let last: string | undefined;
+    return sync.subscribe((s) => {
+      if (s.state === 'idle' && s.lastSyncAt && s.lastSyncAt !== last) {
+        if (last !== undefined) setDataVersion((v) => v + 1);
+        last = s.lastSyncAt;
+      }
+    });
+  }, [sync]);
+
+  /** After a local change: the outbox already holds it; this only says when to send it. */
+  const sendSoon = () => {
+    if (!sync) return;
+    void sync.refresh();
+    if (!navigator.onLine) {
+      // Chromium wakes the service worker when the network is back; elsewhere `online` does it.
+      void requestBackgroundSync();
+      return;
+    }
+    clearTimeout(pushTimer.current);
+    pushTimer.current = setTimeout(() => void sync.syncNow(), 1500);
+  };
 
   useEffect(() => applyTheme(settings.theme), [settings.theme]);
   useEffect(() => {
@@ -65,8 +96,12 @@ export function App(props: {
     },
     notify: setNotice,
     reportError: (i) => setNotice({ kind: 'error', text: `${i.code}: ${i.message}` }),
+    sync,
     dataVersion,
-    dataChanged: () => setDataVersion((v) => v + 1),
+    dataChanged: () => {
+      setDataVersion((v) => v + 1);
+      sendSoon();
+    },
   };
 
   let screen: preact.JSX.Element;
@@ -110,6 +145,7 @@ export function App(props: {
         <span class={`net ${online ? 'on' : 'off'}`} role="status">
           {online ? 'Online' : 'Offline — saving on this device'}
         </span>
+        {sync && <SyncBadge service={sync} locale={settings.locale || undefined} />}
         <nav aria-label="Main">
           <a href="#/" aria-current={route.name === 'sites' ? 'page' : undefined}>
             Sites

@@ -49,3 +49,16 @@ export async function titrateInWorker(input: TitrationInput): Promise<TitrateOut
   if (r.kind !== 'titrate') throw new Error('engine worker answered the wrong request');
   return r.result;
 }
+
+/**
+ * Solves many inputs in the worker. With `keys`, each success carries only those outputs plus
+ * `model` and `warnings` (a 100 000-row import needs no more, and copying less back is faster).
+ */
+export async function solveManyInWorker(
+  inputs: SolveInput[],
+  keys?: readonly string[],
+): Promise<SolveResult[]> {
+  const r = await ask(keys ? { kind: 'many', inputs, keys: [...keys] } : { kind: 'many', inputs });
+  if (r.kind !== 'many') throw new Error('engine worker answered the wrong request');
+  return r.results;
+}

@@ -13,12 +13,15 @@ import { solve, titrate, titrationConstants } from './engine-source';
 export type EngineRequest =
   | { id: number; kind: 'solve'; input: SolveInput }
   | { id: number; kind: 'columns'; inputs: SolveInput[]; keys: string[] }
-  | { id: number; kind: 'titrate'; input: TitrationInput };
+  | { id: number; kind: 'titrate'; input: TitrationInput }
+  /** Full results, or (with `keys`) only those outputs plus model and warnings: less to copy back. */
+  | { id: number; kind: 'many'; inputs: SolveInput[]; keys?: string[] };
 
 export type EngineResponse =
   | { id: number; kind: 'solve'; result: SolveResult }
   | { id: number; kind: 'columns'; columns: (number | null)[][] }
-  | { id: number; kind: 'titrate'; result: TitrateOutcome };
+  | { id: number; kind: 'titrate'; result: TitrateOutcome }
+  | { id: number; kind: 'many'; results: SolveResult[] };
 
 function safeSolve(input: SolveInput): SolveResult {
   try {
@@ -43,6 +46,18 @@ scope.onmessage = (ev: MessageEvent<EngineRequest>) => {
   }
   if (req.kind === 'solve') {
     scope.postMessage({ id: req.id, kind: 'solve', result: safeSolve(req.input) } satisfies EngineResponse);
+    return;
+  }
+  if (req.kind === 'many') {
+    const keys = req.keys;
+    const results = req.inputs.map((input) => {
+      const r = safeSolve(input);
+      if (!keys || 'error' in r) return r;
+      const slim: Record<string, unknown> = { model: r.model, warnings: r.warnings };
+      for (const k of keys) slim[k] = (r as unknown as Record<string, unknown>)[k];
+      return slim as unknown as SolveResult;
+    });
+    scope.postMessage({ id: req.id, kind: 'many', results } satisfies EngineResponse);
     return;
   }
   // One column per requested output key; null where a row did not solve (a gap on the chart).

@@ -5,6 +5,8 @@ import type { Issue } from '../chem/errors';
 import { storeIssue } from '../store/errors';
 import { openRepository } from '../store/repository';
 import { DEFAULT_SETTINGS } from '../store/settings';
+import { bootSync } from '../sync/boot-sync';
+import type { SyncService } from '../sync/sync-service';
 import { App } from './app';
 import { registerServiceWorker } from './sw-register';
 import './styles.css';
@@ -37,10 +39,23 @@ async function boot() {
         }),
     });
     const settings = await repo.getSettings().catch(() => DEFAULT_SETTINGS);
+    // Sync is an extra: if it cannot start, the app still opens and keeps everything on the device.
+    let sync: SyncService | undefined;
+    try {
+      sync = (await bootSync(repo)).service;
+    } catch (e) {
+      console.warn('sync did not start', e);
+    }
     root.textContent = ''; // the static "Starting" placeholder; Preact 11 appends otherwise
     rerender = () =>
       render(
-        <App repo={repo} initialSettings={settings} updateReady={updateReady} bootIssue={blocked} />,
+        <App
+          repo={repo}
+          initialSettings={settings}
+          updateReady={updateReady}
+          bootIssue={blocked}
+          sync={sync}
+        />,
         root,
       );
     rerender();

@@ -7,20 +7,21 @@
 
 import { useEffect, useState } from 'preact/hooks';
 import { isSolveError, type SolveResult } from '../../chem/api';
-import { solve } from '../../chem/solve';
 import { backupToJson, createBackup, parseBackup, restoreBackup } from '../../io/backup';
 import { type ColumnMapping, type ColumnRole, defaultMapping, layoutKey } from '../../io/column-mapping';
 import { type ParsedCsv, parseCsv } from '../../io/csv-parse';
-import { exportReadingsCsv } from '../../io/export-csv';
 import { commitImport, type ImportReport, type PreviewRow, previewImport } from '../../io/import-commit';
 import { type ImportPlan, planImport } from '../../io/import-plan';
 import { mappingFromRecord, mappingToRecord, roleFromString, roleToString } from '../../io/layout-memory';
 import { QUANTITIES } from '../../io/quantities';
+import { solveInputOf } from '../../io/solve-input';
 import { formatWithOffset } from '../../io/timestamps';
 import type { Repository } from '../../store/repository';
 import type { SiteDoc } from '../../store/schema';
 import { RepositoryStore } from '../../sync/repository-store';
 import { showValue } from '../sync/conflict-fields';
+import { downloadText as download, readingsCsv } from './csv-download';
+import { workerSolver } from './worker-solver';
 
 const ROLE_OPTIONS: { value: string; label: string }[] = [
   { value: 'ignore', label: '— not imported —' },
@@ -35,15 +36,6 @@ const ROLE_OPTIONS: { value: string; label: string }[] = [
     q.units.map((u) => ({ value: `value:${q.id}:${u.id}`, label: `${q.label} — ${u.label}` })),
   ),
 ];
-
-function download(name: string, text: string, type: string) {
-  const url = URL.createObjectURL(new Blob([text], { type }));
-  const a = document.createElement('a');
-  a.href = url;
-  a.download = name;
-  a.click();
-  setTimeout(() => URL.revokeObjectURL(url), 1000);
-}
 
 function fmt(v: unknown, digits = 4): string {
   return typeof v === 'number' && Number.isFinite(v) ? v.toPrecision(digits) : '—';
@@ -93,6 +85,14 @@ function PreviewTable({ rows, sites }: { rows: PreviewRow[]; sites: Map<string, 
   );
 }
 
+/** Engine inputs of the first `n` planned rows (all when `n` is absent). */
+function planInputs(plan: ImportPlan, sites: readonly SiteDoc[], n?: number) {
+  const byId = new Map([...sites, ...plan.newSites].map((s) => [s.id, s]));
+  return plan.readings.slice(0, n).map((r) => solveInputOf(r, byId.get(r.siteId)));
+}
+
+const PREVIEW_ROWS = 8;
+
 export function DataPanel({ repo, onDataChanged }: { repo: Repository; onDataChanged?: () => void }) {
   const store = new RepositoryStore(repo);
   const [sites, setSites] = useState<SiteDoc[]>([]);
@@ -103,6 +103,7 @@ export function DataPanel({ repo, onDataChanged }: { repo: Repository; onDataCha
   const [preview, setPreview] = useState<PreviewRow[]>([]);
   const [report, setReport] = useState<ImportReport>();
   const [busy, setBusy] = useState('');
+  const [previewIssue, setPreviewIssue] = useState('');
   const [exportSite, setExportSite] = useState('');
   const [restoreMsg, setRestoreMsg] = useState('');
   const [encoding, setEncoding] = useState('UTF-8');
@@ -141,11 +142,21 @@ export function DataPanel({ repo, onDataChanged }: { repo: Repository; onDataCha
   useEffect(() => {
     if (!csv || !mapping) return;
     let live = true;
-    planImport(csv, mapping, sites).then((p) => {
-      if (!live) return;
-      setPlan(p);
-      setPreview(previewImport(p, sites, solve, 8));
-    });
+    // Only the rows shown are solved for the preview, in the engine worker: the page stays
+    // responsive whatever the size of the file.
+    planImport(csv, mapping, sites)
+      .then(async (p) => {
+        if (!live) return;
+        setPlan(p);
+        const solve = await workerSolver(planInputs(p, sites, PREVIEW_ROWS));
+        if (live) setPreview(previewImport(p, sites, solve, PREVIEW_ROWS));
+      })
+      .catch((e) => {
+        if (live)
+          setPreviewIssue(
+            `engine-unavailable: The preview could not be computed (${e instanceof Error ? e.message : String(e)}).`,
+          );
+      });
     return () => {
       live = false;
     };
@@ -160,6 +171,10 @@ export function DataPanel({ repo, onDataChanged }: { repo: Repository; onDataCha
 
   const doImport = async () => {
     if (!plan || !csv || !mapping) return;
+    setBusy('Computing…');
+    // Every row is solved in the worker (only to report rows that cannot be computed); the
+    // outputs themselves are not stored, they are recomputed whenever a reading is shown.
+    const solve = await workerSolver(planInputs(plan, sites), []);
     setBusy('Importing…');
     const r = await commitImport(plan, store, { solve, sites });
     if (r.ok) {
@@ -264,6 +279,7 @@ export function DataPanel({ repo, onDataChanged }: { repo: Repository; onDataCha
               </label>
             </fieldset>
             {preview.length > 0 && <PreviewTable rows={preview} sites={siteById} />}
+            {previewIssue && <p class="issue error">{previewIssue}</p>}
             {plan && (
               <p>
                 {plan.readings.length} readings ready
@@ -348,11 +364,9 @@ export function DataPanel({ repo, onDataChanged }: { repo: Repository; onDataCha
           <button
             type="button"
             onClick={async () => {
-              const all = await repo.listAllReadings();
-              const opts = exportSite ? { siteId: exportSite, solve } : { solve };
               download(
                 `tufa-readings-${new Date().toISOString().slice(0, 10)}.csv`,
-                exportReadingsCsv(all, sites, opts),
+                await readingsCsv(repo, exportSite || undefined),
                 'text/csv',
               );
             }}

@@ -3,6 +3,7 @@
 import { useEffect, useState } from 'preact/hooks';
 import type { Settings, ThemeChoice } from '../../store/settings';
 import { useApp } from '../app-context';
+import { DataPanel } from '../data/DataPanel';
 import { formatNumber, parseDecimal } from '../numbers';
 import { QUANTITIES } from '../quantities';
 import {
@@ -12,9 +13,10 @@ import {
   type StorageState,
   storageState,
 } from '../storage-state';
+import { SyncPanel } from '../sync/SyncPanel';
 
 export function SettingsScreen() {
-  const { settings, saveSettings, locale, notify } = useApp();
+  const { settings, saveSettings, locale, notify, repo, sync, dataChanged } = useApp();
   const [storage, setStorage] = useState<StorageState>();
   const [pco2Text, setPco2Text] = useState(
     formatNumber(settings.atmospheric_pco2_uatm, locale, { digits: 6 }),
@@ -204,6 +206,13 @@ export function SettingsScreen() {
           </button>
         )}
       </section>
+
+      {sync ? (
+        <SyncPanel service={sync} locale={locale} onDataChanged={dataChanged} />
+      ) : (
+        <p class="issue warn">Sharing with a server is not available: it could not start on this device.</p>
+      )}
+      <DataPanel repo={repo} onDataChanged={dataChanged} />
     </section>
   );
 }

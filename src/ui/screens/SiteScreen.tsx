@@ -10,6 +10,7 @@ import { useApp } from '../app-context';
 import type { Columnar, PointSeries } from '../charts/chart-data';
 import { mergeSeries } from '../charts/chart-data';
 import type { TimeChart } from '../charts/time-chart';
+import { downloadText, fileStem, readingsCsv } from '../data/csv-download';
 import { solveColumns } from '../engine-client';
 import { formatDateTime, formatNumber } from '../numbers';
 import { OUTPUTS } from '../outputs';
@@ -45,7 +46,8 @@ function seriesOptions(readings: ReadingDoc[]): { id: string; label: string; uni
 }
 
 export function SiteScreen(props: { siteId: string }) {
-  const { repo, settings, locale, dataVersion, reportError } = useApp();
+  const { repo, settings, locale, dataVersion, reportError, dataChanged } = useApp();
+  const [exporting, setExporting] = useState(false);
   const [site, setSite] = useState<SiteDoc | null>();
   const [readings, setReadings] = useState<ReadingDoc[]>([]);
   const [allSites, setAllSites] = useState<SiteDoc[]>([]);
@@ -246,6 +248,24 @@ export function SiteScreen(props: { siteId: string }) {
         </a>
         <button
           type="button"
+          disabled={exporting || readings.length === 0}
+          onClick={async () => {
+            setExporting(true);
+            try {
+              const text = await readingsCsv(repo, props.siteId);
+              const day = new Date().toISOString().slice(0, 10);
+              downloadText(`${fileStem(site?.name ?? '')}-${day}.csv`, text, 'text/csv');
+            } catch (e) {
+              reportError(storeIssue(e));
+            } finally {
+              setExporting(false);
+            }
+          }}
+        >
+          {exporting ? 'Preparing CSV…' : 'Download CSV of this site'}
+        </button>
+        <button
+          type="button"
           class="danger"
           onClick={async () => {
             if (
@@ -256,6 +276,7 @@ export function SiteScreen(props: { siteId: string }) {
               return;
             try {
               await repo.deleteSite(props.siteId);
+              dataChanged();
               go({ name: 'sites' });
             } catch (e) {
               reportError(storeIssue(e));

@@ -278,8 +278,20 @@ export function SyncPanel({
                 onInput={(e) => set({ password: e.currentTarget.value })}
               />
             </label>
-            <p class="muted small">
-              The password stays on this device. It is never put in backups or exports.
+            <label class="check">
+              <input
+                type="checkbox"
+                checked={form.remember === true}
+                onChange={(e) => set({ remember: e.currentTarget.checked })}
+              />
+              <span>Remember the password on this device</span>
+            </label>
+            <p class="muted small" id="sync-stored">
+              {form.remember
+                ? 'The password is kept in this browser’s storage for Tufa, unencrypted: anyone who can use this device and browser profile can read it. Leave this off on a shared device.'
+                : 'The password is kept only while Tufa is open. After it is closed, Tufa asks for it again (a cookie session may carry on until the server ends it).'}{' '}
+              The server address and user name are kept on this device. None of them ever go into backups or
+              exports.
             </p>
           </>
         )}

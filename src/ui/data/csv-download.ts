@@ -1,0 +1,43 @@
+/**
+ * CSV export as the app offers it (data panel: one site or all; site screen: this site), with the
+ * computed columns solved in the engine worker, and the browser download of a text file.
+ */
+
+import { COMPUTED_COLUMNS, exportReadingsCsv } from '../../io/export-csv';
+import { solveInputOf } from '../../io/solve-input';
+import type { Repository } from '../../store/repository';
+import type { ReadingDoc, SiteDoc } from '../../store/schema';
+import { workerSolver } from './worker-solver';
+
+export function downloadText(name: string, text: string, type: string): void {
+  const url = URL.createObjectURL(new Blob([text], { type }));
+  const a = document.createElement('a');
+  a.href = url;
+  a.download = name;
+  a.click();
+  setTimeout(() => URL.revokeObjectURL(url), 1000);
+}
+
+/** A file name safe on every system, from a site's name. */
+export function fileStem(name: string): string {
+  const s = name
+    .normalize('NFKD')
+    .replace(/[^\w\s-]/g, '')
+    .trim()
+    .replace(/\s+/g, '-')
+    .toLowerCase();
+  return s || 'site';
+}
+
+/** Readings of one site (or all) as CSV text, with what the engine computes from each row. */
+export async function readingsCsv(repo: Repository, siteId?: string): Promise<string> {
+  const sites = await repo.listSites({ includeDeleted: true });
+  const readings: ReadingDoc[] = siteId ? await repo.listReadings(siteId) : await repo.listAllReadings();
+  const byId = new Map<string, SiteDoc>(sites.map((s) => [s.id, s]));
+  const live = readings.filter((r) => !r.deleted);
+  const solve = await workerSolver(
+    live.map((r) => solveInputOf(r, byId.get(r.siteId))),
+    COMPUTED_COLUMNS,
+  );
+  return exportReadingsCsv(live, sites, siteId ? { siteId, solve } : { solve });
+}

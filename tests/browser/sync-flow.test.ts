@@ -76,6 +76,7 @@ describe('sync and export through the app', () => {
     expect(docs.map((d) => d.type).sort()).toEqual(['reading', 'site']);
     const reading = docs.find((d) => d.type === 'reading')!;
     expect(reading.values).toContainEqual({ quantity: 'ph', value: 8.02, unit: 'ph' });
+    await page.evaluate(() => window.scrollTo(0, 0)); // the top bar is sticky
     await screenshot(page, '20-settings-sync-data');
 
     // Offline: an edit is saved and waits in the outbox; the badge says so; back online it goes out.
@@ -113,5 +114,9 @@ describe('sync and export through the app', () => {
     expect(isSolveError(expected)).toBe(false);
     if (isSolveError(expected)) return;
     expect(Number(cell('computed_dic_umol_kg'))).toBeCloseTo(expected.dic_umol_kg, 6);
+
+    // On a phone the top bar keeps the badge readable next to the network state.
+    await page.setViewportSize({ width: 412, height: 800 });
+    await screenshot(page, '21-site-phone-sync-badge', { fullPage: false });
   }, 120_000);
 });

@@ -75,6 +75,45 @@ describe('credentials', () => {
     expect(await d.repo.outboxSize()).toBe(0);
   });
 
+  it('keeps the password only in memory unless asked to remember it on the device', async () => {
+    for (const auth of ['basic', 'session'] as const) {
+      const d = await device(server.url, DB);
+      const service = new SyncService(d.store);
+      const c = { url: server.url, db: DB, auth, user: 'ana', password: 'field-pass' };
+      expect(await service.configure(c)).toEqual({ warnings: [] });
+      // Stored without the password; this session still has it.
+      expect(await d.repo.getSyncMeta('connection')).toMatchObject({
+        user: 'ana',
+        password: '',
+        remember: false,
+      });
+      expect((await service.connection())?.password).toBe('field-pass');
+      await d.repo.createSite(siteInput(`Quarry pool ${auth}`));
+      await service.syncNow();
+      expect(await d.repo.outboxSize()).toBe(0);
+
+      // The app reopened: a new service over the same database has no password and says so.
+      const reopened = new SyncService(d.store);
+      const states: { code: string | undefined }[] = [];
+      reopened.subscribe((s) => states.push({ code: s.error?.code }));
+      await reopened.start();
+      await d.repo.createSite(siteInput(`Quarry pool ${auth} 2`));
+      await reopened.syncNow();
+      expect(states.at(-1)?.code).toBe('sync-password-needed');
+      expect(await d.repo.outboxSize()).toBe(1); // nothing lost, still waiting
+
+      // Remembered: stored, and a reopened service syncs by itself.
+      expect(await reopened.configure({ ...c, remember: true })).toEqual({ warnings: [] });
+      expect(await d.repo.getSyncMeta('connection')).toMatchObject({
+        password: 'field-pass',
+        remember: true,
+      });
+      const again = new SyncService(d.store);
+      await again.syncNow();
+      expect(await d.repo.outboxSize()).toBe(0);
+    }
+  });
+
   it('warns about plain http away from this device, refuses credentials in the address', () => {
     const r = checkServerUrl('http://couch.lab.example.org:5984');
     expect('warnings' in r && r.warnings.map((w) => w.code)).toEqual(['sync-insecure-http']);

@@ -19,6 +19,7 @@ function when(iso: string | undefined, locale?: string): string {
 }
 
 function stateWords(s: SyncStatus, locale?: string): string {
+  if (s.error?.code === 'sync-not-configured') return 'Not shared with a server yet.';
   switch (s.state) {
     case 'idle':
       return s.pending === 0 ? 'Up to date.' : 'Changes waiting to be sent.';
@@ -210,7 +211,10 @@ export function SyncPanel({
           </tbody>
         </table>
         {status?.error && (
-          <IssueLine issue={status.error} kind={status.state === 'error' ? 'error' : 'warn'} />
+          <IssueLine
+            issue={status.error}
+            kind={status.state === 'error' && status.error.code !== 'sync-not-configured' ? 'error' : 'warn'}
+          />
         )}
         {status?.rejected.map((r) => (
           <IssueLine key={r.message} issue={r} kind="error" />
@@ -300,15 +304,17 @@ export function SyncPanel({
           <button type="submit" class="primary" disabled={busy}>
             Check and save
           </button>
-          <button
-            type="button"
-            onClick={async () => {
-              await service.disconnect();
-              setForm(EMPTY);
-            }}
-          >
-            Stop sharing
-          </button>
+          {status?.error?.code !== 'sync-not-configured' && (
+            <button
+              type="button"
+              onClick={async () => {
+                await service.disconnect();
+                setForm(EMPTY);
+              }}
+            >
+              Stop sharing
+            </button>
+          )}
         </div>
       </form>
 

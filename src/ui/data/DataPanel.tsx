@@ -174,9 +174,16 @@ export function DataPanel({ repo, onDataChanged }: { repo: Repository; onDataCha
     setBusy('Computing…');
     // Every row is solved in the worker (only to report rows that cannot be computed); the
     // outputs themselves are not stored, they are recomputed whenever a reading is shown.
-    const solve = await workerSolver(planInputs(plan, sites), []);
+    // If the worker fails the readings are still imported (they are data, not results); only the
+    // check for rows that cannot be computed is skipped, and the user is told.
+    const solve = await workerSolver(planInputs(plan, sites), []).catch((e: unknown) => {
+      setPreviewIssue(
+        `engine-unavailable: Rows were not checked by the engine (${e instanceof Error ? e.message : String(e)}).`,
+      );
+      return undefined;
+    });
     setBusy('Importing…');
-    const r = await commitImport(plan, store, { solve, sites });
+    const r = await commitImport(plan, store, solve ? { solve, sites } : { sites });
     if (r.ok) {
       await repo.putLayout({
         name: fileName || 'CSV file',

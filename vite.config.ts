@@ -68,6 +68,10 @@ export default defineConfig({
     setupFiles: ['tests/setup.ts'],
     // Two shared cores: generous limits, since property tests and CLI spawns slow down under load.
     testTimeout: 60_000,
+    // Under CI a JSON report is written too, so .ci/run can print one plain "N passed, N failed" line.
+    reporters: process.env.CI
+      ? ['default', ['json', { outputFile: 'test-artifacts/vitest.json' }]]
+      : ['default'],
     environment: 'node',
     // Two cores: keep the pool small so browser tests and unit tests do not starve each other.
     maxWorkers: 2,

@@ -9,6 +9,7 @@ import { CARBONATE_KEYS, type CarbonateKey, type ModelChoice } from './api';
 import { fail, type Issue, warning } from './errors';
 import { alkalinityFromFieldUnits, FRESH_INPUT_KEYS } from './fresh/request';
 import { MOLAR_MASS_G_PER_MOL } from './physical';
+import { numberAt, optionAt } from './read-fields';
 import { salinityFromSpecificConductance } from './seawater/conductance';
 import type { MinorTotals, PhScale } from './types';
 import { densityKgL } from './units';
@@ -86,29 +87,6 @@ const PAIR_PRIORITY: readonly CarbonateKey[] = [
   'co3_umol_kg',
   'hco3_umol_kg',
 ];
-
-function numberAt(raw: Record<string, unknown>, key: string): number | undefined {
-  const v = raw[key];
-  if (v === undefined || v === null || v === '') return undefined;
-  if (typeof v !== 'number' || !Number.isFinite(v)) {
-    fail('not-a-number', `${key} must be a finite number, got ${JSON.stringify(v)}.`, key);
-  }
-  return v;
-}
-
-function optionAt<T extends string>(
-  raw: Record<string, unknown>,
-  key: string,
-  allowed: readonly T[],
-  fallback: T,
-): T {
-  const v = raw[key];
-  if (v === undefined || v === null || v === '') return fallback;
-  if (typeof v !== 'string' || !(allowed as readonly string[]).includes(v)) {
-    fail('unknown-option', `${key} must be one of ${allowed.join(', ')}; got ${JSON.stringify(v)}.`, key);
-  }
-  return v as T;
-}
 
 function inRange(key: string, v: number, lo: number, hi: number, code: string, what: string): void {
   if (v < lo || v > hi) fail(code, `${what} ${v} is outside ${lo} to ${hi}: no natural water has it.`, key);

@@ -48,6 +48,10 @@ export const OUTPUTS: OutputDef[] = [
   { key: 'alkalinity_meq_l', label: 'Alkalinity', unit: 'meq/L', digits: 4 },
   { key: 'alkalinity_mg_l_caco3', label: 'Alkalinity', unit: 'mg/L as CaCO₃', digits: 4 },
   { key: 'alkalinity_dkh', label: 'Alkalinity', unit: 'dKH', digits: 3 },
+  { key: 'calcium_total_umol_kg', label: 'Calcium', unit: 'µmol/kg', digits: 4 },
+  { key: 'boron_total_umol_kg', label: 'Total boron', unit: 'µmol/kg', digits: 4 },
+  { key: 'sulfate_total_umol_kg', label: 'Total sulfate', unit: 'µmol/kg', digits: 4 },
+  { key: 'fluoride_total_umol_kg', label: 'Total fluoride', unit: 'µmol/kg', digits: 4 },
 ];
 
 const BY_KEY = new Map(OUTPUTS.map((o) => [o.key, o]));

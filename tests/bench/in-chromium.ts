@@ -11,17 +11,7 @@ import { join } from 'node:path';
 import preact from '@preact/preset-vite';
 import { chromium, type Page } from 'playwright-core';
 import { build } from 'vite';
-
-export const CHROMIUM_ARGS = [
-  '--no-sandbox',
-  '--disable-gpu',
-  '--disable-dev-shm-usage',
-  '--disable-quic',
-  '--no-first-run',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-];
+import { CHROMIUM, CHROMIUM_ARGS } from '../browser/browser';
 
 export async function inChromium<T>(
   entry: string,
@@ -57,7 +47,7 @@ export async function inChromium<T>(
     await new Promise<void>((r) => server.listen(0, '127.0.0.1', r));
     const addr = server.address();
     const port = typeof addr === 'object' && addr ? addr.port : 0;
-    const browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: CHROMIUM_ARGS });
+    const browser = await chromium.launch({ executablePath: CHROMIUM, args: CHROMIUM_ARGS });
     try {
       const page = await browser.newPage({ viewport: opts.viewport ?? { width: 900, height: 1200 } });
       await page.goto(`http://127.0.0.1:${port}/`);

@@ -4,6 +4,18 @@ import { existsSync, mkdirSync } from 'node:fs';
 import { type Browser, type BrowserContext, chromium, type Page } from 'playwright-core';
 
 export const CHROMIUM = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
+
+/** Flags for headless Debian Chromium on a closed network (docs: toolchain.md). */
+export const CHROMIUM_ARGS = [
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-dev-shm-usage',
+  '--disable-quic',
+  '--no-first-run',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--disable-sync',
+];
 export const ARTIFACTS = new URL('../../test-artifacts/', import.meta.url);
 
 export async function launch(): Promise<Browser> {
@@ -11,16 +23,7 @@ export async function launch(): Promise<Browser> {
     throw new Error(`Chromium not found at ${CHROMIUM}: apt-get install -y chromium`);
   return chromium.launch({
     executablePath: CHROMIUM,
-    args: [
-      '--no-sandbox',
-      '--disable-gpu',
-      '--disable-dev-shm-usage',
-      '--disable-quic',
-      '--no-first-run',
-      '--disable-background-networking',
-      '--disable-component-update',
-      '--disable-sync',
-    ],
+    args: CHROMIUM_ARGS,
   });
 }
 

@@ -69,10 +69,18 @@ export function chooseModel(choice: 'saline' | 'fresh' | 'auto', e: SalinityEvid
         warnings: [],
       };
     }
+    // Sea and reef water is always measured with its salinity; a sample without any sign of salt
+    // is far more often a stream, spring or well, so the fresh model is assumed, with a warning.
     return {
-      model: 'saline',
-      reason: 'no salinity, conductance or fresh-water input was given',
-      warnings: [],
+      model: 'fresh',
+      reason: 'no salinity, conductance or other sign of salt was given, so fresh water is assumed',
+      warnings: [
+        warning(
+          'model-assumed-fresh',
+          'No salinity or conductance was given, so the fresh-water model was assumed. For sea or reef water give salinity (or set model to saline).',
+          'model',
+        ),
+      ],
     };
   }
   const model: WaterModel = s < FRESH_SALINE_BOUNDARY ? 'fresh' : 'saline';

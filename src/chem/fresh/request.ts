@@ -5,6 +5,7 @@
  */
 
 import { fail, type Issue, warning } from '../errors';
+import { numberAt, optionAt } from '../read-fields';
 import { alkalinityToEqKg } from '../units';
 import type { ActivityModel } from './activity';
 import {
@@ -62,33 +63,10 @@ export interface FreshRequest {
   freshKeys: string[];
 }
 
-function num(raw: Readonly<Record<string, unknown>>, key: string): number | undefined {
-  const v = raw[key];
-  if (v === undefined || v === null || v === '') return undefined;
-  if (typeof v !== 'number' || !Number.isFinite(v)) {
-    fail('not-a-number', `${key} must be a finite number, got ${JSON.stringify(v)}.`, key);
-  }
-  return v;
-}
-
 function nonNegative(raw: Readonly<Record<string, unknown>>, key: string): number | undefined {
-  const v = num(raw, key);
+  const v = numberAt(raw, key);
   if (v !== undefined && v < 0) fail('negative-value', `${key} cannot be negative, got ${v}.`, key);
   return v;
-}
-
-function option<T extends string>(
-  raw: Readonly<Record<string, unknown>>,
-  key: string,
-  allowed: readonly T[],
-  fallback: T,
-): T {
-  const v = raw[key];
-  if (v === undefined || v === null || v === '') return fallback;
-  if (typeof v !== 'string' || !(allowed as readonly string[]).includes(v)) {
-    fail('unknown-option', `${key} must be one of ${allowed.join(', ')}; got ${JSON.stringify(v)}.`, key);
-  }
-  return v as T;
 }
 
 export function parseFreshInput(raw: Readonly<Record<string, unknown>>): FreshRequest {
@@ -97,7 +75,7 @@ export function parseFreshInput(raw: Readonly<Record<string, unknown>>): FreshRe
     const v = nonNegative(raw, `${name}_mg_l`);
     if (v !== undefined) ions[name] = v;
   }
-  const air = num(raw, 'air_pco2_uatm') ?? DEFAULT_AIR_PCO2_UATM;
+  const air = numberAt(raw, 'air_pco2_uatm') ?? DEFAULT_AIR_PCO2_UATM;
   if (!(air > 0) || air > 1e6) {
     fail('bad-air-pco2', `air_pco2_uatm must be between 0 and 1e6 µatm, got ${air}.`, 'air_pco2_uatm');
   }
@@ -111,14 +89,19 @@ export function parseFreshInput(raw: Readonly<Record<string, unknown>>): FreshRe
     specificConductanceUsCm: nonNegative(raw, 'specific_conductance_us_cm'),
     tdsMgL: nonNegative(raw, 'tds_mg_l'),
     airPco2Uatm: air,
-    activity: option(raw, 'activity_model', ['davies', 'debye-huckel', 'truesdell-jones'] as const, 'davies'),
-    conductanceFactor: option(
+    activity: optionAt(
+      raw,
+      'activity_model',
+      ['davies', 'debye-huckel', 'truesdell-jones'] as const,
+      'davies',
+    ),
+    conductanceFactor: optionAt(
       raw,
       'conductance_factor',
       ['russell-1976', 'griffin-jurinak-1973'] as const,
       'russell-1976',
     ),
-    dolomite: option(raw, 'dolomite_form', ['ordered', 'disordered'] as const, 'ordered'),
+    dolomite: optionAt(raw, 'dolomite_form', ['ordered', 'disordered'] as const, 'ordered'),
     freshKeys: freshOnly,
   };
 }
@@ -134,7 +117,7 @@ export function alkalinityFromFieldUnits(
   alreadyUmolKg: boolean,
 ): { key: AlkalinityFieldKey; umolKg: number } | undefined {
   const given = (Object.keys(ALKALINITY_FIELD_KEYS) as AlkalinityFieldKey[]).filter(
-    (k) => num(raw, k) !== undefined,
+    (k) => numberAt(raw, k) !== undefined,
   );
   if (given.length === 0) return undefined;
   if (given.length > 1 || alreadyUmolKg) {
@@ -142,7 +125,7 @@ export function alkalinityFromFieldUnits(
     fail('alkalinity-given-twice', `Give alkalinity once; got ${all.join(' and ')}.`, given[0]);
   }
   const key = given[0]!;
-  const v = num(raw, key)!;
+  const v = numberAt(raw, key)!;
   if (v < 0)
     fail(
       'negative-alkalinity',

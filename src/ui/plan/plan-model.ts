@@ -7,6 +7,7 @@
 import type { SolveOutput } from '../../chem/api';
 import type { ChemicalId } from '../../chem/plan/chemicals';
 import type { TargetQuantity } from '../../chem/plan/inverse';
+import { OUTPUTS, outputDef } from '../outputs';
 
 export type PanelAction = 'add' | 'equilibrate' | 'reach' | 'mix';
 export type AmountUnit = 'g' | 'mol' | 'ml_stock';
@@ -143,29 +144,17 @@ export function planRequest(
   return { water: reading, volume_l: volume, actions: [action] };
 }
 
-/** Labels for the outputs a person reads first; every other numeric output follows under its key. */
-const LABELS: Record<string, string> = {
-  alkalinity_umol_kg: 'Alkalinity (µmol/kg)',
-  dic_umol_kg: 'DIC (µmol/kg)',
-  ph_total: 'pH, total scale',
-  ph_free: 'pH, free scale',
-  ph_seawater: 'pH, seawater scale',
-  ph_nbs: 'pH, NBS scale',
-  pco2_uatm: 'pCO2 (µatm)',
-  fco2_uatm: 'fCO2 (µatm)',
-  co2_umol_kg: 'CO2* (µmol/kg)',
-  hco3_umol_kg: 'HCO3- (µmol/kg)',
-  co3_umol_kg: 'CO3-- (µmol/kg)',
-  omega_calcite: 'Ω calcite',
-  omega_aragonite: 'Ω aragonite',
-  revelle_factor: 'Revelle factor',
-};
-
 export interface CompareRow {
   key: string;
   label: string;
   before: number | undefined;
   after: number | undefined;
+}
+
+/** "Label (unit)" from the app's one table of output names. */
+function outputLabel(key: string): string {
+  const def = outputDef(key);
+  return def.unit ? `${def.label} (${def.unit})` : def.label;
 }
 
 /** Every numeric output of either water (top level and totals), labelled ones first. */
@@ -179,14 +168,14 @@ export function compareRows(before: SolveOutput, after: SolveOutput): CompareRow
   const a = flat(before);
   const b = flat(after);
   const keys = [...new Set([...Object.keys(a), ...Object.keys(b)])];
-  const order = Object.keys(LABELS);
+  const order = OUTPUTS.map((o) => o.key);
   keys.sort((x, y) => {
     const ix = order.indexOf(x);
     const iy = order.indexOf(y);
     if (ix >= 0 || iy >= 0) return (ix < 0 ? 99 : ix) - (iy < 0 ? 99 : iy);
     return x.localeCompare(y);
   });
-  return keys.map((k) => ({ key: k, label: LABELS[k] ?? k.replace(/_/g, ' '), before: a[k], after: b[k] }));
+  return keys.map((k) => ({ key: k, label: outputLabel(k), before: a[k], after: b[k] }));
 }
 
 /** Fractions of DIC as CO2*, HCO3- and CO3--. */

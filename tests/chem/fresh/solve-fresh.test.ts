@@ -328,3 +328,12 @@ describe('assignFreshOutputs', () => {
     expect(target).toEqual(f);
   });
 });
+
+describe('a sample with no sign of salt', () => {
+  it('is solved with the fresh model and says the model was assumed', () => {
+    const r = solve({ temperature_c: 12, ph: 7.4, alkalinity_umol_kg: 2000 });
+    if ('error' in r) throw new Error(r.error.message);
+    expect(r.model).toBe('fresh');
+    expect(r.warnings.map((w) => w.code)).toContain('model-assumed-fresh');
+  });
+});

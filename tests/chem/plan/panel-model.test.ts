@@ -25,7 +25,9 @@ describe('planning panel model', () => {
     const rows = compareRows(r.before, r.after);
     const numeric = Object.values(r.after).filter((x) => typeof x === 'number').length;
     expect(rows.length).toBe(numeric + 4); // plus the four totals
-    expect(rows[0]!.key).toBe('alkalinity_umol_kg');
+    // The app's output order (src/ui/outputs.ts) comes first, with its labels and units.
+    expect(rows[0]!.key).toBe('dic_umol_kg');
+    expect(rows.find((x) => x.key === 'calcium_total_umol_kg')?.label).toBe('Calcium (µmol/kg)');
     expect(rows.every((x) => x.before === undefined || Number.isFinite(x.before))).toBe(true);
     const f = speciation(r.after);
     expect(f.co2 + f.hco3 + f.co3).toBeCloseTo(1, 12);

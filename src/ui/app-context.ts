@@ -23,6 +23,7 @@ export interface AppState {
   reportError: (issue: Issue) => void;
   /** Sync with a server; absent when it could not start (the app works without it). */
   sync: SyncService | undefined;
+  syncState: 'starting' | 'ready' | 'failed';
   /** Bumped after data changes (here or pulled by sync) so lists reload. */
   dataVersion: number;
   /** Call after a local change: lists reload and the change is sent (now, or when back online). */

@@ -28,6 +28,7 @@ export function App(props: {
   updateReady?: () => void;
   bootIssue?: Issue;
   sync?: SyncService;
+  syncState?: AppState['syncState'];
 }) {
   const route = useRoute();
   const [settings, setSettings] = useState(props.initialSettings);
@@ -97,6 +98,7 @@ export function App(props: {
     notify: setNotice,
     reportError: (i) => setNotice({ kind: 'error', text: `${i.code}: ${i.message}` }),
     sync,
+    syncState: props.syncState ?? (sync ? 'ready' : 'failed'),
     dataVersion,
     dataChanged: () => {
       setDataVersion((v) => v + 1);

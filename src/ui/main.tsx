@@ -5,7 +5,6 @@ import type { Issue } from '../chem/errors';
 import { storeIssue } from '../store/errors';
 import { openRepository } from '../store/repository';
 import { DEFAULT_SETTINGS } from '../store/settings';
-import { bootSync } from '../sync/boot-sync';
 import type { SyncService } from '../sync/sync-service';
 import { App } from './app';
 import { registerServiceWorker } from './sw-register';
@@ -39,13 +38,10 @@ async function boot() {
         }),
     });
     const settings = await repo.getSettings().catch(() => DEFAULT_SETTINGS);
-    // Sync is an extra: if it cannot start, the app still opens and keeps everything on the device.
+    // Sync is an extra, loaded after the first screen (it is not part of the shell's budget): if it
+    // cannot start, the app still works and keeps everything on the device.
     let sync: SyncService | undefined;
-    try {
-      sync = (await bootSync(repo)).service;
-    } catch (e) {
-      console.warn('sync did not start', e);
-    }
+    let syncState: 'starting' | 'ready' | 'failed' = 'starting';
     root.textContent = ''; // the static "Starting" placeholder; Preact 11 appends otherwise
     rerender = () =>
       render(
@@ -55,11 +51,25 @@ async function boot() {
           updateReady={updateReady}
           bootIssue={blocked}
           sync={sync}
+          syncState={syncState}
         />,
         root,
       );
     rerender();
     document.documentElement.dataset.ready = 'true';
+    import('../sync/boot-sync')
+      .then((m) => m.bootSync(repo))
+      .then(
+        (r) => {
+          sync = r.service;
+          syncState = 'ready';
+        },
+        (e) => {
+          console.warn('sync did not start', e);
+          syncState = 'failed';
+        },
+      )
+      .then(() => rerender?.());
   } catch (e) {
     fatal(storeIssue(e));
   }

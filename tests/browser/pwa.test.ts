@@ -145,7 +145,14 @@ describe('installable app', () => {
       await page.getByLabel('Theme').selectOption(theme);
       await expect.poll(() => page.evaluate(() => document.documentElement.dataset.theme)).toBe(theme);
       const screens: [string, () => Promise<void>][] = [
-        ['settings', async () => {}],
+        [
+          'settings',
+          async () => {
+            // The sync and data panels load after the screen: check them too.
+            await page.getByRole('heading', { name: 'Sharing with a server' }).waitFor();
+            await page.getByRole('heading', { name: 'Data in and out' }).waitFor();
+          },
+        ],
         ['sites', async () => void (await page.getByRole('link', { name: 'Sites', exact: true }).click())],
         ['site', async () => void (await page.getByRole('link', { name: /Garage reef tank/ }).click())],
         ['entry', async () => void (await page.getByRole('link', { name: 'New reading' }).click())],

@@ -16,7 +16,10 @@ const spring: SolveInput = { model: 'fresh', temperature_c: 9, ph: 7.2, alkalini
 describe('a solver answering from results computed elsewhere (the engine worker)', () => {
   it('answers by the content of the input, whatever the key order or call order', () => {
     const inputs = [reef, spring];
-    const s = answeringSolver(inputs, inputs.map(solve));
+    const s = answeringSolver(
+      inputs,
+      inputs.map((i) => solve(i)),
+    );
     const reordered: SolveInput = Object.fromEntries(Object.entries(reef).reverse());
     expect(s(spring)).toEqual(solve(spring));
     expect(s(reordered)).toEqual(solve(reef));

@@ -3,7 +3,6 @@
 import { useEffect, useState } from 'preact/hooks';
 import type { Settings, ThemeChoice } from '../../store/settings';
 import { useApp } from '../app-context';
-import { DataPanel } from '../data/DataPanel';
 import { formatNumber, parseDecimal } from '../numbers';
 import { QUANTITIES } from '../quantities';
 import {
@@ -13,18 +12,34 @@ import {
   type StorageState,
   storageState,
 } from '../storage-state';
-import { SyncPanel } from '../sync/SyncPanel';
+
+type DataPanelType = typeof import('../data/DataPanel').DataPanel;
+type SyncPanelType = typeof import('../sync/SyncPanel').SyncPanel;
 
 export function SettingsScreen() {
-  const { settings, saveSettings, locale, notify, repo, sync, dataChanged } = useApp();
+  const { settings, saveSettings, locale, notify, repo, sync, syncState, dataChanged } = useApp();
   const [storage, setStorage] = useState<StorageState>();
   const [pco2Text, setPco2Text] = useState(
     formatNumber(settings.atmospheric_pco2_uatm, locale, { digits: 6 }),
   );
   const [pco2Issue, setPco2Issue] = useState<string>();
 
+  // CSV parsing, import planning and backups are loaded with Settings, not with the app shell.
+  const [Data, setData] = useState<DataPanelType>();
+  const [dataIssue, setDataIssue] = useState<string>();
+  const [Sync, setSync] = useState<SyncPanelType>();
+
   useEffect(() => {
     storageState().then(setStorage);
+    import('../data/DataPanel').then(
+      (m) => setData(() => m.DataPanel),
+      (e) =>
+        setDataIssue(`data-unavailable: The import and export tools could not be loaded (${String(e)}).`),
+    );
+    import('../sync/SyncPanel').then(
+      (m) => setSync(() => m.SyncPanel),
+      () => undefined, // shown below as sync not available
+    );
   }, []);
 
   const set = (patch: Partial<Settings>) => saveSettings(patch);
@@ -207,12 +222,21 @@ export function SettingsScreen() {
         )}
       </section>
 
-      {sync ? (
-        <SyncPanel service={sync} locale={locale} onDataChanged={dataChanged} />
+      {sync && Sync ? (
+        <Sync service={sync} locale={locale} onDataChanged={dataChanged} />
+      ) : syncState === 'failed' ? (
+        <p class="issue warn">
+          sync-unavailable: Sharing with a server could not start on this device. Readings stay here; export
+          them to move them.
+        </p>
       ) : (
-        <p class="issue warn">Sharing with a server is not available: it could not start on this device.</p>
+        <p class="muted">Loading sharing with a server…</p>
       )}
-      <DataPanel repo={repo} onDataChanged={dataChanged} />
+      {Data ? (
+        <Data repo={repo} onDataChanged={dataChanged} />
+      ) : (
+        <p class={dataIssue ? 'issue error' : 'muted'}>{dataIssue ?? 'Loading import and export…'}</p>
+      )}
     </section>
   );
 }

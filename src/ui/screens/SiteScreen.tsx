@@ -10,7 +10,6 @@ import { useApp } from '../app-context';
 import type { Columnar, PointSeries } from '../charts/chart-data';
 import { mergeSeries } from '../charts/chart-data';
 import type { TimeChart } from '../charts/time-chart';
-import { downloadText, fileStem, readingsCsv } from '../data/csv-download';
 import { solveColumns } from '../engine-client';
 import { formatDateTime, formatNumber } from '../numbers';
 import { OUTPUTS } from '../outputs';
@@ -252,6 +251,7 @@ export function SiteScreen(props: { siteId: string }) {
           onClick={async () => {
             setExporting(true);
             try {
+              const { downloadText, fileStem, readingsCsv } = await import('../data/csv-download');
               const text = await readingsCsv(repo, props.siteId);
               const day = new Date().toISOString().slice(0, 10);
               downloadText(`${fileStem(site?.name ?? '')}-${day}.csv`, text, 'text/csv');

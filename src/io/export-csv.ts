@@ -5,7 +5,7 @@
  * The file re-imports without any mapping work (see `guessRoles`).
  */
 
-import { isSolveError } from '../chem/api';
+import { isSolveError, type SolveResult } from '../chem/api';
 import { writeCsv } from './csv-write';
 import type { ReadingDoc, SiteDoc } from './docs';
 import { formatNumber } from './numbers';
@@ -33,6 +33,8 @@ export interface ExportOptions {
   /** Only this site's readings; all when absent. */
   siteId?: string;
   solve?: Solver;
+  /** Results already computed (e.g. in the app's engine worker), by reading id; used instead of `solve`. */
+  results?: ReadonlyMap<string, SolveResult>;
   withBom?: boolean;
 }
 
@@ -51,6 +53,13 @@ export function exportReadingsCsv(
   const present = new Set(converted.flatMap((c) => Object.keys(c.values)));
   const valueKeys = KEY_ORDER.filter((k) => present.has(k));
   const hasScale = present.has('ph');
+  const computing = options.results !== undefined || options.solve !== undefined;
+  const resultOf = (r: ReadingDoc, site: SiteDoc | undefined): SolveResult =>
+    options.results
+      ? (options.results.get(r.id) ?? {
+          error: { code: 'internal-error', message: 'This reading was not computed.' },
+        })
+      : options.solve!(solveInputOf(r, site));
   const header = [
     'reading_id',
     'site',
@@ -60,7 +69,7 @@ export function exportReadingsCsv(
     ...(hasScale ? ['ph_scale'] : []),
     ...valueKeys,
     'notes',
-    ...(options.solve
+    ...(computing
       ? [...COMPUTED_COLUMNS.map((c) => `computed_${c}`), 'computed_model', 'computed_issues']
       : []),
   ];
@@ -77,8 +86,8 @@ export function exportReadingsCsv(
       ...valueKeys.map((k) => formatNumber(values[k])),
       r.notes,
     ];
-    if (options.solve) {
-      const res = options.solve(solveInputOf(r, site));
+    if (computing) {
+      const res = resultOf(r, site);
       if (isSolveError(res)) {
         out.push(...COMPUTED_COLUMNS.map(() => ''), '', `${res.error.code}: ${res.error.message}`);
       } else {

@@ -4,7 +4,7 @@
  * not written again, which is what makes re-importing a file harmless.
  */
 
-import { isSolveError } from '../chem/api';
+import { isSolveError, type SolveResult } from '../chem/api';
 import type { ReadingDoc, SiteDoc, TufaDoc } from './docs';
 import type { ImportPlan } from './import-plan';
 import { type RowIssue, rowIssue } from './io-issues';
@@ -57,10 +57,23 @@ export function previewImport(
 /** Runs the engine over every planned row; failures become row warnings (the data is still kept). */
 export function computeWarnings(plan: ImportPlan, sites: readonly SiteDoc[], solve: Solver): RowIssue[] {
   const byId = siteMap(plan, sites);
+  return warningsFromResults(
+    plan,
+    plan.readings.map((reading) => solve(solveInputOf(reading, byId.get(reading.siteId)))),
+  );
+}
+
+/**
+ * Row warnings from results computed elsewhere (the app's engine worker): `results[i]` is the
+ * result for `plan.readings[i]`. A missing result is a warning too, never a silent pass.
+ */
+export function warningsFromResults(plan: ImportPlan, results: readonly SolveResult[]): RowIssue[] {
   const out: RowIssue[] = [];
-  plan.readings.forEach((reading, i) => {
-    const r = solve(solveInputOf(reading, byId.get(reading.siteId)));
-    if (isSolveError(r)) {
+  plan.readings.forEach((_, i) => {
+    const r = results[i];
+    if (r === undefined) {
+      out.push(rowIssue(plan.readingLines[i]!, 'row-solve-failed', 'This row was not computed.'));
+    } else if (isSolveError(r)) {
       out.push(
         rowIssue(
           plan.readingLines[i]!,
@@ -77,7 +90,12 @@ export function computeWarnings(plan: ImportPlan, sites: readonly SiteDoc[], sol
 export async function commitImport(
   plan: ImportPlan,
   target: ImportTarget,
-  options: { solve?: Solver; sites?: readonly SiteDoc[] } = {},
+  options: {
+    solve?: Solver;
+    sites?: readonly SiteDoc[];
+    /** Results already computed for `plan.readings` (same order), used instead of `solve`. */
+    results?: readonly SolveResult[];
+  } = {},
 ): Promise<ImportReport> {
   const report: ImportReport = {
     ok: false,
@@ -90,7 +108,8 @@ export async function commitImport(
     warnings: [],
   };
   if (report.errors.length > 0) return report;
-  if (options.solve) report.warnings = computeWarnings(plan, options.sites ?? [], options.solve);
+  if (options.results) report.warnings = warningsFromResults(plan, options.results);
+  else if (options.solve) report.warnings = computeWarnings(plan, options.sites ?? [], options.solve);
   const existing = await target.existingIds([
     ...plan.readings.map((r) => r.id),
     ...plan.newSites.map((s) => s.id),

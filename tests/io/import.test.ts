@@ -4,10 +4,10 @@ import { solve } from '../../src/chem/solve';
 import { defaultMapping, guessRoles, layoutKey } from '../../src/io/column-mapping';
 import { parseCsv } from '../../src/io/csv-parse';
 import { exportReadingsCsv } from '../../src/io/export-csv';
-import { commitImport, previewImport } from '../../src/io/import-commit';
+import { commitImport, previewImport, warningsFromResults } from '../../src/io/import-commit';
 import { planImport } from '../../src/io/import-plan';
 import { mappingFromRecord, mappingToRecord } from '../../src/io/layout-memory';
-import { engineValues } from '../../src/io/solve-input';
+import { engineValues, solveInputOf } from '../../src/io/solve-input';
 import { openRepository } from '../../src/store/repository';
 import { RepositoryStore } from '../../src/sync/repository-store';
 
@@ -235,6 +235,48 @@ describe('import preview', () => {
     expect(report).toMatchObject({ ok: true, written: 2 });
     expect(report.warnings.map((w) => [w.row, w.code])).toEqual([[3, 'row-solve-failed']]);
     expect((await repo.listAllReadings()).length).toBe(2);
+  });
+});
+
+describe('results computed elsewhere (the app solves in its engine worker)', () => {
+  it('import warnings and export columns from given results match those from solve()', async () => {
+    const { store, repo } = await fresh();
+    const csv = parseCsv(
+      'site;taken_at;temperature_c;salinity;ph;alkalinity_umol_kg\n' +
+        'Bay buoy;2026-06-03T09:15Z;25;35;8,05;2300\n' +
+        'Bay buoy;2026-06-03T10:15Z;25;35;8,05;\n',
+    );
+    const plan = await planImport(csv, defaultMapping(csv.table.header, 'UTC'), []);
+    const bySite = new Map(plan.newSites.map((s) => [s.id, s]));
+    const results = plan.readings.map((r) => solve(solveInputOf(r, bySite.get(r.siteId))));
+    expect(warningsFromResults(plan, results)).toEqual(
+      (
+        await commitImport(
+          plan,
+          { existingIds: async () => new Set(plan.readings.map((r) => r.id)), bulkPut: async () => {} },
+          { solve },
+        )
+      ).warnings,
+    );
+    // A result missing for a row is reported, not passed.
+    expect(warningsFromResults(plan, results.slice(0, 1)).map((w) => [w.row, w.message])).toEqual([
+      [3, 'This row was not computed.'],
+    ]);
+    const report = await commitImport(plan, store, { results });
+    expect(report.warnings.map((w) => [w.row, w.code])).toEqual([[3, 'row-solve-failed']]);
+
+    const readings = await repo.listAllReadings();
+    const sites = await repo.listSites();
+    const byId = new Map(sites.map((s) => [s.id, s]));
+    const given = new Map(readings.map((r) => [r.id, solve(solveInputOf(r, byId.get(r.siteId)))]));
+    const a = exportReadingsCsv(readings, sites, { solve });
+    expect(exportReadingsCsv(readings, sites, { results: given })).toBe(a);
+    expect(a).toContain('computed_dic_umol_kg');
+    // A reading without a result gets its row, with the reason in the issues column.
+    const partial = exportReadingsCsv(readings, sites, { results: new Map() });
+    expect(
+      partial.split('\r\n').filter((l) => l.includes('internal-error: This reading was not computed.')),
+    ).toHaveLength(2);
   });
 });
 

@@ -19,6 +19,7 @@ import { formatWithOffset } from '../../io/timestamps';
 import type { Repository } from '../../store/repository';
 import type { SiteDoc } from '../../store/schema';
 import { RepositoryStore } from '../../sync/repository-store';
+import { solveManyInWorker } from '../engine-client';
 import { showValue } from '../sync/conflict-fields';
 import { downloadText as download, readingsCsv } from './csv-download';
 import { workerSolver } from './worker-solver';
@@ -176,14 +177,14 @@ export function DataPanel({ repo, onDataChanged }: { repo: Repository; onDataCha
     // outputs themselves are not stored, they are recomputed whenever a reading is shown.
     // If the worker fails the readings are still imported (they are data, not results); only the
     // check for rows that cannot be computed is skipped, and the user is told.
-    const solve = await workerSolver(planInputs(plan, sites), []).catch((e: unknown) => {
+    const results = await solveManyInWorker(planInputs(plan, sites), []).catch((e: unknown) => {
       setPreviewIssue(
         `engine-unavailable: Rows were not checked by the engine (${e instanceof Error ? e.message : String(e)}).`,
       );
       return undefined;
     });
     setBusy('Importing…');
-    const r = await commitImport(plan, store, solve ? { solve, sites } : { sites });
+    const r = await commitImport(plan, store, results ? { results, sites } : { sites });
     if (r.ok) {
       await repo.putLayout({
         name: fileName || 'CSV file',

@@ -7,7 +7,7 @@ import { COMPUTED_COLUMNS, exportReadingsCsv } from '../../io/export-csv';
 import { solveInputOf } from '../../io/solve-input';
 import type { Repository } from '../../store/repository';
 import type { ReadingDoc, SiteDoc } from '../../store/schema';
-import { workerSolver } from './worker-solver';
+import { solveManyInWorker } from '../engine-client';
 
 export function downloadText(name: string, text: string, type: string): void {
   const url = URL.createObjectURL(new Blob([text], { type }));
@@ -35,9 +35,10 @@ export async function readingsCsv(repo: Repository, siteId?: string): Promise<st
   const readings: ReadingDoc[] = siteId ? await repo.listReadings(siteId) : await repo.listAllReadings();
   const byId = new Map<string, SiteDoc>(sites.map((s) => [s.id, s]));
   const live = readings.filter((r) => !r.deleted);
-  const solve = await workerSolver(
+  const solved = await solveManyInWorker(
     live.map((r) => solveInputOf(r, byId.get(r.siteId))),
     COMPUTED_COLUMNS,
   );
-  return exportReadingsCsv(live, sites, siteId ? { siteId, solve } : { solve });
+  const results = new Map(live.map((r, i) => [r.id, solved[i]!]));
+  return exportReadingsCsv(live, sites, siteId ? { siteId, results } : { results });
 }

@@ -10,6 +10,7 @@ import 'fake-indexeddb/auto';
 import { cpus, loadavg } from 'node:os';
 import { openRepository } from '../../src/store/repository';
 import { CouchServer } from '../sync/couch-server';
+import { benchImportInApp } from './data-app';
 import { benchImportChromium, benchSyncChromium } from './data-browser';
 import { benchImportIn } from './data-import-core';
 import { benchFirstSyncIn } from './data-sync-core';
@@ -58,6 +59,7 @@ export async function benchData(): Promise<string[]> {
   const load = loadavg().map((x) => x.toFixed(1));
   const lines = [`machine: ${cpus().length} cores, load average ${load.join(' ')} (figures scale with it)`];
   lines.push(...(await benchImportChromium()));
+  lines.push(...(await benchImportInApp()));
   if (process.env.TUFA_BENCH_NODE_IMPORT === '1') lines.push(...(await benchImport()));
   lines.push(...(await benchFirstSyncChromium()));
   lines.push(...(await benchFirstSync()));

@@ -95,6 +95,8 @@ export async function commitImport(
     sites?: readonly SiteDoc[];
     /** Results already computed for `plan.readings` (same order), used instead of `solve`. */
     results?: readonly SolveResult[];
+    /** Row warnings already computed (e.g. by the app's import worker), used as they are. */
+    warnings?: RowIssue[];
   } = {},
 ): Promise<ImportReport> {
   const report: ImportReport = {
@@ -108,7 +110,8 @@ export async function commitImport(
     warnings: [],
   };
   if (report.errors.length > 0) return report;
-  if (options.results) report.warnings = warningsFromResults(plan, options.results);
+  if (options.warnings) report.warnings = options.warnings;
+  else if (options.results) report.warnings = warningsFromResults(plan, options.results);
   else if (options.solve) report.warnings = computeWarnings(plan, options.sites ?? [], options.solve);
   const existing = await target.existingIds([
     ...plan.readings.map((r) => r.id),

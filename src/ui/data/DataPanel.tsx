@@ -5,24 +5,21 @@
  * export of one site or all; JSON backup and restore.
  */
 
-import { useEffect, useState } from 'preact/hooks';
+import { useEffect, useMemo, useState } from 'preact/hooks';
 import { isSolveError, type SolveResult } from '../../chem/api';
 import { backupToJson, createBackup, parseBackup, restoreBackup } from '../../io/backup';
 import { type ColumnMapping, type ColumnRole, defaultMapping, layoutKey } from '../../io/column-mapping';
-import { type ParsedCsv, parseCsv } from '../../io/csv-parse';
-import { commitImport, type ImportReport, type PreviewRow, previewImport } from '../../io/import-commit';
-import { type ImportPlan, planImport } from '../../io/import-plan';
+import { commitImport, type ImportReport, type PreviewRow } from '../../io/import-commit';
 import { mappingFromRecord, mappingToRecord, roleFromString, roleToString } from '../../io/layout-memory';
 import { QUANTITIES } from '../../io/quantities';
-import { solveInputOf } from '../../io/solve-input';
 import { formatWithOffset } from '../../io/timestamps';
 import type { Repository } from '../../store/repository';
 import type { SiteDoc } from '../../store/schema';
 import { RepositoryStore } from '../../sync/repository-store';
-import { solveManyInWorker } from '../engine-client';
 import { showValue } from '../sync/conflict-fields';
 import { downloadText as download, readingsCsv } from './csv-download';
-import { workerSolver } from './worker-solver';
+import type { FileSummary, PlanSummary } from './import.worker';
+import { ImportWorker } from './import-client';
 
 const ROLE_OPTIONS: { value: string; label: string }[] = [
   { value: 'ignore', label: '— not imported —' },
@@ -86,22 +83,22 @@ function PreviewTable({ rows, sites }: { rows: PreviewRow[]; sites: Map<string, 
   );
 }
 
-/** Engine inputs of the first `n` planned rows (all when `n` is absent). */
-function planInputs(plan: ImportPlan, sites: readonly SiteDoc[], n?: number) {
-  const byId = new Map([...sites, ...plan.newSites].map((s) => [s.id, s]));
-  return plan.readings.slice(0, n).map((r) => solveInputOf(r, byId.get(r.siteId)));
-}
-
 const PREVIEW_ROWS = 8;
+
+function failure(code: string, what: string, e: unknown): string {
+  return `${code}: ${what} (${e instanceof Error ? e.message : String(e)}). Nothing was written.`;
+}
 
 export function DataPanel({ repo, onDataChanged }: { repo: Repository; onDataChanged?: () => void }) {
   const store = new RepositoryStore(repo);
+  // Parsing, planning and solving a file run in this worker; the page only shows and stores.
+  const worker = useMemo(() => new ImportWorker(), []);
+  useEffect(() => () => worker.close(), [worker]);
   const [sites, setSites] = useState<SiteDoc[]>([]);
-  const [csv, setCsv] = useState<ParsedCsv>();
+  const [csv, setCsv] = useState<FileSummary>();
   const [fileName, setFileName] = useState('');
   const [mapping, setMapping] = useState<ColumnMapping>();
-  const [plan, setPlan] = useState<ImportPlan>();
-  const [preview, setPreview] = useState<PreviewRow[]>([]);
+  const [plan, setPlan] = useState<PlanSummary>();
   const [report, setReport] = useState<ImportReport>();
   const [busy, setBusy] = useState('');
   const [previewIssue, setPreviewIssue] = useState('');
@@ -127,37 +124,39 @@ export function DataPanel({ repo, onDataChanged }: { repo: Repository; onDataCha
       text = new TextDecoder('windows-1252').decode(bytes);
       setEncoding('Windows-1252 (not UTF-8)');
     }
-    const parsed = parseCsv(text);
-    setFileName(file.name);
-    setCsv(parsed);
+    setBusy('Reading the file…');
+    setPlan(undefined);
     setReport(undefined);
-    const [remembered] = await repo.findLayouts(layoutKey(parsed.table.header));
-    setMapping(
-      remembered
-        ? mappingFromRecord(parsed.table.header, remembered.columns, zone)
-        : defaultMapping(parsed.table.header, zone),
-    );
+    setPreviewIssue('');
+    try {
+      const parsed = await worker.open(text);
+      setFileName(file.name);
+      setCsv(parsed);
+      const [remembered] = await repo.findLayouts(layoutKey(parsed.header));
+      setMapping(
+        remembered
+          ? mappingFromRecord(parsed.header, remembered.columns, zone)
+          : defaultMapping(parsed.header, zone),
+      );
+    } catch (e) {
+      setPreviewIssue(failure('import-unavailable', 'The file could not be read', e));
+    } finally {
+      setBusy('');
+    }
   };
 
-  // Re-plan and re-preview whenever the mapping changes.
+  // Re-plan and re-preview (first rows solved by the engine) whenever the mapping changes.
   useEffect(() => {
     if (!csv || !mapping) return;
     let live = true;
-    // Only the rows shown are solved for the preview, in the engine worker: the page stays
-    // responsive whatever the size of the file.
-    planImport(csv, mapping, sites)
-      .then(async (p) => {
-        if (!live) return;
-        setPlan(p);
-        const solve = await workerSolver(planInputs(p, sites, PREVIEW_ROWS));
-        if (live) setPreview(previewImport(p, sites, solve, PREVIEW_ROWS));
-      })
-      .catch((e) => {
-        if (live)
-          setPreviewIssue(
-            `engine-unavailable: The preview could not be computed (${e instanceof Error ? e.message : String(e)}).`,
-          );
-      });
+    worker.plan(mapping, sites, PREVIEW_ROWS).then(
+      (p) => {
+        if (live) setPlan(p);
+      },
+      (e) => {
+        if (live) setPreviewIssue(failure('import-unavailable', 'The file could not be planned', e));
+      },
+    );
     return () => {
       live = false;
     };
@@ -173,30 +172,28 @@ export function DataPanel({ repo, onDataChanged }: { repo: Repository; onDataCha
   const doImport = async () => {
     if (!plan || !csv || !mapping) return;
     setBusy('Computing…');
-    // Every row is solved in the worker (only to report rows that cannot be computed); the
-    // outputs themselves are not stored, they are recomputed whenever a reading is shown.
-    // If the worker fails the readings are still imported (they are data, not results); only the
-    // check for rows that cannot be computed is skipped, and the user is told.
-    const results = await solveManyInWorker(planInputs(plan, sites), []).catch((e: unknown) => {
-      setPreviewIssue(
-        `engine-unavailable: Rows were not checked by the engine (${e instanceof Error ? e.message : String(e)}).`,
-      );
-      return undefined;
-    });
-    setBusy('Importing…');
-    const r = await commitImport(plan, store, results ? { results, sites } : { sites });
-    if (r.ok) {
-      await repo.putLayout({
-        name: fileName || 'CSV file',
-        headerSignature: layoutKey(csv.table.header),
-        columns: mappingToRecord(csv.table.header, mapping),
-        delimiter: csv.sniff.delimiter,
-        decimalComma: csv.sniff.decimalComma,
-      });
-      onDataChanged?.();
+    try {
+      // Every row is solved in the worker only to report rows that cannot be computed; outputs are
+      // not stored, they are recomputed whenever a reading is shown.
+      const { plan: full, warnings } = await worker.take();
+      setBusy('Importing…');
+      const r = await commitImport(full, store, { warnings, sites });
+      if (r.ok) {
+        await repo.putLayout({
+          name: fileName || 'CSV file',
+          headerSignature: layoutKey(csv.header),
+          columns: mappingToRecord(csv.header, mapping),
+          delimiter: csv.sniff.delimiter,
+          decimalComma: csv.sniff.decimalComma,
+        });
+        onDataChanged?.();
+      }
+      setReport(r);
+    } catch (e) {
+      setPreviewIssue(failure('import-unavailable', 'The import could not be prepared', e));
+    } finally {
+      setBusy('');
     }
-    setReport(r);
-    setBusy('');
   };
 
   const siteById = new Map([...sites, ...(plan?.newSites ?? [])].map((s) => [s.id, s]));
@@ -222,14 +219,14 @@ export function DataPanel({ repo, onDataChanged }: { repo: Repository; onDataCha
         {csv && mapping && (
           <>
             <p class="small muted">
-              {csv.table.rows.length} rows · {encoding} · fields separated by “
+              {csv.rowCount} rows · {encoding} · fields separated by “
               {csv.sniff.delimiter === '\t' ? 'tab' : csv.sniff.delimiter}” · decimal{' '}
               {csv.sniff.decimalComma ? 'comma' : 'point'}
               {csv.sniff.hadBom ? ' · byte-order mark removed' : ''}
             </p>
             <fieldset>
               <legend>What each column holds</legend>
-              {csv.table.header.map((h, i) => (
+              {csv.header.map((h, i) => (
                 <label class="field" key={`${h}-${i}`}>
                   <span>{h || `(column ${i + 1})`}</span>
                   <select
@@ -286,11 +283,11 @@ export function DataPanel({ repo, onDataChanged }: { repo: Repository; onDataCha
                 </select>
               </label>
             </fieldset>
-            {preview.length > 0 && <PreviewTable rows={preview} sites={siteById} />}
+            {plan && plan.preview.length > 0 && <PreviewTable rows={plan.preview} sites={siteById} />}
             {previewIssue && <p class="issue error">{previewIssue}</p>}
             {plan && (
               <p>
-                {plan.readings.length} readings ready
+                {plan.readingCount} readings ready
                 {plan.newSites.length
                   ? `, new ${plan.newSites.length === 1 ? 'site' : 'sites'}: ${plan.newSites.map((s) => s.name).join(', ')}`
                   : ''}
@@ -348,7 +345,7 @@ export function DataPanel({ repo, onDataChanged }: { repo: Repository; onDataCha
                 disabled={!plan || plan.errors.length > 0 || !!busy}
                 onClick={doImport}
               >
-                {busy || `Import ${plan?.readings.length ?? 0} readings`}
+                {busy || `Import ${plan?.readingCount ?? 0} readings`}
               </button>
             </div>
           </>

@@ -108,8 +108,9 @@ export class SyncService {
     const client = new CouchClient({ url: url.url.href, db: c.db, auth: authOf(c) }, this.fetchImpl);
     this.unsubscribe?.();
     this.engine = new SyncEngine(this.store, client, { deviceId: await this.deviceId() });
-    this.unsubscribe = this.engine.subscribe((s) => this.emit(s));
+    // Counts first, then listen: the engine's initial status (nothing pending) is not the truth yet.
     await this.engine.refreshStatus();
+    this.unsubscribe = this.engine.subscribe((s) => this.emit(s));
     return true;
   }
 

@@ -22,7 +22,8 @@ function stateWords(s: SyncStatus, locale?: string): string {
   if (s.error?.code === 'sync-not-configured') return 'Not shared with a server yet.';
   switch (s.state) {
     case 'idle':
-      return s.pending === 0 ? 'Up to date.' : 'Changes waiting to be sent.';
+      if (s.pending > 0) return 'Changes waiting to be sent.';
+      return s.lastSyncAt ? 'Up to date.' : 'Not synced yet.';
     case 'syncing':
       return 'Syncing…';
     case 'waiting-to-retry':

@@ -14,7 +14,7 @@ import { solveInputOf } from '../../src/io/solve-input';
 import type { SiteDoc } from '../../src/store/schema';
 import { solve } from '../../src/ui/engine-source';
 import { CouchServer } from '../sync/couch-server';
-import { launch, newContext, openApp, screenshot } from './browser';
+import { ARTIFACTS, launch, newContext, openApp, screenshot } from './browser';
 
 const base = inject('baseUrl');
 const server = new CouchServer({ shared: true });
@@ -119,5 +119,9 @@ describe('sync and export through the app', () => {
     // On a phone the top bar keeps the badge readable next to the network state.
     await page.setViewportSize({ width: 412, height: 800 });
     await screenshot(page, '21-site-phone-sync-badge', { fullPage: false });
+    await page.getByRole('link', { name: 'Settings' }).click();
+    await page.locator('section[aria-labelledby="sync-h"]').screenshot({
+      path: new URL('23-sync-panel-phone.png', ARTIFACTS).pathname,
+    });
   }, 120_000);
 });

@@ -85,6 +85,15 @@ export interface SolvedWater {
   omega_calcite: number | null;
   omega_aragonite: number | null;
   revelle_factor: number;
+  /** Egleston et al. (2010) buffer factors, mmol/kg: γ, β, ω with respect to DIC (constant TA) and TA (constant DIC). */
+  buffer_factors_mmol_kg: {
+    gamma_dic: number;
+    beta_dic: number;
+    omega_dic: number;
+    gamma_ta: number;
+    beta_ta: number;
+    omega_ta: number;
+  };
   /** p-values (−log10) of the constants used at output conditions, e.g. `pk1`. */
   constants: Record<string, number>;
   model: 'saline' | 'fresh';

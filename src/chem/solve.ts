@@ -19,7 +19,7 @@ import {
 } from './fresh/solve-fresh';
 import { choosePair, parseSolveInput, type SolveRequest } from './input';
 import { applyShifts, type ConstantShifts, constantsFor } from './models';
-import { revelleFactor } from './solver/buffer';
+import { bufferFactors, revelleFactor } from './solver/buffer';
 import { type Param, solvePair } from './solver/pairs';
 import type { CarbonateState, ConstantSet, MinorTotals, PhScale, WaterModel } from './types';
 import { solveUncertainty } from './uncertainty/solveUncertainty';
@@ -297,6 +297,22 @@ function addUnique(into: Issue[], from: readonly Issue[]): void {
 
 const p = (x: number): number => -Math.log10(x);
 
+function bufferFactorsMmolKg(
+  s: CarbonateState,
+  k: ConstantSet,
+  minor: MinorTotals,
+): SolvedWater['buffer_factors_mmol_kg'] {
+  const b = bufferFactors(s, k, minor);
+  return {
+    gamma_dic: b.gammaDic * 1e3,
+    beta_dic: b.betaDic * 1e3,
+    omega_dic: b.omegaDic * 1e3,
+    gamma_ta: b.gammaTa * 1e3,
+    beta_ta: b.betaTa * 1e3,
+    omega_ta: b.omegaTa * 1e3,
+  };
+}
+
 /** The output object for one state at output conditions. */
 function describe(
   s: CarbonateState,
@@ -321,6 +337,7 @@ function describe(
     omega_calcite: (k.calcium * s.co3) / k.kspCalcite,
     omega_aragonite: (k.calcium * s.co3) / k.kspAragonite,
     revelle_factor: revelleFactor(s, k, minor),
+    buffer_factors_mmol_kg: bufferFactorsMmolKg(s, k, minor),
     constants: {
       pk0: p(k.k0),
       pk1: p(k.k1),

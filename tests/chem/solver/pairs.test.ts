@@ -1,7 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { alkalinityFromHDic, alkalinityParts } from '../../../src/chem/solver/alkalinity';
-import { revelleFactor } from '../../../src/chem/solver/buffer';
+import { bufferFactors, revelleFactor } from '../../../src/chem/solver/buffer';
 import { type Param, solvePair, stateFromHDic } from '../../../src/chem/solver/pairs';
 import type { CarbonateState, ConstantSet, MinorTotals } from '../../../src/chem/types';
 import { freshLike25, seawater25 } from './seawater-constants.fixture';
@@ -109,5 +109,57 @@ describe('alkalinity and buffer factor', () => {
     // Typical surface seawater has R between 8 and 15 (Sabine et al. 2004, Science 305, 367).
     expect(revelleFactor(s, seawater25, minor)).toBeGreaterThan(8);
     expect(revelleFactor(s, seawater25, minor)).toBeLessThan(15);
+  });
+});
+
+describe('Egleston et al. (2010) buffer factors', () => {
+  it('equal finite differences of the solver, and γDIC = DIC / Revelle factor', () => {
+    const s = stateFromHDic(10 ** -8.05, 2050e-6, seawater25, minor);
+    const b = bufferFactors(s, seawater25, minor);
+    const d = 1e-7 * s.dic;
+    const co3 = (x: { co3: number }) => x.co3;
+    const at = (ta: number, dic: number) => solvePair('ta', ta, 'dic', dic, seawater25, minor)[0]!;
+    const inv = (
+      f: (x: ReturnType<typeof at>) => number,
+      up: ReturnType<typeof at>,
+      dn: ReturnType<typeof at>,
+    ) => (2 * d) / (Math.log(f(up)) - Math.log(f(dn)));
+    const dicUp = at(s.ta, s.dic + d);
+    const dicDn = at(s.ta, s.dic - d);
+    const taUp = at(s.ta + d, s.dic);
+    const taDn = at(s.ta - d, s.dic);
+    expect(
+      relErr(
+        b.gammaDic,
+        inv((x) => x.co2, dicUp, dicDn),
+      ),
+    ).toBeLessThan(1e-5);
+    expect(
+      relErr(
+        b.betaDic,
+        inv((x) => x.h, dicUp, dicDn),
+      ),
+    ).toBeLessThan(1e-5);
+    expect(relErr(b.omegaDic, inv(co3, dicUp, dicDn))).toBeLessThan(1e-5);
+    expect(
+      relErr(
+        b.gammaTa,
+        inv((x) => x.co2, taUp, taDn),
+      ),
+    ).toBeLessThan(1e-5);
+    expect(
+      relErr(
+        b.betaTa,
+        inv((x) => x.h, taUp, taDn),
+      ),
+    ).toBeLessThan(1e-5);
+    expect(relErr(b.omegaTa, inv(co3, taUp, taDn))).toBeLessThan(1e-5);
+    expect(relErr(b.gammaDic, s.dic / revelleFactor(s, seawater25, minor))).toBeLessThan(1e-12);
+    // Surface-ocean magnitudes in Egleston et al. (2010), fig. 2: γ and β of order 0.1–0.3 mmol/kg.
+    expect(b.gammaDic * 1e3).toBeGreaterThan(0.1);
+    expect(b.gammaDic * 1e3).toBeLessThan(0.4);
+    expect(b.betaDic).toBeGreaterThan(0);
+    expect(b.omegaDic).toBeLessThan(0);
+    expect(b.gammaTa).toBeLessThan(0);
   });
 });

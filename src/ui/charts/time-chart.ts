@@ -48,7 +48,14 @@ export function createTimeChart(
     {
       width,
       height,
-      scales: { x: { time: true } },
+      scales: {
+        x: {
+          time: true,
+          // One reading (or all at one instant) has no span: show the day around it, not uPlot's
+          // default padding of whole years.
+          range: (_u, min, max) => (min === max ? [min - 43_200, max + 43_200] : [min, max]),
+        },
+      },
       cursor: { drag: { x: true, y: false } },
       legend: { live: true },
       series: [

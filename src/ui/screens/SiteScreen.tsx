@@ -150,7 +150,8 @@ export function SiteScreen(props: { siteId: string }) {
         <div>
           <h1 id="site-h">{site?.name ?? '…'}</h1>
           <p class="muted">
-            {site ? kindLabel(site.kind) : ''} · {readings.length} readings
+            {site ? kindLabel(site.kind) : ''} · {readings.length}{' '}
+            {readings.length === 1 ? 'reading' : 'readings'}
           </p>
         </div>
         <a class="button primary" href={`#/site/${props.siteId}/new-reading`}>

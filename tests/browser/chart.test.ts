@@ -70,6 +70,18 @@ describe('charts', () => {
     }
   });
 
+  it('shows a single reading as a dot on the day around it', async () => {
+    await openApp(page, base);
+    const siteId = await seed(1);
+    await page.goto(`${base}#/site/${siteId}`);
+    await page.waitForSelector('html[data-ready="true"]');
+    await expect.poll(() => page.locator('#site-h + p').textContent()).toContain('1 reading');
+    const chart = page.locator('[data-testid="time-chart"]');
+    await chart.locator('canvas').waitFor();
+    await expect.poll(async () => Number(await chart.getAttribute('data-scale-span'))).toBe(86_400);
+    await screenshot(page, '08b-chart-one-reading');
+  });
+
   it('renders a 10 000-point series', async () => {
     await openApp(page, base);
     const siteId = await seed(10_000);

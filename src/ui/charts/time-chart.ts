@@ -8,6 +8,9 @@ import uPlot from 'uplot';
 import 'uplot/dist/uPlot.min.css';
 import { type Columnar, decimate } from './chart-data';
 
+/** Below this many readings each one is drawn as a dot as well as joined by the line. */
+const SHOW_POINTS_BELOW = 300;
+
 export interface SeriesSpec {
   label: string;
   /** Series sharing a unit share a y scale and axis. */
@@ -48,14 +51,7 @@ export function createTimeChart(
     {
       width,
       height,
-      scales: {
-        x: {
-          time: true,
-          // One reading (or all at one instant) has no span: show the day around it, not uPlot's
-          // default padding of whole years.
-          range: (_u, min, max) => (min === max ? [min - 43_200, max + 43_200] : [min, max]),
-        },
-      },
+      scales: { x: { time: true } },
       cursor: { drag: { x: true, y: false } },
       legend: { live: true },
       series: [
@@ -66,7 +62,8 @@ export function createTimeChart(
           stroke: SERIES_COLOURS[i % SERIES_COLOURS.length],
           width: 1.5,
           spanGaps: false,
-          points: { show: false },
+          // Sparse field logs show each reading as a dot (a single reading has no line at all).
+          points: { show: full.xs.length <= SHOW_POINTS_BELOW, size: 6 },
         })),
       ],
       axes: [
@@ -98,6 +95,11 @@ export function createTimeChart(
     el,
   );
   busy = false;
+  // One reading (or all at one instant) has no span: show the day around it, not uPlot's default
+  // padding of whole years.
+  const x0 = full.xs[0];
+  if (x0 !== undefined && x0 === full.xs[full.xs.length - 1])
+    plot.setScale('x', { min: x0 - 43_200, max: x0 + 43_200 });
 
   // Figures for tests and benchmarks (and anyone inspecting the page): what is plotted.
   const describe = () => {
@@ -105,9 +107,11 @@ export function createTimeChart(
     el.dataset.drawnPoints = String(plot.data[0]?.length ?? 0);
     el.dataset.xMin = String(full.xs[0] ?? '');
     el.dataset.xMax = String(full.xs[full.xs.length - 1] ?? '');
+    el.dataset.scaleSpan = String((plot.scales.x?.max ?? 0) - (plot.scales.x?.min ?? 0));
   };
   describe();
   plot.hooks.setData = [...(plot.hooks.setData ?? []), describe];
+  plot.hooks.setScale = [...(plot.hooks.setScale ?? []), describe];
 
   const ro = new ResizeObserver(() => {
     const w = Math.max(200, el.clientWidth);

@@ -66,7 +66,7 @@ async function openTheReading(p: Page): Promise<void> {
 /** The measured values and notes as the reading page shows them, for comparing two phones. */
 async function readingShown(p: Page): Promise<string> {
   await openTheReading(p);
-  const measured = await p.locator('section[aria-labelledby="measured-h"]').innerText();
+  const measured = (await p.locator('section[aria-labelledby="measured-h"]').textContent()) ?? '';
   return measured.replace(/\s+/g, ' ').trim();
 }
 

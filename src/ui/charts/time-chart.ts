@@ -78,6 +78,12 @@ export function createTimeChart(
         })),
       ],
       hooks: {
+        // With no reading under the cursor uPlot writes "--" as each value; say nothing instead.
+        setLegend: [
+          (u: uPlot) => {
+            u.root.querySelector('.u-legend')?.classList.toggle('idle', u.cursor.idx == null);
+          },
+        ],
         setScale: [
           (u: uPlot, key: string) => {
             if (key !== 'x' || busy) return;

@@ -13,6 +13,7 @@ import type { MeasuredValue, ReadingDoc, SiteDoc } from '../../store/schema';
 import { useApp } from '../app-context';
 import { solveInWorker, titrateInWorker } from '../engine-client';
 import { formatNumber, parseDecimal } from '../numbers';
+import { plainWords } from '../plain-words';
 import { QUANTITIES, quantity, quantityForKey } from '../quantities';
 import { go } from '../router';
 import { readingInput } from '../solve-context';
@@ -294,7 +295,7 @@ export function ReadingEntryScreen(props: { siteId?: string; readingId?: string 
                   )}
                   {(byQuantity.get(row.quantity) ?? []).map((w, k) => (
                     <span key={`${w.code}-${k}`} class="issue warn">
-                      <code>{w.code}</code> {w.message}
+                      <code>{w.code}</code> {plainWords(w.message)}
                     </span>
                   ))}
                 </div>

@@ -6,6 +6,7 @@ import { useApp } from '../app-context';
 import { RESULT_CAUTION, resultAlerts } from '../cautions';
 import { formatNumber } from '../numbers';
 import { numericOutputs, pairLabel } from '../outputs';
+import { plainKey, plainWords } from '../plain-words';
 import { quantityForKey } from '../quantities';
 
 export function ResultsPanel(props: { result: SolveResult | undefined; busy?: boolean; full?: boolean }) {
@@ -25,7 +26,8 @@ export function ResultsPanel(props: { result: SolveResult | undefined; busy?: bo
     return (
       <section class="results" aria-live="polite" aria-label="Results">
         <p class="issue error" role="alert">
-          <strong>Cannot compute yet</strong> <code>{result.error.code}</code>: {result.error.message}
+          <strong>Cannot compute yet</strong> <code>{result.error.code}</code>:{' '}
+          {plainWords(result.error.message)}
         </p>
       </section>
     );
@@ -54,11 +56,11 @@ export function ResultsPanel(props: { result: SolveResult | undefined; busy?: bo
               {props.full && uncertainty?.[def.key] && uncertainty[def.key]!.standard_uncertainty > 0 && (
                 <span
                   class="uncertainty"
-                  title={`largest contribution: ${uncertainty[def.key]!.dominant_input}`}
+                  title={`largest contribution: ${plainKey(uncertainty[def.key]!.dominant_input)}`}
                 >
                   {' '}
                   ± {formatNumber(uncertainty[def.key]!.standard_uncertainty, locale, { digits: 2 })}
-                  <span class="small"> ({uncertainty[def.key]!.dominant_input})</span>
+                  <span class="small"> ({plainKey(uncertainty[def.key]!.dominant_input)})</span>
                 </span>
               )}
             </dd>
@@ -74,14 +76,14 @@ export function ResultsPanel(props: { result: SolveResult | undefined; busy?: bo
       )}
       <p class="muted small">
         Model: {result.model}
-        {typeof record.model_reason === 'string' ? ` (${record.model_reason})` : ''}
+        {typeof record.model_reason === 'string' ? ` (${plainWords(record.model_reason)})` : ''}
         {result.pair ? ` · solved from ${pairLabel(result.pair)}` : ''}
       </p>
       {general.length > 0 && (
         <ul class="warnings">
           {general.map((w, k) => (
             <li key={`${w.code}-${k}`} class="issue warn">
-              <code>{w.code}</code> {w.message}
+              <code>{w.code}</code> {plainWords(w.message)}
             </li>
           ))}
         </ul>

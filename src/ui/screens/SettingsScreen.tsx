@@ -78,7 +78,7 @@ export function SettingsScreen() {
             value={settings.model}
             onChange={(e) => set({ model: e.currentTarget.value as Settings['model'] })}
           >
-            <option value="auto">From the water (salinity / conductance)</option>
+            <option value="auto">From salinity or conductance</option>
             <option value="fresh">Fresh water</option>
             <option value="saline">Sea or brackish water</option>
           </select>
@@ -89,8 +89,8 @@ export function SettingsScreen() {
             value={settings.ph_scale}
             onChange={(e) => set({ ph_scale: e.currentTarget.value as Settings['ph_scale'] })}
           >
-            <option value="nbs">NBS scale (meters calibrated with NBS/IUPAC buffers)</option>
-            <option value="total">total scale (seawater TRIS buffers)</option>
+            <option value="nbs">NBS scale (NBS/IUPAC buffers)</option>
+            <option value="total">total scale (TRIS buffers)</option>
             <option value="seawater">seawater scale</option>
             <option value="free">free scale</option>
           </select>

@@ -120,7 +120,7 @@ export function SiteFormScreen(props: { siteId?: string }) {
       <label class="field">
         <span>Water model</span>
         <select value={model} onChange={(e) => setModel(e.currentTarget.value as typeof model)}>
-          <option value="auto">Choose from the water (salinity / conductance)</option>
+          <option value="auto">From salinity or conductance</option>
           <option value="fresh">Fresh water (activities)</option>
           <option value="saline">Sea or brackish water</option>
         </select>

@@ -162,7 +162,10 @@ export function SiteScreen(props: { siteId: string }) {
       <section class="panel" aria-labelledby="chart-h">
         <h2 id="chart-h">Time series</h2>
         <div ref={chartEl} class="chart" data-testid="time-chart" />
-        <p class="muted small">Drag across the chart to zoom; double-click to zoom out.</p>
+        <p class="muted small">
+          <span class="hint-mouse">Drag across the chart to zoom; double-click to zoom out.</span>
+          <span class="hint-touch">Tap the chart to read the values at that time.</span>
+        </p>
         {chartNote && <p class="issue warn">{chartNote}</p>}
         <details class="chart-controls">
           <summary>Choose what to plot ({selected.length + compare.length} chosen)</summary>

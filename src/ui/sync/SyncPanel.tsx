@@ -203,7 +203,9 @@ export function SyncPanel({
             </tr>
             <tr>
               <th scope="row">Waiting to be sent</th>
-              <td>{status?.pending ?? 0} changes</td>
+              <td>
+                {status?.pending ?? 0} {status?.pending === 1 ? 'change' : 'changes'}
+              </td>
             </tr>
             <tr>
               <th scope="row">Conflicts to decide</th>
@@ -259,8 +261,8 @@ export function SyncPanel({
             value={form.auth}
             onChange={(e) => set({ auth: e.currentTarget.value as ConnectionSettings['auth'] })}
           >
-            <option value="session">User and password, signed in once per session (cookie)</option>
-            <option value="basic">User and password sent with every request</option>
+            <option value="session">Password, signed in once (cookie)</option>
+            <option value="basic">Password sent with each request</option>
             <option value="none">No sign-in (open server)</option>
           </select>
         </label>

@@ -1,0 +1,31 @@
+/**
+ * Engine messages name inputs by their JSON keys (`specific_conductance_us_cm`, `pk1`); on screen
+ * a user should read the quantity and unit they type in the form instead.
+ */
+
+import { QUANTITIES } from '../io/quantities';
+
+const KEY_WORDS: ReadonlyMap<string, string> = (() => {
+  const m = new Map<string, string>();
+  // The first unit listed with a key is the one the key is measured in (the others convert to it).
+  for (const q of QUANTITIES)
+    for (const u of q.units)
+      if (!m.has(u.key))
+        m.set(u.key, u.label === q.label || u.id === 'ph' ? q.label : `${q.label} (${u.label})`);
+  return m;
+})();
+
+/** One engine input name in words: a known key, pH, or a constant such as pK1; others unchanged. */
+export function plainKey(key: string): string {
+  const known = KEY_WORDS.get(key);
+  if (known) return known;
+  if (key === 'ph') return 'pH';
+  const pk = /^pk(\w+)$/.exec(key);
+  if (pk) return `pK${pk[1]}`;
+  return key;
+}
+
+/** A message with every snake_case engine key in it put into words. */
+export function plainWords(message: string): string {
+  return message.replace(/\b[a-z][a-z0-9]*(?:_[a-z0-9]+)+\b/g, plainKey);
+}

@@ -1,0 +1,161 @@
+/**
+ * A field user's walk through the app on a 390×844 phone: sites list, new site, a reading typed
+ * with decimal commas and switched units, the reading page, the site chart, settings, and the app
+ * reloaded with the network and the service worker's requests cut. Each screen is saved to
+ * test-artifacts/ for a person to look at, and checked for what a user trips over: no NaN or
+ * "undefined" on screen, nothing wider than the phone, and tap targets at least 44 px high
+ * (common practice for touch screens).
+ */
+
+import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { launch, openApp, screenshot, untilControlled } from './browser';
+
+const base = inject('baseUrl');
+const SITE = 'Larchwood dipping pond';
+let browser: Browser;
+let context: BrowserContext;
+let page: Page;
+
+beforeAll(async () => {
+  browser = await launch();
+  context = await browser.newContext({
+    locale: 'de-DE',
+    timezoneId: 'Europe/Berlin',
+    viewport: { width: 390, height: 844 },
+    deviceScaleFactor: 1,
+    hasTouch: true,
+    isMobile: true,
+    serviceWorkers: 'allow',
+  });
+  page = await context.newPage();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+interface Trouble {
+  screen: string;
+  what: string;
+}
+
+/** What a user would trip over on the current screen, in words. */
+async function audit(p: Page, screen: string): Promise<Trouble[]> {
+  const found = await p.evaluate(() => {
+    const out: string[] = [];
+    // biome-ignore lint/performance/useDomNodeTextContent: only text a person can see counts here
+    const text = document.body.innerText;
+    for (const bad of ['NaN', 'undefined', 'null', 'Infinity', '[object'])
+      if (new RegExp(`(^|[^\\w])${bad.replace('[', '\\[')}([^\\w]|$)`).test(text)) out.push(`shows “${bad}”`);
+    const vw = document.documentElement.clientWidth;
+    if (document.documentElement.scrollWidth > vw + 1)
+      out.push(`page is ${document.documentElement.scrollWidth} px wide on a ${vw} px screen`);
+    const targets = document.querySelectorAll<HTMLElement>(
+      'button, a.button, nav a, .sync-badge, select, input:not([type=radio]):not([type=checkbox]):not([type=file]), textarea, label.check',
+    );
+    for (const el of targets) {
+      const r = el.getBoundingClientRect();
+      if (r.width === 0 || r.height === 0) continue;
+      if (getComputedStyle(el).visibility === 'hidden') continue;
+      const name = (el.getAttribute('aria-label') ?? el.textContent ?? el.tagName).trim().slice(0, 40);
+      if (r.height < 43.5)
+        out.push(`${el.tagName.toLowerCase()} “${name}” is ${Math.round(r.height)} px high`);
+      if (r.right > vw + 1) out.push(`${el.tagName.toLowerCase()} “${name}” runs past the right edge`);
+    }
+    return out;
+  });
+  return found.map((what) => ({ screen, what }));
+}
+
+async function look(p: Page, name: string, troubles: Trouble[]): Promise<void> {
+  await p.evaluate(() => window.scrollTo(0, 0));
+  await screenshot(p, name);
+  troubles.push(...(await audit(p, name)));
+}
+
+describe('a field user on a phone', () => {
+  it('walks every screen on 390×844, online and offline, without tripping', async () => {
+    const troubles: Trouble[] = [];
+    await openApp(page, base);
+    await untilControlled(page);
+    // The audit itself must see trouble when there is some.
+    await page.evaluate(() => {
+      const b = document.createElement('button');
+      b.id = 'audit-probe';
+      b.textContent = 'NaN';
+      b.style.cssText = 'height:20px;min-height:0;position:absolute;left:380px;width:60px';
+      document.body.append(b);
+    });
+    expect((await audit(page, 'probe')).map((t) => t.what)).toEqual([
+      'shows “NaN”',
+      expect.stringMatching(/^page is 44\d px wide on a 390 px screen$/),
+      'button “NaN” is 20 px high',
+      'button “NaN” runs past the right edge',
+    ]);
+    await page.evaluate(() => document.getElementById('audit-probe')?.remove());
+    await look(page, '40-phone-sites-empty', troubles);
+
+    await page.getByRole('link', { name: 'New site' }).click();
+    await page.getByLabel('Name').fill(SITE);
+    await page.getByLabel('Kind of water').selectOption('lake');
+    await look(page, '41-phone-new-site', troubles);
+    await page.getByRole('button', { name: 'Save site' }).click();
+    await page.getByRole('heading', { name: SITE }).waitFor();
+    await look(page, '42-phone-site-no-readings', troubles);
+
+    const readings: [string, string, string][] = [
+      ['54,5', '7,62', '2,9'],
+      ['56,1', '7,81', '3,1'],
+      ['53,2', '7,55', '2,7'],
+    ];
+    for (const [i, [tempF, ph, alk]] of readings.entries()) {
+      await page.getByRole('link', { name: 'New reading' }).click();
+      await page.getByLabel('Temperature unit').selectOption('f');
+      await page.getByLabel('Temperature', { exact: true }).fill(tempF);
+      await page.getByLabel('pH', { exact: true }).fill(ph);
+      await page.getByLabel('Alkalinity unit').selectOption('meq_l');
+      await page.getByLabel('Alkalinity', { exact: true }).fill(alk);
+      const when = page.getByLabel('Sampled at (local time)');
+      await when.fill(`2026-11-${String(10 + i * 7).padStart(2, '0')}T09:30`);
+      if (i === 0) await look(page, '43-phone-new-reading', troubles);
+      await page.getByRole('button', { name: 'Save reading' }).click();
+      await page.getByRole('heading', { name: 'Reading', exact: true }).waitFor();
+      if (i === 0) {
+        await expect
+          .poll(() => page.locator('section[aria-labelledby="computed-h"]').textContent())
+          .toMatch(/\d/);
+        await look(page, '44-phone-reading', troubles);
+      }
+      await page.getByRole('link', { name: SITE }).first().click();
+      await page.getByRole('heading', { name: SITE }).waitFor();
+    }
+    await page.waitForSelector('canvas');
+    await expect.poll(() => page.getByText('Tap the chart to read the values').isVisible()).toBe(true);
+    await look(page, '45-phone-site-chart', troubles);
+    // A tap on the plot reads the values there.
+    const plot = page.locator('.u-over');
+    const box = (await plot.boundingBox())!;
+    await page.mouse.click(box.x + box.width / 2, box.y + box.height / 2);
+    await expect.poll(() => page.locator('.u-legend').getAttribute('class')).not.toContain('idle');
+    await screenshot(page, '45b-phone-site-chart-tapped', { fullPage: false });
+
+    await page.getByRole('link', { name: 'Settings' }).click();
+    await look(page, '46-phone-settings', troubles);
+
+    // Offline: the page's network and every request of the service worker are cut, then reload.
+    await context.setOffline(true);
+    await context.route('**/*', (route) => route.abort('internetdisconnected'));
+    await page.goto(`${base}#/`);
+    await page.reload();
+    await page.waitForSelector('html[data-ready="true"]', { timeout: 10_000 });
+    await expect.poll(() => page.locator('.net').textContent()).toContain('Offline');
+    await look(page, '47-phone-offline-sites', troubles);
+    await page.getByRole('link', { name: new RegExp(SITE) }).click();
+    await page.getByRole('heading', { name: SITE }).waitFor();
+    await look(page, '48-phone-offline-site', troubles);
+    await context.unroute('**/*');
+    await context.setOffline(false);
+
+    expect(troubles).toEqual([]);
+  }, 150_000);
+});

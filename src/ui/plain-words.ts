@@ -27,5 +27,10 @@ export function plainKey(key: string): string {
 
 /** A message with every snake_case engine key in it put into words. */
 export function plainWords(message: string): string {
-  return message.replace(/\b[a-z][a-z0-9]*(?:_[a-z0-9]+)+\b/g, plainKey);
+  return message.replace(/\b[a-z][a-z0-9]*(?:_[a-z0-9]+)+\b/g, (key, at: number) => {
+    const words = plainKey(key);
+    // Mid-sentence a name such as "Specific conductance" reads lower-case; "pH" or "DIC" stay.
+    const midSentence = at > 0 && !/[.:!?]\s*$/.test(message.slice(0, at));
+    return midSentence && /^[A-Z][a-z]/.test(words) ? words[0]!.toLowerCase() + words.slice(1) : words;
+  });
 }

@@ -9,7 +9,7 @@
 
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { launch, openApp, screenshot, untilControlled } from './browser';
+import { ARTIFACTS, launch, openApp, screenshot, untilControlled } from './browser';
 
 const base = inject('baseUrl');
 const SITE = 'Larchwood dipping pond';
@@ -117,7 +117,13 @@ describe('a field user on a phone', () => {
       await page.getByLabel('Alkalinity', { exact: true }).fill(alk);
       const when = page.getByLabel('Sampled at (local time)');
       await when.fill(`2026-11-${String(10 + i * 7).padStart(2, '0')}T09:30`);
-      if (i === 0) await look(page, '43-phone-new-reading', troubles);
+      if (i === 0) {
+        // The live results under the form, computed as the user types.
+        await expect.poll(() => page.locator('.results').textContent(), { timeout: 15_000 }).toContain('DIC');
+        await look(page, '43-phone-new-reading', troubles);
+        await page.locator('.results').scrollIntoViewIfNeeded();
+        await screenshot(page, '43b-phone-new-reading-results', { fullPage: false });
+      }
       await page.getByRole('button', { name: 'Save reading' }).click();
       await page.getByRole('heading', { name: 'Reading', exact: true }).waitFor();
       if (i === 0) {
@@ -125,6 +131,9 @@ describe('a field user on a phone', () => {
           .poll(() => page.locator('section[aria-labelledby="computed-h"]').textContent())
           .toMatch(/\d/);
         await look(page, '44-phone-reading', troubles);
+        await page.locator('section[aria-labelledby="computed-h"]').screenshot({
+          path: new URL('44b-phone-reading-computed.png', ARTIFACTS).pathname,
+        });
       }
       await page.getByRole('link', { name: SITE }).first().click();
       await page.getByRole('heading', { name: SITE }).waitFor();

@@ -16,7 +16,10 @@ describe('engine keys in words', () => {
         'Give specific_conductance_us_cm for a better estimate; alkalinity_meq_l are fresh-water inputs',
       ),
     ).toBe(
-      'Give Specific conductance (25 °C) (µS/cm) for a better estimate; Alkalinity (meq/L) are fresh-water inputs',
+      'Give specific conductance (25 °C) (µS/cm) for a better estimate; alkalinity (meq/L) are fresh-water inputs',
+    );
+    expect(plainWords('temperature_c is missing. dic_umol_kg given')).toBe(
+      'Temperature (°C) is missing. DIC (µmol/kg) given',
     );
     expect(plainWords('no_such_key stays as it is')).toBe('no_such_key stays as it is');
   });

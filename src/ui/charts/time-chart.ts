@@ -7,6 +7,7 @@
 import uPlot from 'uplot';
 import 'uplot/dist/uPlot.min.css';
 import { type Columnar, decimate } from './chart-data';
+import { timeTicks } from './time-ticks';
 
 /** Below this many readings each one is drawn as a dot as well as joined by the line. */
 const SHOW_POINTS_BELOW = 300;
@@ -34,7 +35,7 @@ export function createTimeChart(
   el: HTMLElement,
   full: Columnar,
   specs: SeriesSpec[],
-  opts: { height?: number; textColour?: string; gridColour?: string } = {},
+  opts: { height?: number; textColour?: string; gridColour?: string; locale?: string } = {},
 ): TimeChart {
   const height = opts.height ?? 280;
   const width = Math.max(200, el.clientWidth);
@@ -55,7 +56,12 @@ export function createTimeChart(
       cursor: { drag: { x: true, y: false } },
       legend: { live: true },
       series: [
-        {},
+        {
+          value: (_u: uPlot, t: number | null) =>
+            t == null
+              ? ''
+              : new Date(t * 1000).toLocaleString(opts.locale, { dateStyle: 'medium', timeStyle: 'short' }),
+        },
         ...specs.map((s, i) => ({
           label: s.unit ? `${s.label} (${s.unit})` : s.label,
           scale: s.unit || 'none',
@@ -67,7 +73,11 @@ export function createTimeChart(
         })),
       ],
       axes: [
-        { ...axisStyle },
+        {
+          ...axisStyle,
+          values: (_u: uPlot, splits: number[], _axis: number, _space: number, incr: number) =>
+            timeTicks(splits, incr, opts.locale),
+        },
         ...units.slice(0, 2).map((u, i) => ({
           ...axisStyle,
           scale: u || 'none',

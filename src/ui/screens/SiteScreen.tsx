@@ -132,6 +132,7 @@ export function SiteScreen(props: { siteId: string }) {
       chart.current = createTimeChart(el, data, specs, {
         textColour: css.getPropertyValue('--text').trim() || undefined,
         gridColour: css.getPropertyValue('--grid').trim() || undefined,
+        locale,
       });
     })().catch((e) => setChartNote(`Chart failed: ${e instanceof Error ? e.message : String(e)}`));
     return () => {

@@ -10,6 +10,7 @@
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { ARTIFACTS, launch, openApp, screenshot, untilControlled } from './browser';
+import { audit, type Trouble } from './phone-audit';
 
 const base = inject('baseUrl');
 const SITE = 'Larchwood dipping pond';
@@ -33,39 +34,6 @@ beforeAll(async () => {
 afterAll(async () => {
   await browser?.close();
 });
-
-interface Trouble {
-  screen: string;
-  what: string;
-}
-
-/** What a user would trip over on the current screen, in words. */
-async function audit(p: Page, screen: string): Promise<Trouble[]> {
-  const found = await p.evaluate(() => {
-    const out: string[] = [];
-    // biome-ignore lint/performance/useDomNodeTextContent: only text a person can see counts here
-    const text = document.body.innerText;
-    for (const bad of ['NaN', 'undefined', 'null', 'Infinity', '[object'])
-      if (new RegExp(`(^|[^\\w])${bad.replace('[', '\\[')}([^\\w]|$)`).test(text)) out.push(`shows “${bad}”`);
-    const vw = document.documentElement.clientWidth;
-    if (document.documentElement.scrollWidth > vw + 1)
-      out.push(`page is ${document.documentElement.scrollWidth} px wide on a ${vw} px screen`);
-    const targets = document.querySelectorAll<HTMLElement>(
-      'button, a.button, nav a, .sync-badge, select, input:not([type=radio]):not([type=checkbox]):not([type=file]), textarea, label.check',
-    );
-    for (const el of targets) {
-      const r = el.getBoundingClientRect();
-      if (r.width === 0 || r.height === 0) continue;
-      if (getComputedStyle(el).visibility === 'hidden') continue;
-      const name = (el.getAttribute('aria-label') ?? el.textContent ?? el.tagName).trim().slice(0, 40);
-      if (r.height < 43.5)
-        out.push(`${el.tagName.toLowerCase()} “${name}” is ${Math.round(r.height)} px high`);
-      if (r.right > vw + 1) out.push(`${el.tagName.toLowerCase()} “${name}” runs past the right edge`);
-    }
-    return out;
-  });
-  return found.map((what) => ({ screen, what }));
-}
 
 async function look(p: Page, name: string, troubles: Trouble[]): Promise<void> {
   await p.evaluate(() => window.scrollTo(0, 0));

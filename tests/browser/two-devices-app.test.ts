@@ -11,6 +11,7 @@ import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { CouchServer } from '../sync/couch-server';
 import { ARTIFACTS, launch, newContext, openApp, screenshot } from './browser';
+import { audit } from './phone-audit';
 
 const base = inject('baseUrl');
 const server = new CouchServer({ shared: true });
@@ -136,6 +137,7 @@ describe('two phones share a log through the app', () => {
     expect(cardText).toContain('Overflow weir silted; sampled at the pipe');
     await b.evaluate(() => window.scrollTo(0, 0));
     await screenshot(b, '30-two-phones-conflict-b');
+    expect(await audit(b, 'conflict on phone B')).toEqual([]);
     await card.screenshot({ path: new URL('31-two-phones-conflict-card.png', ARTIFACTS).pathname });
 
     // The user on B merges: A's pH from the server, B's own notes.

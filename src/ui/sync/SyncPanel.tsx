@@ -77,7 +77,7 @@ function ConflictCard({
           ? 'Changed on this device and on the server since the last sync. Both versions are kept until you choose.'
           : 'The server holds several versions of this record. All are kept until you choose.'}
       </p>
-      <table class="kv">
+      <table class="kv conflict">
         <thead>
           <tr>
             <th scope="col">Field</th>
@@ -94,13 +94,12 @@ function ConflictCard({
               <th scope="row">{fieldLabel(f)}</th>
               {versions.map((v, i) => (
                 <td key={names[i]}>
-                  <label>
+                  <label class="pick">
                     <input
                       type="radio"
                       name={`${c.docId}-${f}`}
                       checked={picks[f] === i}
                       onChange={() => setPicks({ ...picks, [f]: i })}
-                      style={{ width: 'auto', minHeight: 'auto', marginRight: '6px' }}
                     />
                     {showValue(f, (v as unknown as Record<string, unknown>)[f])}
                   </label>

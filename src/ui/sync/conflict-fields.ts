@@ -25,7 +25,7 @@ export function fieldLabel(key: string): string {
 }
 
 export function showValue(key: string, v: unknown): string {
-  if (v === undefined || v === '') return '—';
+  if (v === undefined || v === '') return '(none)';
   if (key === 'deleted') return v ? 'yes (deleted)' : 'no';
   if (key === 'values' && Array.isArray(v)) return (v as MeasuredValue[]).map(showMeasured).join('; ');
   return typeof v === 'object' ? JSON.stringify(v) : String(v);

@@ -127,7 +127,15 @@ describe('two phones share a log through the app', () => {
 
     // B: the badge and the panel say it in words; nothing B typed is gone while undecided.
     await expect.poll(() => badge(b).textContent(), { timeout: 20_000 }).toContain('1 conflict');
+    // The user taps the badge from another screen and lands on the conflict, not on the units.
+    await b.getByRole('link', { name: 'Sites', exact: true }).click();
+    await badge(b).click();
     const panel = syncPanel(b);
+    await expect.poll(() => panel.textContent()).toContain('Conflicts to decide (1)');
+    expect(await panel.textContent()).toContain('A conflict needs your choice (below)');
+    await expect
+      .poll(() => b.evaluate(() => document.getElementById('conflicts-h')?.getBoundingClientRect().top ?? -1))
+      .toBeLessThan(844);
     await expect.poll(() => panel.textContent()).toContain('Conflicts to decide (1)');
     const card = panel.locator('article[aria-label^="Conflict: Reading of"]');
     await expect.poll(() => card.textContent()).toContain('Changed on this device and on the server');
@@ -135,6 +143,7 @@ describe('two phones share a log through the app', () => {
     expect(cardText).toContain('pH 7.12'); // B's version still has the old pH…
     expect(cardText).toContain('pH 7.31'); // …the server has A's
     expect(cardText).toContain('Overflow weir silted; sampled at the pipe');
+    await screenshot(b, '30a-two-phones-conflict-b-from-badge', { fullPage: false });
     await b.evaluate(() => window.scrollTo(0, 0));
     await screenshot(b, '30-two-phones-conflict-b');
     expect(await audit(b, 'conflict on phone B')).toEqual([]);

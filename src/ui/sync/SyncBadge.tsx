@@ -7,10 +7,13 @@ import { useEffect, useState } from 'preact/hooks';
 import type { SyncStatus } from '../../sync/sync-engine';
 import type { SyncService } from '../../sync/sync-service';
 
+/** The settings screen, opened at the sharing panel (SyncPanel scrolls itself into view). */
+export const SYNC_PANEL_HASH = '#/settings/sync';
+
 export function badgeWords(
   s: SyncStatus,
   locale?: string,
-): { text: string; tone: '' | 'attention' | 'error' } {
+): { text: string; parts: string[]; when: boolean; tone: '' | 'attention' | 'error' } {
   const parts: string[] = [];
   if (s.state === 'syncing') parts.push('Syncing…');
   if (s.conflicts > 0) parts.push(`${s.conflicts} ${s.conflicts === 1 ? 'conflict' : 'conflicts'}`);
@@ -22,7 +25,8 @@ export function badgeWords(
     );
   const tone =
     s.state === 'error' ? 'error' : s.conflicts > 0 || s.state === 'waiting-to-retry' ? 'attention' : '';
-  return { text: parts.join(' · ') || 'Sync set up', tone };
+  const when = s.state === 'idle' && !!s.lastSyncAt;
+  return { text: parts.join(' · ') || 'Sync set up', parts, when, tone };
 }
 
 export function SyncBadge({ service, locale }: { service: SyncService; locale?: string }) {
@@ -37,10 +41,24 @@ export function SyncBadge({ service, locale }: { service: SyncService; locale?: 
     [service],
   );
   if (!status || !configured) return null;
-  const { text, tone } = badgeWords(status, locale);
+  const { text, parts, when, tone } = badgeWords(status, locale);
+  if (parts.length === 0) parts.push(text);
+  // On a narrow phone the time of the last sync gives way when there is more to say, so the
+  // badge and the menu share one row of the top bar (styles.css, .sync-badge .when).
+  const last = parts.length - 1;
   return (
-    <a class={`sync-badge ${tone}`} href="#/settings" data-testid="sync-badge" aria-label={`Sync: ${text}`}>
-      {text}
+    <a
+      class={`sync-badge ${tone}`}
+      href={SYNC_PANEL_HASH}
+      data-testid="sync-badge"
+      aria-label={`Sync: ${text}`}
+    >
+      {parts.map((p, i) => (
+        <span key={p} class={when && i === last && i > 0 ? 'when' : undefined}>
+          {i > 0 ? ' · ' : ''}
+          {p}
+        </span>
+      ))}
     </a>
   );
 }

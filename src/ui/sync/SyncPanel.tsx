@@ -3,13 +3,14 @@
  * `<SyncPanel service={service} />` with the service from `bootSync(repo)` (`src/sync/boot-sync.ts`).
  */
 
-import { useEffect, useState } from 'preact/hooks';
+import { useEffect, useRef, useState } from 'preact/hooks';
 import type { Issue } from '../../chem/errors';
 import type { TufaDoc } from '../../store/schema';
 import type { SyncStatus } from '../../sync/sync-engine';
 import { type ConnectionSettings, checkConnection, type SyncService } from '../../sync/sync-service';
 import type { ConflictRecord } from '../../sync/sync-store';
 import { differingFields, fieldLabel, mergeVersions, showValue } from './conflict-fields';
+import { SYNC_PANEL_HASH } from './SyncBadge';
 
 const EMPTY: ConnectionSettings = { url: '', db: 'tufa', auth: 'session', user: '', password: '' };
 
@@ -22,6 +23,10 @@ function stateWords(s: SyncStatus, locale?: string): string {
   if (s.error?.code === 'sync-not-configured') return 'Not shared with a server yet.';
   switch (s.state) {
     case 'idle':
+      if (s.conflicts > 0)
+        return s.conflicts === 1
+          ? 'A conflict needs your choice (below); that record is not sent until then.'
+          : `${s.conflicts} conflicts need your choice (below); those records are not sent until then.`;
       if (s.pending > 0) return 'Changes waiting to be sent.';
       return s.lastSyncAt ? 'Up to date.' : 'Not synced yet.';
     case 'syncing':
@@ -162,6 +167,17 @@ export function SyncPanel({
     setWarnings('warnings' in r ? r.warnings : []);
   }, [form.url, form.db]);
 
+  // The top-bar badge links here: bring the state and any conflicts into view, not the units.
+  const section = useRef<HTMLElement>(null);
+  useEffect(() => {
+    const show = () => {
+      if (location.hash === SYNC_PANEL_HASH) section.current?.scrollIntoView({ block: 'start' });
+    };
+    show();
+    addEventListener('hashchange', show);
+    return () => removeEventListener('hashchange', show);
+  }, []);
+
   const set = (patch: Partial<ConnectionSettings>) => setForm({ ...form, ...patch });
   const save = async (e: Event) => {
     e.preventDefault();
@@ -188,7 +204,7 @@ export function SyncPanel({
   };
 
   return (
-    <section aria-labelledby="sync-h" class="stack">
+    <section aria-labelledby="sync-h" class="stack" ref={section}>
       <h2 id="sync-h">Sharing with a server</h2>
       <div class="panel" aria-live="polite">
         <p>
@@ -233,6 +249,19 @@ export function SyncPanel({
         </div>
       </div>
 
+      {conflicts.length > 0 && (
+        <section aria-labelledby="conflicts-h">
+          <h3 id="conflicts-h">Conflicts to decide ({conflicts.length})</h3>
+          {conflicts.map((c) => (
+            <ConflictCard
+              key={c.docId}
+              c={c}
+              locale={locale}
+              onResolve={(choice) => resolve(c.docId, choice)}
+            />
+          ))}
+        </section>
+      )}
       <form class="panel" onSubmit={save} aria-labelledby="sync-server-h">
         <h3 id="sync-server-h">Server</h3>
         <label class="field">
@@ -319,20 +348,6 @@ export function SyncPanel({
           )}
         </div>
       </form>
-
-      {conflicts.length > 0 && (
-        <section aria-labelledby="conflicts-h">
-          <h3 id="conflicts-h">Conflicts to decide ({conflicts.length})</h3>
-          {conflicts.map((c) => (
-            <ConflictCard
-              key={c.docId}
-              c={c}
-              locale={locale}
-              onResolve={(choice) => resolve(c.docId, choice)}
-            />
-          ))}
-        </section>
-      )}
     </section>
   );
 }

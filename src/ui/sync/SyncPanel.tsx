@@ -106,7 +106,7 @@ function ConflictCard({
                       checked={picks[f] === i}
                       onChange={() => setPicks({ ...picks, [f]: i })}
                     />
-                    {showValue(f, (v as unknown as Record<string, unknown>)[f])}
+                    {showValue(f, (v as unknown as Record<string, unknown>)[f], locale)}
                   </label>
                 </td>
               ))}
@@ -242,7 +242,7 @@ export function SyncPanel({
             type="button"
             class="primary"
             onClick={syncNow}
-            disabled={busy || status?.state === 'syncing'}
+            disabled={busy || status?.state === 'syncing' || status?.error?.code === 'sync-not-configured'}
           >
             Sync now
           </button>

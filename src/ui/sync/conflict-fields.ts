@@ -2,6 +2,7 @@
 
 import { quantityById, unitOf } from '../../io/quantities';
 import type { MeasuredValue, TufaDoc } from '../../store/schema';
+import { formatNumber } from '../numbers';
 
 const HIDDEN = new Set(['id', 'rev', 'type', 'updatedAt']);
 
@@ -24,19 +25,22 @@ export function fieldLabel(key: string): string {
   return LABELS[key] ?? key;
 }
 
-export function showValue(key: string, v: unknown): string {
+export function showValue(key: string, v: unknown, locale?: string): string {
   if (v === undefined || v === '') return '(none)';
   if (key === 'deleted') return v ? 'yes (deleted)' : 'no';
-  if (key === 'values' && Array.isArray(v)) return (v as MeasuredValue[]).map(showMeasured).join('; ');
+  if (key === 'values' && Array.isArray(v))
+    return (v as MeasuredValue[]).map((m) => showMeasured(m, locale)).join('; ');
   return typeof v === 'object' ? JSON.stringify(v) : String(v);
 }
 
-function showMeasured(m: MeasuredValue): string {
+/** Every digit stored, in the user's decimal style: two versions may differ in the last one. */
+function showMeasured(m: MeasuredValue, locale?: string): string {
   const q = quantityById(m.quantity);
   const unit = unitOf(m.quantity, m.unit);
-  if (!q || !unit) return `${m.quantity} ${m.value} ${m.unit}`;
-  if (q.id === 'ph') return m.unit === 'ph' ? `pH ${m.value}` : `pH ${m.value} (${m.unit} scale)`;
-  return `${q.label} ${m.value} ${unit.label}`;
+  const x = formatNumber(m.value, locale, { digits: 15 });
+  if (!q || !unit) return `${m.quantity} ${x} ${m.unit}`;
+  if (q.id === 'ph') return m.unit === 'ph' ? `pH ${x}` : `pH ${x} (${m.unit} scale)`;
+  return `${q.label} ${x} ${unit.label}`;
 }
 
 /** Keys whose values are not the same in every version, in a stable order. */

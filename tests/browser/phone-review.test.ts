@@ -106,6 +106,26 @@ describe('a field user on a phone', () => {
       await page.getByRole('link', { name: SITE }).first().click();
       await page.getByRole('heading', { name: SITE }).waitFor();
     }
+    // A slip of the thumb: the message with its code beside the field, nothing saved.
+    await page.getByRole('link', { name: 'New reading' }).click();
+    await page.getByLabel('Temperature unit').selectOption('c');
+    await page.getByLabel('Temperature', { exact: true }).fill('12,,5');
+    await page.getByLabel('pH', { exact: true }).fill('40');
+    await expect
+      .poll(() => page.locator('.qmsg .issue.error').first().textContent())
+      .toContain('input-not-a-number');
+    const phRow = page.locator('.qrow', { has: page.getByLabel('pH', { exact: true }) });
+    await expect
+      .poll(() => phRow.locator('.issue.warn').textContent())
+      .toBe(
+        'input-unusual-value pH is usually between 2 and 12: please check the value (it is kept as typed).',
+      );
+    await page.getByRole('button', { name: 'Save reading' }).click();
+    await expect.poll(() => page.getByRole('alert').first().textContent()).toContain('input-not-a-number');
+    await look(page, '43c-phone-new-reading-bad-input', troubles);
+    await page.getByRole('link', { name: 'Cancel' }).click();
+    await page.getByRole('heading', { name: SITE }).waitFor();
+    await expect.poll(() => page.getByText(/3 readings/).count()).toBe(1);
     await page.waitForSelector('canvas');
     await expect.poll(() => page.getByText('Tap the chart to read the values').isVisible()).toBe(true);
     await look(page, '45-phone-site-chart', troubles);

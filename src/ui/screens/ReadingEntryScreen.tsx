@@ -291,7 +291,12 @@ export function ReadingEntryScreen(props: { siteId?: string; readingId?: string 
                     </span>
                   )}
                   {plausibleNote && (
-                    <span class="issue warn">Unusual value for {q.label.toLowerCase()}: please check.</span>
+                    <span class="issue warn">
+                      <code>input-unusual-value</code> {q.label} is usually between{' '}
+                      {formatNumber(q.plausible![0], locale)} and {formatNumber(q.plausible![1], locale)}
+                      {q.id === 'ph' ? '' : ` ${q.units[0]!.label}`}: please check the value (it is kept as
+                      typed).
+                    </span>
                   )}
                   {(byQuantity.get(row.quantity) ?? []).map((w, k) => (
                     <span key={`${w.code}-${k}`} class="issue warn">

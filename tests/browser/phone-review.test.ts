@@ -138,6 +138,32 @@ describe('a field user on a phone', () => {
 
     await page.getByRole('link', { name: 'Settings' }).click();
     await look(page, '46-phone-settings', troubles);
+    await screenshot(page, '46b-phone-settings-top', { fullPage: false });
+    // A closed select shows only its chosen option: each must fit the box on a phone. A probe
+    // with a label too long for any phone shows the check can fail.
+    await page.evaluate(() => {
+      const probe = document.createElement('select');
+      probe.id = 'select-probe';
+      probe.style.width = '300px';
+      probe.append(new Option('A label much too long to be read in a closed select box on a phone'));
+      document.querySelector('main')?.append(probe);
+    });
+    const cut = await page.$$eval('select', (els) =>
+      (els as HTMLSelectElement[])
+        .filter((el) => {
+          const probe = document.createElement('span');
+          const cs = getComputedStyle(el);
+          probe.style.cssText = `position:absolute;visibility:hidden;white-space:pre;font:${cs.font}`;
+          probe.textContent = el.selectedOptions[0]?.textContent ?? '';
+          document.body.append(probe);
+          const fits = probe.getBoundingClientRect().width + 40 <= el.getBoundingClientRect().width;
+          probe.remove();
+          return !fits;
+        })
+        .map((el) => el.selectedOptions[0]?.textContent),
+    );
+    expect(cut).toEqual(['A label much too long to be read in a closed select box on a phone']);
+    await page.evaluate(() => document.getElementById('select-probe')?.remove());
 
     // Offline: the page's network and every request of the service worker are cut, then reload.
     await context.setOffline(true);

@@ -168,10 +168,11 @@ describe('two phones share a log through the app', () => {
     // A pulls the merge; both phones show the same reading with both people's changes.
     await syncNow(a);
     await expect.poll(() => badge(a).textContent()).toMatch(/^synced/);
-    const shownA = await readingShown(a);
+    // The badge may already read "synced" from an earlier sync in the same minute, so wait for
+    // what A shows rather than for the badge.
     const shownB = await readingShown(b);
-    expect(shownA).toContain('7.31');
-    expect(shownA).toBe(shownB);
+    expect(shownB).toContain('7.31');
+    await expect.poll(() => readingShown(a), { timeout: 20_000 }).toBe(shownB);
     for (const p of [a, b]) {
       await p.getByRole('link', { name: 'Edit' }).click();
       await expect

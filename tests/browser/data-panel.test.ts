@@ -36,7 +36,12 @@ describe('data panel in Settings', () => {
     await page.getByText('2 readings ready').waitFor();
     // pH column: tell the panel the logger reports the total scale.
     await page.getByRole('combobox', { name: 'Column pH' }).selectOption('value:ph:total');
-    await page.getByText('8.050').waitFor(); // pH total, computed by the engine
+    // The preview is re-planned in the import worker: wait for the new mapping, then the engine's pH.
+    await page
+      .getByText(/pH 8\.05 \(total scale\)/)
+      .first()
+      .waitFor();
+    await page.getByText('8.050').first().waitFor(); // pH total, computed by the engine
     const text = await page.textContent('body');
     expect(text).toContain('decimal comma');
     expect(text).toContain('byte-order mark removed');

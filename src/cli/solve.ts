@@ -8,7 +8,8 @@ import { createInterface } from 'node:readline';
 import { isSolveError, type SolveResult } from '../chem/api';
 import { KNOWN_INPUT_KEYS } from '../chem/input';
 import { solve } from '../chem/solve';
-import { csvLine, parseCsv } from './csv-rfc4180';
+import { splitRecords, stripBom } from '../io/csv-parse';
+import { csvRecord } from '../io/csv-write';
 import { type CliIo, EXIT_OK, EXIT_ROW_FAILED, EXIT_USAGE } from './io';
 
 export const SOLVE_HELP = `tufa solve — the carbonate system of each water, from any two measured parameters
@@ -161,7 +162,8 @@ function solveCsv(file: string, io: CliIo): number {
     io.stderr.write(`tufa solve: cannot read ${file}: ${(e as Error).message}\n`);
     return EXIT_USAGE;
   }
-  const [header, ...rows] = parseCsv(text);
+  // Plain RFC 4180 with the contract's own column names: comma-separated, BOM tolerated.
+  const [header, ...rows] = splitRecords(stripBom(text).text, ',').records;
   if (!header) {
     io.stderr.write(`tufa solve: ${file} has no header row\n`);
     return EXIT_USAGE;
@@ -222,6 +224,11 @@ function solveCsv(file: string, io: CliIo): number {
     );
   }
   return failed ? EXIT_ROW_FAILED : EXIT_OK;
+}
+
+/** One CSV line; numbers in full precision, absent values as empty fields. */
+function csvLine(values: readonly unknown[]): string {
+  return `${csvRecord(values.map((v) => (v === undefined || v === null ? '' : String(v))))}\r\n`;
 }
 
 /** A CSV cell as a number; text that is not one stays text so the solver reports `not-a-number`. */

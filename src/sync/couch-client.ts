@@ -4,7 +4,9 @@
  * Every failure becomes a {@link SyncError} with a code and words, and says whether a retry can help.
  */
 
+import { changesRequest } from './pull-request';
 import { SyncError } from './sync-issues';
+import { asCouchDoc, readAllDocs, readBulkRows, readChanges, readCheckpoint, readLeaves } from './wire';
 
 export type Auth =
   | { kind: 'none' }
@@ -39,15 +41,20 @@ export interface BulkRow {
   reason?: string;
 }
 
+export interface ChangesRow {
+  id: string;
+  seq: string | number;
+  deleted?: boolean;
+  doc?: CouchDoc;
+  /** Leaf revisions (`style=all_docs`): more than one means the server holds a conflict. */
+  changes: { rev: string }[];
+}
+
 export interface ChangesPage {
-  results: {
-    id: string;
-    seq: string | number;
-    deleted?: boolean;
-    doc?: CouchDoc;
-    changes: { rev: string }[];
-  }[];
+  results: ChangesRow[];
   last_seq: string | number;
+  /** Rows of the page that could not be read, in words (reported, the rest is applied). */
+  badRows: string[];
 }
 
 function b64(s: string): string {
@@ -141,7 +148,13 @@ export class CouchClient {
       throw await this.failure(res, `${method} ${path.split('?')[0] || 'database'}`);
     try {
       return { status: res.status, body: (await res.json()) as T };
-    } catch {
+    } catch (e) {
+      if (e instanceof DOMException && (e.name === 'TimeoutError' || e.name === 'AbortError'))
+        throw new SyncError(
+          'sync-timeout',
+          'The server stopped answering midway; Tufa will try again.',
+          true,
+        );
       throw new SyncError(
         'sync-bad-response',
         'The server sent an answer that is not JSON; is this a CouchDB server?',
@@ -216,25 +229,21 @@ export class CouchClient {
   }
 
   async bulkDocs(docs: CouchDoc[]): Promise<BulkRow[]> {
-    const r = await this.request<BulkRow[]>('POST', '_bulk_docs', { docs });
-    if (!Array.isArray(r.body))
+    const r = await this.request<unknown>('POST', '_bulk_docs', { docs });
+    if (r.status === 409)
       throw new SyncError(
         'sync-bad-response',
-        'The server answered _bulk_docs without a list of rows.',
+        'The server refused the whole _bulk_docs batch (HTTP 409); Tufa will try again.',
         true,
+        409,
       );
-    return r.body;
+    return readBulkRows(r.body);
   }
 
+  /** One page of changes (ids and leaf revisions), as built by {@link changesRequest}. */
   async changes(since: string | number, limit: number): Promise<ChangesPage> {
-    const q = new URLSearchParams({
-      since: String(since),
-      limit: String(limit),
-      include_docs: 'true',
-      conflicts: 'true',
-      style: 'all_docs',
-    });
-    const r = await this.request<ChangesPage>('GET', `_changes?${q}`);
+    const req = changesRequest(since, limit);
+    const r = await this.request<unknown>(req.method, req.path, req.body);
     if (r.status === 404)
       throw new SyncError(
         'sync-db-missing',
@@ -242,22 +251,36 @@ export class CouchClient {
         false,
         404,
       );
-    if (!Array.isArray(r.body.results))
-      throw new SyncError('sync-bad-response', 'The server answered _changes without results.', true);
-    return r.body;
+    return readChanges(r.body);
+  }
+
+  /** The current (winning) revisions of many docs with their `_conflicts`, in one request. */
+  async getDocs(ids: readonly string[]): Promise<Map<string, CouchDoc>> {
+    if (ids.length === 0) return new Map();
+    const r = await this.request<unknown>('POST', '_all_docs?include_docs=true&conflicts=true', {
+      keys: ids,
+    });
+    return readAllDocs(r.body);
   }
 
   async getDoc(id: string, rev?: string): Promise<CouchDoc | undefined> {
     const q = rev ? `?rev=${encodeURIComponent(rev)}` : '?conflicts=true';
-    const r = await this.request<CouchDoc>('GET', `${encodeURIComponent(id)}${q}`);
-    return r.status === 404 ? undefined : r.body;
+    const r = await this.request<unknown>('GET', `${encodeURIComponent(id)}${q}`);
+    if (r.status === 404) return undefined;
+    const doc = asCouchDoc(r.body);
+    if (!doc || doc._id !== id)
+      throw new SyncError(
+        'sync-bad-response',
+        `The server sent something other than document ${id}; Tufa will try again.`,
+        true,
+      );
+    return doc;
   }
 
   /** Every leaf revision of a doc, deleted ones included; empty when the server never had it. */
   async leafRevs(id: string): Promise<CouchDoc[]> {
-    const r = await this.request<{ ok?: CouchDoc }[]>('GET', `${encodeURIComponent(id)}?open_revs=all`);
-    if (r.status === 404 || !Array.isArray(r.body)) return [];
-    return r.body.flatMap((x) => (x.ok ? [x.ok] : []));
+    const r = await this.request<unknown>('GET', `${encodeURIComponent(id)}?open_revs=all`);
+    return r.status === 404 ? [] : readLeaves(r.body);
   }
 
   /** Removes one losing revision of a doc (after the user has resolved its conflict). */
@@ -266,8 +289,8 @@ export class CouchClient {
   }
 
   async getLocal<T>(name: string): Promise<(T & { _rev?: string }) | undefined> {
-    const r = await this.request<T & { _rev?: string }>('GET', `_local/${encodeURIComponent(name)}`);
-    return r.status === 404 ? undefined : r.body;
+    const r = await this.request<unknown>('GET', `_local/${encodeURIComponent(name)}`);
+    return r.status === 404 ? undefined : (readCheckpoint(r.body) as (T & { _rev?: string }) | undefined);
   }
 
   async putLocal(name: string, body: Record<string, unknown>): Promise<void> {

@@ -17,9 +17,12 @@
  */
 
 import type { Issue } from '../chem/errors';
+import { TufaError } from '../chem/errors';
 import type { TufaDoc } from '../io/docs';
-import type { CouchClient, CouchDoc } from './couch-client';
+import type { ChangesRow, CouchClient, CouchDoc } from './couch-client';
 import { fromCouch, sameContent, toCouch } from './doc-codec';
+import { planPulled } from './pull-plan';
+import { keepSetAside, listSetAside, type SetAsideDoc, setAsideIssue } from './quarantine';
 import { SyncError, syncIssue } from './sync-issues';
 import type { OtherVersion, SyncStore } from './sync-store';
 
@@ -35,6 +38,8 @@ export interface SyncStatus {
   error: Issue | undefined;
   /** Docs the server refused for good (validation, permission), with its reason. */
   rejected: Issue[];
+  /** Docs from the server set aside (invalid, type change), kept on this device for inspection. */
+  setAside: Issue[];
   /** When waiting to retry: ISO time of the next attempt. */
   retryAt: string | undefined;
 }
@@ -44,6 +49,8 @@ export interface SyncOptions {
   pushBatch?: number;
   pullLimit?: number;
   maxAttempts?: number;
+  /** Pages of changes one run reads at most (a bound against a server that never ends the feed). */
+  maxPullPages?: number;
   baseDelayMs?: number;
   maxDelayMs?: number;
   sleep?: (ms: number) => Promise<void>;
@@ -59,6 +66,17 @@ export interface SyncRunResult {
 }
 
 const CHECKPOINT = 'pull-checkpoint';
+
+/** Anything caught during a run as a coded error in words; raw JavaScript text never reaches the screen. */
+function asSyncError(e: unknown): SyncError {
+  if (e instanceof SyncError) return e;
+  if (e instanceof TufaError) return new SyncError('sync-internal', `Sync stopped: ${e.message}`, false);
+  return new SyncError(
+    'sync-internal',
+    'Sync stopped on something Tufa did not expect; the data on this device is untouched. Try again later, and report it if it stays.',
+    false,
+  );
+}
 const LAST_SYNC = 'last-sync-at';
 
 export class SyncEngine {
@@ -71,6 +89,7 @@ export class SyncEngine {
     conflicts: 0,
     error: undefined,
     rejected: [],
+    setAside: [],
     retryAt: undefined,
   };
   private readonly o: Required<SyncOptions>;
@@ -84,6 +103,7 @@ export class SyncEngine {
       pushBatch: 200,
       pullLimit: 500,
       maxAttempts: 6,
+      maxPullPages: 2000,
       baseDelayMs: 1000,
       maxDelayMs: 60000,
       sleep: (ms) => new Promise((r) => setTimeout(r, ms)),
@@ -110,12 +130,13 @@ export class SyncEngine {
 
   /** Reads pending and conflict counts and the last sync time from the store. */
   async refreshStatus(): Promise<SyncStatus> {
-    const [pending, conflicts, lastSyncAt] = await Promise.all([
+    const [pending, conflicts, lastSyncAt, aside] = await Promise.all([
       this.store.outboxCount(),
       this.store.conflicts(),
       this.store.getMeta<string>(LAST_SYNC),
+      listSetAside(this.store),
     ]);
-    this.set({ pending, conflicts: conflicts.length, lastSyncAt });
+    this.set({ pending, conflicts: conflicts.length, lastSyncAt, setAside: aside.map(setAsideIssue) });
     return this.status;
   }
 
@@ -138,22 +159,23 @@ export class SyncEngine {
     for (let attempt = 0; ; attempt++) {
       total.attempts = attempt + 1;
       try {
-        await this.pull(total);
+        // Pull first (conflicts are seen before pushing), but a pull that fails must not keep
+        // this device's changes from leaving it: push anyway, then report the pull's failure.
+        let pullFailure: unknown;
+        try {
+          await this.pull(total);
+        } catch (e) {
+          pullFailure = e;
+        }
         await this.push(total);
+        if (pullFailure !== undefined) throw pullFailure;
         const at = this.o.now().toISOString();
         await this.store.setMeta(LAST_SYNC, at);
         await this.refreshStatus();
         this.set({ state: 'idle', error: undefined, lastSyncAt: at, retryAt: undefined });
         return total;
       } catch (e) {
-        const err =
-          e instanceof SyncError
-            ? e
-            : new SyncError(
-                'sync-bad-response',
-                `Sync stopped: ${e instanceof Error ? e.message : String(e)}`,
-                false,
-              );
+        const err = asSyncError(e);
         await this.refreshStatus().catch(() => undefined);
         if (!err.retryable || attempt + 1 >= this.o.maxAttempts) {
           this.set({ state: 'error', error: err.toIssue(), retryAt: undefined });
@@ -193,48 +215,87 @@ export class SyncEngine {
 
   private async pull(total: SyncRunResult): Promise<void> {
     let since = await this.startSeq();
-    for (;;) {
+    const visited = new Set([String(since)]);
+    for (let pages = 1; ; pages++) {
       const page = await this.client.changes(since, this.o.pullLimit);
-      const docs = page.results.flatMap((r) => (r.doc && !r.id.startsWith('_design/') ? [r.doc] : []));
-      if (docs.length > 0) await this.applyPulled(docs, total);
-      since = page.last_seq;
+      if (page.badRows.length) {
+        await this.putAside(
+          page.badRows.map((reason, i) => ({
+            docId: `(row without id, page ${pages}, ${i + 1})`,
+            rev: undefined,
+            code: 'sync-doc-invalid' as const,
+            reason,
+            json: '',
+            at: this.o.now().toISOString(),
+          })),
+        );
+      }
+      await this.applyChanges(page.results, total);
+      const full = page.results.length + page.badRows.length >= this.o.pullLimit;
+      const next = page.last_seq;
+      if (full && visited.has(String(next))) {
+        throw new SyncError(
+          'sync-no-progress',
+          `The server keeps sending full pages of changes without moving on (still at "${String(next).slice(0, 40)}"); sync stopped to save battery and data. Sending your changes still works; check the server.`,
+          false,
+        );
+      }
+      visited.add(String(next));
+      since = next;
       // Server copy first: a device checkpoint without one would look like a server reset.
       await this.client.putLocal(this.checkpointName(), { last_seq: since, device: this.o.deviceId });
       await this.store.setMeta(CHECKPOINT, since);
-      if (page.results.length < this.o.pullLimit) return;
+      if (!full) return;
+      if (pages >= this.o.maxPullPages) {
+        throw new SyncError(
+          'sync-no-progress',
+          `Stopped after ${pages} pages of changes in one run; the next sync goes on from here.`,
+          false,
+        );
+      }
     }
   }
 
-  private async applyPulled(remoteDocs: CouchDoc[], total: SyncRunResult): Promise<void> {
-    const ids = remoteDocs.map((d) => d._id);
-    const [local, queue, open] = await Promise.all([
-      this.store.getDocs(ids),
-      this.store.outbox(),
-      this.store.conflicts(),
-    ]);
-    const queued = new Set(queue.map((e) => e.docId));
-    const conflicted = new Map(open.map((c) => [c.docId, c]));
+  /**
+   * One page of changes: ids and leaf revisions only. Docs this device already holds at that
+   * revision (its own pushes above all) are not downloaded; the rest come in one `_all_docs`.
+   */
+  private async applyChanges(rows: ChangesRow[], total: SyncRunResult): Promise<void> {
+    const ours = rows.filter((r) => !r.id.startsWith('_'));
+    if (ours.length === 0) return;
+    const local = await this.store.getDocs(ours.map((r) => r.id));
+    const needed = ours.filter(
+      (r) => !(r.changes.length === 1 && local.get(r.id)?.rev === r.changes[0]!.rev),
+    );
+    if (needed.length === 0) return;
+    const fetched = await this.client.getDocs(needed.filter((r) => !r.doc).map((r) => r.id));
+    const docs = needed.flatMap((r) => {
+      const d = r.doc ?? fetched.get(r.id);
+      return d ? [d] : [];
+    });
+    if (docs.length) await this.applyPulled(docs, local, total);
+  }
+
+  private async putAside(docs: SetAsideDoc[]): Promise<void> {
+    const added = await keepSetAside(this.store, docs);
+    if (added.length) this.set({ setAside: [...this.status.setAside, ...added.map(setAsideIssue)] });
+  }
+
+  private async applyPulled(
+    remoteDocs: CouchDoc[],
+    local: Map<string, TufaDoc>,
+    total: SyncRunResult,
+  ): Promise<void> {
+    const [queue, open] = await Promise.all([this.store.outbox(), this.store.conflicts()]);
+    const pendingIds = new Set([...queue.map((e) => e.docId), ...open.map((c) => c.docId)]);
     const now = this.o.now();
-    const apply: TufaDoc[] = [];
-    const seen = new Map<string, string | undefined>();
-    const confirmed: { docId: string; rev: string; updatedAt: string }[] = [];
-    const serverBranches: CouchDoc[] = [];
-    const edits: { mine: TufaDoc; theirs: TufaDoc }[] = [];
-    for (const rd of remoteDocs) {
-      const mine = local.get(rd._id);
-      const theirs = fromCouch(rd, mine, now);
-      if (!theirs || !rd._rev) continue;
-      if (rd._conflicts?.length) serverBranches.push(rd);
-      if (mine?.rev === rd._rev) continue; // our own write coming back
-      if ((queued.has(rd._id) || conflicted.has(rd._id)) && mine) {
-        if (sameContent(mine, theirs))
-          confirmed.push({ docId: rd._id, rev: rd._rev, updatedAt: mine.updatedAt });
-        else edits.push({ mine, theirs });
-        continue;
-      }
-      apply.push(theirs);
-      seen.set(rd._id, mine?.updatedAt);
-    }
+    const { apply, seen, confirmed, edits, serverBranches, setAside } = planPulled(
+      remoteDocs,
+      local,
+      (id) => pendingIds.has(id),
+      now,
+    );
+    await this.putAside(setAside);
     if (confirmed.length) await this.store.markPushed(confirmed);
     const changedMeanwhile = new Set(apply.length ? await this.store.applyRemote(apply, seen) : []);
     total.pulled += apply.length - changedMeanwhile.size;
@@ -246,8 +307,9 @@ export class SyncEngine {
       }
     }
     const editById = new Map(edits.map((e) => [e.mine.id, e]));
+    const branched = new Set(serverBranches.map((b) => b._id));
     for (const { mine, theirs } of edits) {
-      if (serverBranches.some((b) => b._id === mine.id)) continue;
+      if (branched.has(mine.id)) continue;
       await this.store.putConflict({
         docId: mine.id,
         kind: 'edit',
@@ -410,7 +472,11 @@ export class SyncEngine {
       await this.store.applyRemote([{ ...picked, rev: choice.rev }]);
       await this.store.dropOutbox([docId]);
     } else {
-      const doc = { ...picked, id: docId, updatedAt: now } as TufaDoc;
+      // Newer than every version in the conflict, whatever the clocks say: other devices then
+      // take the resolution as an edit on top of what they hold, not as a conflicting rewrite.
+      const after = [c.local, ...c.others.map((o) => o.doc)].map((d) => Date.parse(d.updatedAt) + 1);
+      const at = new Date(Math.max(Date.parse(now), ...after.filter(Number.isFinite))).toISOString();
+      const doc = { ...picked, id: docId, updatedAt: at } as TufaDoc;
       if (c.baseRev === undefined) delete doc.rev;
       else doc.rev = c.baseRev;
       await this.store.putLocal(doc);

@@ -17,7 +17,15 @@ export type SyncCode =
   | 'sync-db-missing'
   | 'sync-server-error'
   | 'sync-bad-response'
-  | 'sync-doc-rejected';
+  | 'sync-doc-rejected'
+  /** A pulled doc that fails validation: set aside, the rest of the page applied. */
+  | 'sync-doc-invalid'
+  /** A pulled doc that would turn a site into a reading or back: refused, set aside. */
+  | 'sync-type-change'
+  /** The server keeps answering without moving on (same or earlier `last_seq` on full pages). */
+  | 'sync-no-progress'
+  /** Something failed inside Tufa itself during sync; the data on this device is untouched. */
+  | 'sync-internal';
 
 export class SyncError extends Error {
   readonly code: SyncCode;

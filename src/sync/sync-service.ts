@@ -37,6 +37,7 @@ const NOT_CONFIGURED: SyncStatus = {
   conflicts: 0,
   error: syncIssue('sync-not-configured', 'No sync server is set up yet: readings stay on this device.'),
   rejected: [],
+  setAside: [],
   retryAt: undefined,
 };
 
@@ -129,7 +130,14 @@ export class SyncService {
     } catch (e) {
       const issue =
         e && typeof e === 'object' && 'toIssue' in e ? (e as { toIssue(): Issue }).toIssue() : undefined;
-      return { error: issue ?? syncIssue('sync-bad-response', String(e)) };
+      return {
+        error:
+          issue ??
+          syncIssue(
+            'sync-bad-response',
+            'The server answered in a way Tufa cannot read; is this a CouchDB server?',
+          ),
+      };
     }
     this.sessionPassword = c.remember ? '' : c.password;
     await this.store.setMeta(CONNECTION, {

@@ -260,7 +260,7 @@ export class CouchClient {
     const r = await this.request<unknown>('POST', '_all_docs?include_docs=true&conflicts=true', {
       keys: ids,
     });
-    return readAllDocs(r.body);
+    return readAllDocs(r.body, ids);
   }
 
   async getDoc(id: string, rev?: string): Promise<CouchDoc | undefined> {

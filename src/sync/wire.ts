@@ -83,11 +83,17 @@ export function readChanges(body: unknown): ChangesPage & { badRows: string[] } 
   return { results, last_seq: body.last_seq, badRows };
 }
 
-/** `_all_docs` with `keys` and `include_docs`: docs by id (deleted ones as `_deleted` stubs); bad rows left out. */
-export function readAllDocs(body: unknown): Map<string, CouchDoc> {
+/**
+ * `_all_docs` with `keys` and `include_docs`: docs by id (deleted ones as `_deleted` stubs). Every
+ * key asked for must come back, as a doc or as `not_found`: a page is applied whole or retried, so
+ * a doc the answer left out is never skipped past.
+ */
+export function readAllDocs(body: unknown, keys: readonly string[]): Map<string, CouchDoc> {
   if (!isObj(body) || !Array.isArray(body.rows)) throw malformed('_all_docs had no list of rows');
   const out = new Map<string, CouchDoc>();
+  const answered = new Set<string>();
   for (const r of body.rows) {
+    if (isObj(r) && typeof r.key === 'string' && r.error === 'not_found') answered.add(r.key);
     if (!isObj(r) || typeof r.id !== 'string' || !isObj(r.value) || typeof r.value.rev !== 'string') continue;
     if (r.value.deleted === true) {
       out.set(r.id, { _id: r.id, _rev: r.value.rev, _deleted: true });
@@ -96,6 +102,9 @@ export function readAllDocs(body: unknown): Map<string, CouchDoc> {
     const doc = asCouchDoc(r.doc);
     if (doc && doc._id === r.id) out.set(r.id, doc);
   }
+  const missing = keys.filter((k) => !out.has(k) && !answered.has(k));
+  if (missing.length)
+    throw malformed(`_all_docs left out ${missing.length} of the ${keys.length} documents asked for`);
   return out;
 }
 

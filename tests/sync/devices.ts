@@ -12,18 +12,30 @@ let n = 0;
 export async function device(
   serverUrl: string,
   db: string,
-  opts: { fetch?: Fetch; pushBatch?: number; maxAttempts?: number } = {},
+  opts: {
+    fetch?: Fetch;
+    pushBatch?: number;
+    maxAttempts?: number;
+    timeoutMs?: number;
+    pullLimit?: number;
+    maxPullPages?: number;
+  } = {},
 ) {
   const name = `tufa-sync-${process.pid}-${n++}`;
   const repo = await openRepository({ name });
   const store = new RepositoryStore(repo);
-  const client = new CouchClient({ url: serverUrl, db, auth: { kind: 'none' }, timeoutMs: 5000 }, opts.fetch);
+  const client = new CouchClient(
+    { url: serverUrl, db, auth: { kind: 'none' }, timeoutMs: opts.timeoutMs ?? 5000 },
+    opts.fetch,
+  );
   const engine = new SyncEngine(store, client, {
     deviceId: name,
     pushBatch: opts.pushBatch ?? 100,
     baseDelayMs: 50,
     maxDelayMs: 400,
     maxAttempts: opts.maxAttempts ?? 40,
+    ...(opts.pullLimit ? { pullLimit: opts.pullLimit } : {}),
+    ...(opts.maxPullPages ? { maxPullPages: opts.maxPullPages } : {}),
   });
   return { repo, store, client, engine, name };
 }

@@ -21,8 +21,8 @@ import { TufaError } from '../chem/errors';
 import type { TufaDoc } from '../io/docs';
 import type { ChangesRow, CouchClient, CouchDoc } from './couch-client';
 import { fromCouch, sameContent, toCouch } from './doc-codec';
-import { planPulled } from './pull-plan';
-import { keepSetAside, listSetAside, type SetAsideDoc, setAsideIssue } from './quarantine';
+import { planPulled, whyUnusable } from './pull-plan';
+import { asJsonText, keepSetAside, listSetAside, type SetAsideDoc, setAsideIssue } from './quarantine';
 import { SyncError, syncIssue } from './sync-issues';
 import type { OtherVersion, SyncStore } from './sync-store';
 
@@ -276,6 +276,21 @@ export class SyncEngine {
     if (docs.length) await this.applyPulled(docs, local, total);
   }
 
+  /** A server version that cannot stand beside `mine` in a conflict (invalid, or another type), as a set-aside record. */
+  private unusableOther(server: CouchDoc, mine: TufaDoc, theirs: TufaDoc): SetAsideDoc | undefined {
+    const why = whyUnusable(theirs);
+    const typeChange = !why && theirs.type !== mine.type;
+    if (!why && !typeChange) return undefined;
+    return {
+      docId: server._id,
+      rev: server._rev,
+      code: why ? 'sync-doc-invalid' : 'sync-type-change',
+      reason: why ?? `it would turn the ${mine.type} with this id into a ${theirs.type}`,
+      json: asJsonText(server),
+      at: this.o.now().toISOString(),
+    };
+  }
+
   private async putAside(docs: SetAsideDoc[]): Promise<void> {
     const added = await keepSetAside(this.store, docs);
     if (added.length) this.set({ setAside: [...this.status.setAside, ...added.map(setAsideIssue)] });
@@ -338,12 +353,16 @@ export class SyncEngine {
     const others: OtherVersion[] = [];
     if (pendingMine) {
       const w = fromCouch(winner, current, now);
-      if (w) others.push({ rev: winner._rev, doc: w });
+      const unusable = w && this.unusableOther(winner, current, w);
+      if (unusable) await this.putAside([unusable]);
+      else if (w) others.push({ rev: winner._rev, doc: w });
     }
     for (const rev of winner._conflicts ?? []) {
       const loser = await this.client.getDoc(winner._id, rev);
       const doc = loser && fromCouch(loser, current, now);
-      if (doc) others.push({ rev, doc });
+      const unusable = doc && this.unusableOther(loser, current, doc);
+      if (unusable) await this.putAside([unusable]);
+      else if (doc) others.push({ rev, doc });
     }
     if (others.length === 0) return false;
     await this.store.putConflict({
@@ -403,7 +422,16 @@ export class SyncEngine {
             }
           } else {
             const theirs = fromCouch(server, d, this.o.now());
-            if (theirs && server._rev) {
+            const unusable = theirs && this.unusableOther(server, d, theirs);
+            if (unusable) {
+              await this.putAside([unusable]);
+              rejected.push(
+                syncIssue(
+                  unusable.code,
+                  `${d.type} ${d.id} cannot be sent: the server holds a document under its id that Tufa cannot use (${unusable.reason}). It stays on this device.`,
+                ),
+              );
+            } else if (theirs && server._rev) {
               await this.store.putConflict({
                 docId: d.id,
                 kind: 'edit',

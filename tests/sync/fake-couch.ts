@@ -203,11 +203,15 @@ export class FakeCouch {
     const since = Number(u.searchParams.get('since') ?? 0) || 0;
     const limit = Number(u.searchParams.get('limit') ?? 1000);
     const all = [...this.docs.entries()].sort((a, b) => a[1].seq - b[1].seq);
+    const withDocs = u.searchParams.get('include_docs') === 'true';
     const row = ([id, s]: [string, Stored]) => ({
       id,
       seq: s.seq,
       changes: [{ rev: s.rev }],
       ...(s.deleted ? { deleted: true } : {}),
+      ...(withDocs
+        ? { doc: { ...s.body, _id: id, _rev: s.rev, ...(s.deleted ? { _deleted: true } : {}) } }
+        : {}),
     });
     if (fault === 'null-results') {
       send(200, { results: null, last_seq: since });

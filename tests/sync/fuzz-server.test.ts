@@ -153,7 +153,7 @@ async function runCase(s: Scenario): Promise<void> {
     const messages: string[] = [];
     a.engine.subscribe((st) => {
       if (st.error) messages.push(st.error.message);
-      for (const i of [...st.setAside, ...st.rejected]) messages.push(i.message);
+      for (const i of [...(st.setAside ?? []), ...st.rejected]) messages.push(i.message);
     });
     // Local: a site with readings, synced cleanly once.
     const site = await a.repo.createSite(siteInput('Shingle lagoon'));

@@ -67,6 +67,8 @@ function b64(s: string): string {
 export class CouchClient {
   private cookie: string | undefined;
   private loggedIn = false;
+  /** Last known revision of each `_local` doc written by this client. */
+  private readonly localRevs = new Map<string, string | undefined>();
   private readonly base: string;
 
   constructor(
@@ -293,9 +295,29 @@ export class CouchClient {
     return r.status === 404 ? undefined : (readCheckpoint(r.body) as (T & { _rev?: string }) | undefined);
   }
 
+  /** Writes a `_local` doc; its revision is remembered from the last write, read again only on a 409. */
   async putLocal(name: string, body: Record<string, unknown>): Promise<void> {
-    const cur = await this.getLocal<Record<string, unknown>>(name);
-    const doc = cur?._rev ? { ...body, _rev: cur._rev } : body;
-    await this.request('PUT', `_local/${encodeURIComponent(name)}`, doc);
+    const path = `_local/${encodeURIComponent(name)}`;
+    for (let attempt = 0; attempt < 2; attempt++) {
+      const rev =
+        attempt === 0 && this.localRevs.has(name)
+          ? this.localRevs.get(name)
+          : (await this.getLocal<Record<string, unknown>>(name))?._rev;
+      const r = await this.request<unknown>('PUT', path, rev ? { ...body, _rev: rev } : body);
+      if (r.status !== 409) {
+        const b = r.body as { rev?: unknown } | null;
+        const next = b && typeof b === 'object' && typeof b.rev === 'string' ? b.rev : undefined;
+        if (next) this.localRevs.set(name, next);
+        else this.localRevs.delete(name);
+        return;
+      }
+      this.localRevs.delete(name);
+    }
+    throw new SyncError(
+      'sync-server-error',
+      'The server kept refusing to save the sync checkpoint (HTTP 409); Tufa will try again.',
+      true,
+      409,
+    );
   }
 }

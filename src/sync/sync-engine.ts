@@ -67,6 +67,18 @@ export interface SyncRunResult {
 
 const CHECKPOINT = 'pull-checkpoint';
 
+type Pushed = { docId: string; rev: string; updatedAt: string };
+
+/** Sites first, then readings by site and time: the order the store keeps them in. */
+function pageOrder(a: TufaDoc, b: TufaDoc): number {
+  if (a.type !== b.type) return a.type === 'site' ? -1 : 1;
+  if (a.type === 'reading' && b.type === 'reading') {
+    if (a.siteId !== b.siteId) return a.siteId < b.siteId ? -1 : 1;
+    if (a.takenAt !== b.takenAt) return a.takenAt < b.takenAt ? -1 : 1;
+  }
+  return a.id < b.id ? -1 : a.id > b.id ? 1 : 0;
+}
+
 /** Anything caught during a run as a coded error in words; raw JavaScript text never reaches the screen. */
 function asSyncError(e: unknown): SyncError {
   if (e instanceof SyncError) return e;
@@ -101,7 +113,7 @@ export class SyncEngine {
   ) {
     this.o = {
       pushBatch: 200,
-      pullLimit: 500,
+      pullLimit: 1000,
       maxAttempts: 6,
       maxPullPages: 2000,
       baseDelayMs: 1000,
@@ -230,7 +242,7 @@ export class SyncEngine {
           })),
         );
       }
-      await this.applyChanges(page.results, total);
+      const fetched = await this.applyChanges(page.results, total);
       const full = page.results.length + page.badRows.length >= this.o.pullLimit;
       const next = page.last_seq;
       if (full && visited.has(String(next))) {
@@ -242,9 +254,13 @@ export class SyncEngine {
       }
       visited.add(String(next));
       since = next;
-      // Server copy first: a device checkpoint without one would look like a server reset.
-      await this.client.putLocal(this.checkpointName(), { last_seq: since, device: this.o.deviceId });
-      await this.store.setMeta(CHECKPOINT, since);
+      // Saved after every page that brought docs, every 10th page and at the end: pages of our
+      // own pushes coming back cost a read here and are cheap to read again after a crash.
+      if (fetched > 0 || !full || pages % 10 === 0) {
+        // Server copy first: a device checkpoint without one would look like a server reset.
+        await this.client.putLocal(this.checkpointName(), { last_seq: since, device: this.o.deviceId });
+        await this.store.setMeta(CHECKPOINT, since);
+      }
       if (!full) return;
       if (pages >= this.o.maxPullPages) {
         throw new SyncError(
@@ -260,20 +276,21 @@ export class SyncEngine {
    * One page of changes: ids and leaf revisions only. Docs this device already holds at that
    * revision (its own pushes above all) are not downloaded; the rest come in one `_all_docs`.
    */
-  private async applyChanges(rows: ChangesRow[], total: SyncRunResult): Promise<void> {
+  private async applyChanges(rows: ChangesRow[], total: SyncRunResult): Promise<number> {
     const ours = rows.filter((r) => !r.id.startsWith('_'));
-    if (ours.length === 0) return;
+    if (ours.length === 0) return 0;
     const local = await this.store.getDocs(ours.map((r) => r.id));
     const needed = ours.filter(
       (r) => !(r.changes.length === 1 && local.get(r.id)?.rev === r.changes[0]!.rev),
     );
-    if (needed.length === 0) return;
+    if (needed.length === 0) return 0;
     const fetched = await this.client.getDocs(needed.filter((r) => !r.doc).map((r) => r.id));
     const docs = needed.flatMap((r) => {
       const d = r.doc ?? fetched.get(r.id);
       return d ? [d] : [];
     });
     if (docs.length) await this.applyPulled(docs, local, total);
+    return needed.length;
   }
 
   /** A server version that cannot stand beside `mine` in a conflict (invalid, or another type), as a set-aside record. */
@@ -377,105 +394,141 @@ export class SyncEngine {
     return true;
   }
 
+  /**
+   * Pushes the outbox: docs read in chunks (one read per chunk), sent in page order (sites first,
+   * then readings by site and time, so recording touches few reading pages), in `_bulk_docs`
+   * batches; the revisions the server gave are recorded in the background while the next batch
+   * is on the wire, a few batches at a time. A crash before recording only means those docs meet
+   * a 409 next time and are recognised as already there (one `_all_docs` per batch).
+   */
   private async push(total: SyncRunResult): Promise<void> {
     const open = new Set((await this.store.conflicts()).map((c) => c.docId));
     const entries = (await this.store.outbox()).filter((e) => !open.has(e.docId));
     const rejected: Issue[] = [];
-    for (let i = 0; i < entries.length; i += this.o.pushBatch) {
-      const batch = entries.slice(i, i + this.o.pushBatch);
-      const docs = await this.store.getDocs(batch.map((e) => e.docId));
-      const gone = batch.filter((e) => !docs.has(e.docId)).map((e) => e.docId);
-      if (gone.length) await this.store.dropOutbox(gone);
-      const sent = [...docs.values()];
-      if (sent.length === 0) continue;
-      const rows = await this.client.bulkDocs(sent.map(toCouch));
-      const byId = new Map(rows.map((r) => [r.id, r]));
-      const ok: { docId: string; rev: string; updatedAt: string }[] = [];
-      const missing: string[] = [];
-      const fresh: TufaDoc[] = [];
-      for (const d of sent) {
-        const row = byId.get(d.id);
-        if (!row) {
-          missing.push(d.id);
-        } else if (row.error === undefined && row.rev) {
-          ok.push({ docId: d.id, rev: row.rev, updatedAt: d.updatedAt });
-        } else if (row.error === 'conflict') {
-          const server = await this.client.getDoc(d.id);
-          if (server && sameContent(server, toCouch(d))) {
-            ok.push({ docId: d.id, rev: server._rev!, updatedAt: d.updatedAt }); // our earlier write, answer lost
-          } else if (!server) {
-            // Not readable: deleted on the server (a tombstone leaf) or never there (database recreated).
-            const leaves = await this.client.leafRevs(d.id);
-            const tomb = leaves.find((l) => l._deleted && l._rev);
-            if (leaves.length === 0) fresh.push(d);
-            else if (tomb?._rev) {
-              await this.store.putConflict({
-                docId: d.id,
-                kind: 'edit',
-                local: d,
-                others: [{ rev: tomb._rev, doc: { ...d, deleted: true, rev: tomb._rev } }],
-                baseRev: tomb._rev,
-                deleteRevs: [],
-                detectedAt: this.o.now().toISOString(),
-              });
-              total.conflicts++;
-            }
-          } else {
-            const theirs = fromCouch(server, d, this.o.now());
-            const unusable = theirs && this.unusableOther(server, d, theirs);
-            if (unusable) {
-              await this.putAside([unusable]);
-              rejected.push(
-                syncIssue(
-                  unusable.code,
-                  `${d.type} ${d.id} cannot be sent: the server holds a document under its id that Tufa cannot use (${unusable.reason}). It stays on this device.`,
-                ),
-              );
-            } else if (theirs && server._rev) {
-              await this.store.putConflict({
-                docId: d.id,
-                kind: 'edit',
-                local: d,
-                others: [{ rev: server._rev, doc: theirs }],
-                baseRev: server._rev,
-                deleteRevs: [],
-                detectedAt: this.o.now().toISOString(),
-              });
-              total.conflicts++;
-            }
-          }
-        } else {
-          rejected.push(
-            syncIssue(
-              'sync-doc-rejected',
-              `The server refused ${d.type} ${d.id}: ${row.error ?? 'no revision in the answer'}${row.reason ? ` (${row.reason})` : ''}.`,
-            ),
-          );
+    let pending = entries.length;
+    let unrecorded: Pushed[] = [];
+    let recording: Promise<void> = Promise.resolve();
+    const flush = async () => {
+      const rows = unrecorded;
+      unrecorded = [];
+      await recording;
+      recording = rows.length ? this.store.markPushed(rows) : Promise.resolve();
+    };
+    const chunk = this.o.pushBatch * 10;
+    try {
+      for (let c = 0; c < entries.length; c += chunk) {
+        const ids = entries.slice(c, c + chunk).map((e) => e.docId);
+        const found = await this.store.getDocs(ids);
+        const gone = ids.filter((id) => !found.has(id));
+        if (gone.length) await this.store.dropOutbox(gone);
+        const docs = [...found.values()].sort(pageOrder);
+        for (let i = 0; i < docs.length; i += this.o.pushBatch) {
+          const sent = docs.slice(i, i + this.o.pushBatch);
+          const ok = await this.pushBatch(sent, total, rejected);
+          unrecorded.push(...ok);
+          total.pushed += ok.length;
+          pending -= ok.length;
+          if (unrecorded.length >= this.o.pushBatch * 5) await flush();
+          this.set({ pending: Math.max(0, pending) });
         }
       }
-      if (fresh.length) {
-        // The server has no trace of these: send them as new documents.
-        const again = await this.client.bulkDocs(
-          fresh.map((d) => toCouch({ ...d, rev: undefined } as TufaDoc)),
-        );
-        for (const r of again) {
-          const d = fresh.find((x) => x.id === r.id);
-          if (d && r.rev && r.error === undefined)
-            ok.push({ docId: d.id, rev: r.rev, updatedAt: d.updatedAt });
-        }
-      }
-      if (ok.length) await this.store.markPushed(ok);
-      total.pushed += ok.length;
-      if (missing.length) {
-        throw new SyncError(
-          'sync-bad-response',
-          `The server's answer left out ${missing.length} of the documents sent; Tufa will try again.`,
-          true,
-        );
-      }
-      this.set({ pending: await this.store.outboxCount() });
+    } finally {
+      await flush();
+      await recording;
     }
     if (rejected.length) this.set({ rejected });
+  }
+
+  /** One `_bulk_docs` batch; returns what the server now holds as ours. */
+  private async pushBatch(sent: TufaDoc[], total: SyncRunResult, rejected: Issue[]): Promise<Pushed[]> {
+    const rows = await this.client.bulkDocs(sent.map(toCouch));
+    const byId = new Map(rows.map((r) => [r.id, r]));
+    const ok: Pushed[] = [];
+    const missing: string[] = [];
+    const fresh: TufaDoc[] = [];
+    const clashing = sent.filter((d) => byId.get(d.id)?.error === 'conflict').map((d) => d.id);
+    const onServer = clashing.length ? await this.client.getDocs(clashing) : new Map<string, CouchDoc>();
+    for (const d of sent) {
+      const row = byId.get(d.id);
+      if (!row) {
+        missing.push(d.id);
+      } else if (row.error === undefined && row.rev) {
+        ok.push({ docId: d.id, rev: row.rev, updatedAt: d.updatedAt });
+      } else if (row.error === 'conflict') {
+        const got = onServer.get(d.id);
+        const server = got && !got._deleted ? got : undefined;
+        if (server && sameContent(server, toCouch(d))) {
+          ok.push({ docId: d.id, rev: server._rev!, updatedAt: d.updatedAt }); // our earlier write, answer lost
+        } else if (!server) {
+          // Not readable: deleted on the server (a tombstone leaf) or never there (database recreated).
+          const leaves = got ? await this.client.leafRevs(d.id) : [];
+          const tomb = leaves.find((l) => l._deleted && l._rev);
+          if (leaves.length === 0) fresh.push(d);
+          else if (tomb?._rev) {
+            await this.store.putConflict({
+              docId: d.id,
+              kind: 'edit',
+              local: d,
+              others: [{ rev: tomb._rev, doc: { ...d, deleted: true, rev: tomb._rev } }],
+              baseRev: tomb._rev,
+              deleteRevs: [],
+              detectedAt: this.o.now().toISOString(),
+            });
+            total.conflicts++;
+          }
+        } else {
+          const theirs = fromCouch(server, d, this.o.now());
+          const unusable = theirs && this.unusableOther(server, d, theirs);
+          if (unusable) {
+            await this.putAside([unusable]);
+            rejected.push(
+              syncIssue(
+                unusable.code,
+                `${d.type} ${d.id} cannot be sent: the server holds a document under its id that Tufa cannot use (${unusable.reason}). It stays on this device.`,
+              ),
+            );
+          } else if (theirs && server._rev) {
+            await this.store.putConflict({
+              docId: d.id,
+              kind: 'edit',
+              local: d,
+              others: [{ rev: server._rev, doc: theirs }],
+              baseRev: server._rev,
+              deleteRevs: [],
+              detectedAt: this.o.now().toISOString(),
+            });
+            total.conflicts++;
+          }
+        }
+      } else {
+        rejected.push(
+          syncIssue(
+            'sync-doc-rejected',
+            `The server refused ${d.type} ${d.id}: ${row.error ?? 'no revision in the answer'}${row.reason ? ` (${row.reason})` : ''}.`,
+          ),
+        );
+      }
+    }
+    if (fresh.length) {
+      // The server has no trace of these: send them as new documents.
+      const again = await this.client.bulkDocs(
+        fresh.map((d) => toCouch({ ...d, rev: undefined } as TufaDoc)),
+      );
+      for (const r of again) {
+        const d = fresh.find((x) => x.id === r.id);
+        if (d && r.rev && r.error === undefined) ok.push({ docId: d.id, rev: r.rev, updatedAt: d.updatedAt });
+      }
+    }
+    if (missing.length) {
+      // Record what did arrive first: the retry then finds those as already there.
+      await this.store.markPushed(ok);
+      throw new SyncError(
+        'sync-bad-response',
+        `The server's answer left out ${missing.length} of the documents sent; Tufa will try again.`,
+        true,
+      );
+    }
+    return ok;
   }
 
   /**

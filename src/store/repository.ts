@@ -138,10 +138,12 @@ async function putReadings(tx: DocTx, docs: ReadingDoc[]): Promise<void> {
   });
   const upserts = new Map<string, ReadingDoc[]>();
   const removes = new Map<string, Set<string>>();
+  const moved = new Set<number>();
   for (const d of docs) {
     const target = pageIdOf(d.siteId, d.takenAt);
     const loc = locator.get(bucketOf(d.id))!;
     const old = loc.pages[d.id];
+    if (old !== target) moved.add(loc.bucket);
     if (old !== undefined && old !== target) {
       const set = removes.get(old) ?? new Set<string>();
       set.add(d.id);
@@ -164,7 +166,9 @@ async function putReadings(tx: DocTx, docs: ReadingDoc[]): Promise<void> {
       writes.push(tx.objectStore('readingPages').put(metaOf(id, merged)));
     }
   });
-  for (const b of locator.values()) writes.push(tx.objectStore('readingLocator').put(b));
+  // Only buckets whose entries changed (a rev update keeps every reading where it is).
+  for (const b of locator.values())
+    if (moved.has(b.bucket)) writes.push(tx.objectStore('readingLocator').put(b));
   await Promise.all(writes);
 }
 
@@ -374,14 +378,21 @@ export class Repository {
    * edit stays queued). Doing read and write in one transaction is what keeps an edit that lands
    * mid-push from being overwritten by the copy read before it.
    */
-  async recordPushed(rows: { docId: string; rev: string; updatedAt: string }[]): Promise<number> {
+  async recordPushed(
+    rows: { docId: string; rev: string; updatedAt: string; type?: 'site' | 'reading' }[],
+  ): Promise<number> {
     if (rows.length === 0) return 0;
     let acked = 0;
     await this.inDocTx(async (tx) => {
-      const ids = rows.map((r) => r.docId);
+      // A row that names its type is looked up in that store only (one request per site is slow).
       const [sites, readings] = await Promise.all([
-        Promise.all(ids.map((i) => tx.objectStore('sites').get(i))),
-        findReadings(lookupIn(tx), ids),
+        Promise.all(
+          rows.map((r) => (r.type === 'reading' ? undefined : tx.objectStore('sites').get(r.docId))),
+        ),
+        findReadings(
+          lookupIn(tx),
+          rows.filter((r) => r.type !== 'site').map((r) => r.docId),
+        ),
       ]);
       const siteWrites: SiteDoc[] = [];
       const readingWrites: ReadingDoc[] = [];

@@ -30,15 +30,30 @@ export class RepositoryStore implements SyncStore, ImportTarget, BackupStore {
     return this.repo.outboxSize();
   }
 
+  /**
+   * Sites are few: for many ids, reading them all at once beats one request per id (which costs
+   * seconds for thousands of ids in Chromium); readings are found through the locator.
+   */
   async getDocs(ids: readonly string[]): Promise<Map<string, TufaDoc>> {
     if (ids.length === 0) return new Map();
-    const docs = await this.repo.getDocs(
-      ids.flatMap((docId) => [
-        { docId, type: 'reading' as const },
-        { docId, type: 'site' as const },
-      ]),
-    );
-    return new Map(docs.map((d) => [d.id, d]));
+    if (ids.length < 50) {
+      const docs = await this.repo.getDocs(
+        ids.flatMap((docId) => [
+          { docId, type: 'reading' as const },
+          { docId, type: 'site' as const },
+        ]),
+      );
+      return new Map(docs.map((d) => [d.id, d]));
+    }
+    const want = new Set(ids);
+    const [sites, readings] = await Promise.all([
+      this.repo.listSites({ includeDeleted: true }),
+      this.repo.getDocs(ids.map((docId) => ({ docId, type: 'reading' as const }))),
+    ]);
+    const out = new Map<string, TufaDoc>();
+    for (const r of readings) out.set(r.id, r);
+    for (const s of sites) if (want.has(s.id)) out.set(s.id, s);
+    return out;
   }
 
   async existingIds(ids: readonly string[]): Promise<Set<string>> {
@@ -54,7 +69,9 @@ export class RepositoryStore implements SyncStore, ImportTarget, BackupStore {
     return new Set(ids.filter((id) => have.has(id)));
   }
 
-  async markPushed(rows: { docId: string; rev: string; updatedAt: string }[]): Promise<void> {
+  async markPushed(
+    rows: { docId: string; rev: string; updatedAt: string; type?: 'site' | 'reading' }[],
+  ): Promise<void> {
     await this.repo.recordPushed(rows);
   }
 

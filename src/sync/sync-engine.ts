@@ -67,7 +67,7 @@ export interface SyncRunResult {
 
 const CHECKPOINT = 'pull-checkpoint';
 
-type Pushed = { docId: string; rev: string; updatedAt: string };
+type Pushed = { docId: string; rev: string; updatedAt: string; type: 'site' | 'reading' };
 
 /** Sites first, then readings by site and time: the order the store keeps them in. */
 function pageOrder(a: TufaDoc, b: TufaDoc): number {
@@ -93,6 +93,8 @@ const LAST_SYNC = 'last-sync-at';
 
 export class SyncEngine {
   private running: Promise<SyncRunResult> | undefined;
+  /** Revisions this engine pushed and has not yet seen come back in a pull. */
+  private readonly pushedRevs = new Map<string, string>();
   private listeners = new Set<(s: SyncStatus) => void>();
   private status: SyncStatus = {
     state: 'idle',
@@ -277,7 +279,15 @@ export class SyncEngine {
    * revision (its own pushes above all) are not downloaded; the rest come in one `_all_docs`.
    */
   private async applyChanges(rows: ChangesRow[], total: SyncRunResult): Promise<number> {
-    const ours = rows.filter((r) => !r.id.startsWith('_'));
+    const ours = rows.filter((r) => {
+      if (r.id.startsWith('_')) return false;
+      // This device's own push coming back: known without reading the store.
+      if (r.changes.length === 1 && this.pushedRevs.get(r.id) === r.changes[0]!.rev) {
+        this.pushedRevs.delete(r.id);
+        return false;
+      }
+      return true;
+    });
     if (ours.length === 0) return 0;
     const local = await this.store.getDocs(ours.map((r) => r.id));
     const needed = ours.filter(
@@ -414,7 +424,7 @@ export class SyncEngine {
       await recording;
       recording = rows.length ? this.store.markPushed(rows) : Promise.resolve();
     };
-    const chunk = this.o.pushBatch * 10;
+    const chunk = this.o.pushBatch * 40;
     try {
       for (let c = 0; c < entries.length; c += chunk) {
         const ids = entries.slice(c, c + chunk).map((e) => e.docId);
@@ -426,9 +436,10 @@ export class SyncEngine {
           const sent = docs.slice(i, i + this.o.pushBatch);
           const ok = await this.pushBatch(sent, total, rejected);
           unrecorded.push(...ok);
+          for (const p of ok) this.pushedRevs.set(p.docId, p.rev);
           total.pushed += ok.length;
           pending -= ok.length;
-          if (unrecorded.length >= this.o.pushBatch * 5) await flush();
+          if (unrecorded.length >= this.o.pushBatch * 10) await flush();
           this.set({ pending: Math.max(0, pending) });
         }
       }
@@ -453,12 +464,12 @@ export class SyncEngine {
       if (!row) {
         missing.push(d.id);
       } else if (row.error === undefined && row.rev) {
-        ok.push({ docId: d.id, rev: row.rev, updatedAt: d.updatedAt });
+        ok.push({ docId: d.id, rev: row.rev, updatedAt: d.updatedAt, type: d.type });
       } else if (row.error === 'conflict') {
         const got = onServer.get(d.id);
         const server = got && !got._deleted ? got : undefined;
         if (server && sameContent(server, toCouch(d))) {
-          ok.push({ docId: d.id, rev: server._rev!, updatedAt: d.updatedAt }); // our earlier write, answer lost
+          ok.push({ docId: d.id, rev: server._rev!, updatedAt: d.updatedAt, type: d.type }); // our earlier write, answer lost
         } else if (!server) {
           // Not readable: deleted on the server (a tombstone leaf) or never there (database recreated).
           const leaves = got ? await this.client.leafRevs(d.id) : [];
@@ -516,7 +527,8 @@ export class SyncEngine {
       );
       for (const r of again) {
         const d = fresh.find((x) => x.id === r.id);
-        if (d && r.rev && r.error === undefined) ok.push({ docId: d.id, rev: r.rev, updatedAt: d.updatedAt });
+        if (d && r.rev && r.error === undefined)
+          ok.push({ docId: d.id, rev: r.rev, updatedAt: d.updatedAt, type: d.type });
       }
     }
     if (missing.length) {

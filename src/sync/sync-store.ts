@@ -47,7 +47,9 @@ export interface SyncStore {
    * After the server accepted a push: set `rev` on the doc and drop its outbox entry, but only
    * where the doc still has the pushed `updatedAt` (a later local edit stays queued, with the new rev).
    */
-  markPushed(rows: { docId: string; rev: string; updatedAt: string }[]): Promise<void>;
+  markPushed(
+    rows: { docId: string; rev: string; updatedAt: string; type?: 'site' | 'reading' }[],
+  ): Promise<void>;
   /**
    * Writes docs that came from the server; they are not queued again. `seen` gives the local
    * `updatedAt` the engine decided on (undefined: no local doc); a doc changed locally since is not

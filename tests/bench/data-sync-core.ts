@@ -14,6 +14,25 @@ import { RepositoryStore } from '../../src/sync/repository-store';
 import { SyncEngine } from '../../src/sync/sync-engine';
 
 const sec = (ms: number) => `${(ms / 1000).toFixed(2)} s`;
+
+/** Wraps every method of `o` to add up the time spent in it (calls overlap when work is pipelined). */
+function timed<T extends object>(o: T, into: Map<string, number>, prefix: string): T {
+  return new Proxy(o, {
+    get(target, key, recv) {
+      const v = Reflect.get(target, key, recv);
+      if (typeof v !== 'function' || typeof key !== 'string') return v;
+      return async (...args: unknown[]) => {
+        const t = performance.now();
+        try {
+          return await v.apply(target, args);
+        } finally {
+          const k = `${prefix}.${key}`;
+          into.set(k, (into.get(k) ?? 0) + performance.now() - t);
+        }
+      };
+    },
+  });
+}
 const RAW_BATCH = 500;
 
 /** The limit: the same docs, as sync would send them, posted with nothing else around it. */
@@ -57,8 +76,9 @@ export async function benchFirstSyncIn(
     deleted: false,
   }));
   await repo.bulkPut(docs);
-  const store = new RepositoryStore(repo);
-  const client = new CouchClient({ url: serverUrl, db, auth: { kind: 'none' } });
+  const spent = new Map<string, number>();
+  const store = timed(new RepositoryStore(repo), spent, 'store');
+  const client = timed(new CouchClient({ url: serverUrl, db, auth: { kind: 'none' } }), spent, 'http');
   const engine = new SyncEngine(store, client, { deviceId: 'bench', pushBatch: 500 });
   // Raw post before and after the sync; the limit is the faster of the two (warm-up and load swings).
   const raw1 = await rawPost(serverUrl, `${db}-raw1`, docs);
@@ -67,6 +87,8 @@ export async function benchFirstSyncIn(
   const t1 = performance.now();
   const raw2 = await rawPost(serverUrl, `${db}-raw2`, docs);
   const raw = Math.min(raw1, raw2);
+  const firstSpent = [...spent].filter(([, ms]) => ms >= 50).map(([k, ms]) => `${k} ${sec(ms)}`);
+  spent.clear();
   const t2 = performance.now();
   const again = await engine.sync();
   const t3 = performance.now();
@@ -74,6 +96,8 @@ export async function benchFirstSyncIn(
   return [
     `readings ${readings}, pushed ${run.pushed}, on server ${info.doc_count} (with the site), attempts ${run.attempts}, outbox left ${engine.getStatus().pending}`,
     `first sync ${sec(t1 - t0)} (${Math.round((run.pushed / (t1 - t0)) * 1000)} docs/s); raw _bulk_docs post of the same docs in batches of ${RAW_BATCH}: ${sec(raw1)} before, ${sec(raw2)} after; ratio ${((t1 - t0) / raw).toFixed(2)} × the faster raw post (goal ≤ 2, aim 1.3; ${where})`,
+    `  time inside calls (overlapping): ${firstSpent.join(', ')}`,
     `next sync of the same device ${sec(t3 - t2)}, pulled ${again.pulled} docs (its own pushes are not downloaded again)`,
+    `  time inside calls: ${[...spent].filter(([, ms]) => ms >= 50).map(([k, ms]) => `${k} ${sec(ms)}`).join(', ')}`,
   ];
 }

@@ -98,6 +98,9 @@ export async function benchFirstSyncIn(
     `first sync ${sec(t1 - t0)} (${Math.round((run.pushed / (t1 - t0)) * 1000)} docs/s); raw _bulk_docs post of the same docs in batches of ${RAW_BATCH}: ${sec(raw1)} before, ${sec(raw2)} after; ratio ${((t1 - t0) / raw).toFixed(2)} × the faster raw post (goal ≤ 2, aim 1.3; ${where})`,
     `  time inside calls (overlapping): ${firstSpent.join(', ')}`,
     `next sync of the same device ${sec(t3 - t2)}, pulled ${again.pulled} docs (its own pushes are not downloaded again)`,
-    `  time inside calls: ${[...spent].filter(([, ms]) => ms >= 50).map(([k, ms]) => `${k} ${sec(ms)}`).join(', ')}`,
+    `  time inside calls: ${[...spent]
+      .filter(([, ms]) => ms >= 50)
+      .map(([k, ms]) => `${k} ${sec(ms)}`)
+      .join(', ')}`,
   ];
 }

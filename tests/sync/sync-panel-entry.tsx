@@ -2,6 +2,7 @@
 
 import { render } from 'preact';
 import { openRepository } from '../../src/store/repository';
+import { keepSetAside } from '../../src/sync/quarantine';
 import { RepositoryStore } from '../../src/sync/repository-store';
 import { SyncService } from '../../src/sync/sync-service';
 import { SyncPanel } from '../../src/ui/sync/SyncPanel';
@@ -51,6 +52,17 @@ async function main() {
     user: 'ana',
     password: 'x',
   });
+  // A document another tool wrote to the server with a pH that is not a number: set aside.
+  await keepSetAside(store, [
+    {
+      docId: '7c0e2a4e-0b7d-4c55-9d0e-3f1b2a9c8d11',
+      rev: '3-a41f',
+      code: 'sync-doc-invalid',
+      reason: 'value of ph is not a finite number',
+      json: '{"_id":"7c0e2a4e-0b7d-4c55-9d0e-3f1b2a9c8d11","type":"reading","values":[{"quantity":"ph","value":"seven","unit":"ph"}]}',
+      at: new Date().toISOString(),
+    },
+  ]);
   // No network in this page: every request fails as it would with no signal at the spring.
   const offline = () => Promise.reject(new TypeError('Failed to fetch'));
   const service = new SyncService(store, offline);

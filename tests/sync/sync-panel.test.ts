@@ -17,6 +17,9 @@ describe('sync panel in Chromium', () => {
         expect(text).toContain('pH 7.25');
         expect(text).toContain('Reading of 3 Jun 2026, 09:15 (Europe/Vienna)');
         expect(text).toContain('plain http');
+        expect(text).toMatch(
+          /7c0e2a4e-0b7d-4c55-9d0e-3f1b2a9c8d11 \(revision 3-a41f\) from the server was set aside: value of ph is not a finite number/,
+        );
         await page.getByRole('button', { name: 'Sync now' }).click();
         await page
           .getByText(/cannot be reached/)

@@ -237,6 +237,15 @@ export function SyncPanel({
         {status?.rejected.map((r) => (
           <IssueLine key={r.message} issue={r} kind="error" />
         ))}
+        {status?.setAside.slice(-5).map((r) => (
+          <IssueLine key={r.message} issue={r} kind="warn" />
+        ))}
+        {(status?.setAside.length ?? 0) > 5 && (
+          <p class="muted">
+            …and {(status?.setAside.length ?? 0) - 5} more documents from the server set aside (kept on this
+            device).
+          </p>
+        )}
         <div class="actions">
           <button
             type="button"

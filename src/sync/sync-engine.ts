@@ -1,8 +1,12 @@
 /**
  * Two-way sync of the local database with one CouchDB database.
  *
- * One run: pull (`_changes` from the checkpoint, in pages), then push the outbox (`_bulk_docs` in
- * batches, every response row checked). The checkpoint is kept locally and as a `_local` doc on
+ * One run: pull (`_changes` from the checkpoint in pages of ids and revisions, then `_all_docs`
+ * for the docs this device does not hold at that revision), then push the outbox (`push.ts`).
+ * Push runs even when the pull fails, so local changes always leave the device. A pulled doc that
+ * cannot be stored (invalid, or a type change) is set aside (`quarantine.ts`) and the rest of the
+ * page applied; the rules per doc are in `pull-plan.ts`. A feed that repeats its `last_seq` on
+ * full pages stops with `sync-no-progress`. The checkpoint is kept locally and as a `_local` doc on
  * the server; when the two disagree (server database recreated, device restored) the pull starts
  * from 0, which is safe because applying a change twice is a no-op.
  *
@@ -22,6 +26,7 @@ import type { TufaDoc } from '../io/docs';
 import type { ChangesRow, CouchClient, CouchDoc } from './couch-client';
 import { fromCouch, sameContent, toCouch } from './doc-codec';
 import { planPulled, whyUnusable } from './pull-plan';
+import { pushOutbox } from './push';
 import { asJsonText, keepSetAside, listSetAside, type SetAsideDoc, setAsideIssue } from './quarantine';
 import { SyncError, syncIssue } from './sync-issues';
 import type { OtherVersion, SyncStore } from './sync-store';
@@ -66,18 +71,6 @@ export interface SyncRunResult {
 }
 
 const CHECKPOINT = 'pull-checkpoint';
-
-type Pushed = { docId: string; rev: string; updatedAt: string; type: 'site' | 'reading' };
-
-/** Sites first, then readings by site and time: the order the store keeps them in. */
-function pageOrder(a: TufaDoc, b: TufaDoc): number {
-  if (a.type !== b.type) return a.type === 'site' ? -1 : 1;
-  if (a.type === 'reading' && b.type === 'reading') {
-    if (a.siteId !== b.siteId) return a.siteId < b.siteId ? -1 : 1;
-    if (a.takenAt !== b.takenAt) return a.takenAt < b.takenAt ? -1 : 1;
-  }
-  return a.id < b.id ? -1 : a.id > b.id ? 1 : 0;
-}
 
 /** Anything caught during a run as a coded error in words; raw JavaScript text never reaches the screen. */
 function asSyncError(e: unknown): SyncError {
@@ -181,7 +174,19 @@ export class SyncEngine {
         } catch (e) {
           pullFailure = e;
         }
-        await this.push(total);
+        await pushOutbox(
+          {
+            store: this.store,
+            client: this.client,
+            pushBatch: this.o.pushBatch,
+            now: this.o.now,
+            pushedRevs: this.pushedRevs,
+            putAside: (d) => this.putAside(d),
+            unusableOther: (a, b, c) => this.unusableOther(a, b, c),
+            set: (p) => this.set(p),
+          },
+          total,
+        );
         if (pullFailure !== undefined) throw pullFailure;
         const at = this.o.now().toISOString();
         await this.store.setMeta(LAST_SYNC, at);
@@ -402,145 +407,6 @@ export class SyncEngine {
       detectedAt: now.toISOString(),
     });
     return true;
-  }
-
-  /**
-   * Pushes the outbox: docs read in chunks (one read per chunk), sent in page order (sites first,
-   * then readings by site and time, so recording touches few reading pages), in `_bulk_docs`
-   * batches; the revisions the server gave are recorded in the background while the next batch
-   * is on the wire, a few batches at a time. A crash before recording only means those docs meet
-   * a 409 next time and are recognised as already there (one `_all_docs` per batch).
-   */
-  private async push(total: SyncRunResult): Promise<void> {
-    const open = new Set((await this.store.conflicts()).map((c) => c.docId));
-    const entries = (await this.store.outbox()).filter((e) => !open.has(e.docId));
-    const rejected: Issue[] = [];
-    let pending = entries.length;
-    let unrecorded: Pushed[] = [];
-    let recording: Promise<void> = Promise.resolve();
-    const flush = async () => {
-      const rows = unrecorded;
-      unrecorded = [];
-      await recording;
-      recording = rows.length ? this.store.markPushed(rows) : Promise.resolve();
-    };
-    const chunk = this.o.pushBatch * 40;
-    try {
-      for (let c = 0; c < entries.length; c += chunk) {
-        const ids = entries.slice(c, c + chunk).map((e) => e.docId);
-        const found = await this.store.getDocs(ids);
-        const gone = ids.filter((id) => !found.has(id));
-        if (gone.length) await this.store.dropOutbox(gone);
-        const docs = [...found.values()].sort(pageOrder);
-        for (let i = 0; i < docs.length; i += this.o.pushBatch) {
-          const sent = docs.slice(i, i + this.o.pushBatch);
-          const ok = await this.pushBatch(sent, total, rejected);
-          unrecorded.push(...ok);
-          for (const p of ok) this.pushedRevs.set(p.docId, p.rev);
-          total.pushed += ok.length;
-          pending -= ok.length;
-          if (unrecorded.length >= this.o.pushBatch * 10) await flush();
-          this.set({ pending: Math.max(0, pending) });
-        }
-      }
-    } finally {
-      await flush();
-      await recording;
-    }
-    if (rejected.length) this.set({ rejected });
-  }
-
-  /** One `_bulk_docs` batch; returns what the server now holds as ours. */
-  private async pushBatch(sent: TufaDoc[], total: SyncRunResult, rejected: Issue[]): Promise<Pushed[]> {
-    const rows = await this.client.bulkDocs(sent.map(toCouch));
-    const byId = new Map(rows.map((r) => [r.id, r]));
-    const ok: Pushed[] = [];
-    const missing: string[] = [];
-    const fresh: TufaDoc[] = [];
-    const clashing = sent.filter((d) => byId.get(d.id)?.error === 'conflict').map((d) => d.id);
-    const onServer = clashing.length ? await this.client.getDocs(clashing) : new Map<string, CouchDoc>();
-    for (const d of sent) {
-      const row = byId.get(d.id);
-      if (!row) {
-        missing.push(d.id);
-      } else if (row.error === undefined && row.rev) {
-        ok.push({ docId: d.id, rev: row.rev, updatedAt: d.updatedAt, type: d.type });
-      } else if (row.error === 'conflict') {
-        const got = onServer.get(d.id);
-        const server = got && !got._deleted ? got : undefined;
-        if (server && sameContent(server, toCouch(d))) {
-          ok.push({ docId: d.id, rev: server._rev!, updatedAt: d.updatedAt, type: d.type }); // our earlier write, answer lost
-        } else if (!server) {
-          // Not readable: deleted on the server (a tombstone leaf) or never there (database recreated).
-          const leaves = got ? await this.client.leafRevs(d.id) : [];
-          const tomb = leaves.find((l) => l._deleted && l._rev);
-          if (leaves.length === 0) fresh.push(d);
-          else if (tomb?._rev) {
-            await this.store.putConflict({
-              docId: d.id,
-              kind: 'edit',
-              local: d,
-              others: [{ rev: tomb._rev, doc: { ...d, deleted: true, rev: tomb._rev } }],
-              baseRev: tomb._rev,
-              deleteRevs: [],
-              detectedAt: this.o.now().toISOString(),
-            });
-            total.conflicts++;
-          }
-        } else {
-          const theirs = fromCouch(server, d, this.o.now());
-          const unusable = theirs && this.unusableOther(server, d, theirs);
-          if (unusable) {
-            await this.putAside([unusable]);
-            rejected.push(
-              syncIssue(
-                unusable.code,
-                `${d.type} ${d.id} cannot be sent: the server holds a document under its id that Tufa cannot use (${unusable.reason}). It stays on this device.`,
-              ),
-            );
-          } else if (theirs && server._rev) {
-            await this.store.putConflict({
-              docId: d.id,
-              kind: 'edit',
-              local: d,
-              others: [{ rev: server._rev, doc: theirs }],
-              baseRev: server._rev,
-              deleteRevs: [],
-              detectedAt: this.o.now().toISOString(),
-            });
-            total.conflicts++;
-          }
-        }
-      } else {
-        rejected.push(
-          syncIssue(
-            'sync-doc-rejected',
-            `The server refused ${d.type} ${d.id}: ${row.error ?? 'no revision in the answer'}${row.reason ? ` (${row.reason})` : ''}.`,
-          ),
-        );
-      }
-    }
-    if (fresh.length) {
-      // The server has no trace of these: send them as new documents.
-      const again = await this.client.bulkDocs(
-        fresh.map((d) => toCouch({ ...d, rev: undefined } as TufaDoc)),
-      );
-      for (const r of again) {
-        const d = fresh.find((x) => x.id === r.id);
-        if (d && r.rev && r.error === undefined)
-          ok.push({ docId: d.id, rev: r.rev, updatedAt: d.updatedAt, type: d.type });
-      }
-    }
-    if (missing.length) {
-      // Record what did arrive first: the retry then finds those as already there.
-      await this.store.markPushed(ok);
-      throw new SyncError(
-        'sync-bad-response',
-        `The server's answer left out ${missing.length} of the documents sent; Tufa will try again.`,
-        true,
-      );
-    }
-    return ok;
   }
 
   /**

@@ -292,7 +292,16 @@ export class CouchClient {
 
   async getLocal<T>(name: string): Promise<(T & { _rev?: string }) | undefined> {
     const r = await this.request<unknown>('GET', `_local/${encodeURIComponent(name)}`);
-    return r.status === 404 ? undefined : (readCheckpoint(r.body) as (T & { _rev?: string }) | undefined);
+    if (r.status === 404) return undefined;
+    const cp = readCheckpoint(r.body);
+    // Not "no checkpoint" (that would queue everything again): an answer to retry.
+    if (!cp)
+      throw new SyncError(
+        'sync-bad-response',
+        'The server sent an unreadable sync checkpoint; Tufa will try again.',
+        true,
+      );
+    return cp as T & { _rev?: string };
   }
 
   /** Writes a `_local` doc; its revision is remembered from the last write, read again only on a 409. */

@@ -24,11 +24,11 @@ import type { Issue } from '../chem/errors';
 import { TufaError } from '../chem/errors';
 import type { TufaDoc } from '../io/docs';
 import type { ChangesRow, CouchClient, CouchDoc } from './couch-client';
-import { fromCouch, sameContent, toCouch } from './doc-codec';
+import { fromCouch } from './doc-codec';
 import { planPulled, whyUnusable } from './pull-plan';
 import { pushOutbox } from './push';
 import { asJsonText, keepSetAside, listSetAside, type SetAsideDoc, setAsideIssue } from './quarantine';
-import { SyncError, syncIssue } from './sync-issues';
+import { SyncError } from './sync-issues';
 import type { OtherVersion, SyncStore } from './sync-store';
 
 export type SyncState = 'idle' | 'syncing' | 'waiting-to-retry' | 'error';

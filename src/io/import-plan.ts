@@ -4,6 +4,7 @@
  * in one transaction, and only when it has no errors.
  */
 
+import { SITE_KINDS } from '../store/schema';
 import type { ColumnMapping } from './column-mapping';
 import { checkMapping } from './column-mapping';
 import { contentId, normalizeName, readingCanonical, siteCanonical } from './content-id';
@@ -14,10 +15,15 @@ import { parseNumber } from './numbers';
 import { quantityById, storedForm } from './quantities';
 import { isKnownTimeZone, parseTimestamp } from './timestamps';
 
+/** Ids our devices make (uuid) and tests use: letters, digits and `.-_:`, at most 100 characters. */
+const READING_ID = /^[A-Za-z0-9._:-]{1,100}$/;
+
 export interface ImportPlan {
   readings: ReadingDoc[];
   /** File line of each planned reading (same order as `readings`). */
   readingLines: number[];
+  /** Whether the file said when each reading last changed (same order); only those replace older copies. */
+  updatedAtGiven: boolean[];
   /** Sites named in the file that do not exist yet; created with the readings. */
   newSites: SiteDoc[];
   errors: RowIssue[];
@@ -48,6 +54,7 @@ export async function planImport(
   const plan: ImportPlan = {
     readings: [],
     readingLines: [],
+    updatedAtGiven: [],
     newSites: [],
     errors,
     duplicateRows: [],
@@ -76,10 +83,15 @@ export async function planImport(
   const cSite = col('site');
   const cNotes = col('notes');
   const cScale = col('ph-scale');
+  const cReadingId = col('reading-id');
+  const cUpdatedAt = col('updated-at');
+  const cSiteKind = col('site-kind');
   const valueCols = mapping.columns.flatMap((c, i) => {
-    if (c.role !== 'value') return [];
+    if (c.role !== 'value' && c.role !== 'titration-value') return [];
     const q = quantityById(c.quantity)!;
-    return [{ index: i, q, unit: q.units.find((x) => x.id === c.unit)! }];
+    return [
+      { index: i, q, unit: q.units.find((x) => x.id === c.unit)!, titration: c.role === 'titration-value' },
+    ];
   });
   const seenIds = new Map<string, number>();
   const decimalComma = csv.sniff.decimalComma;
@@ -100,11 +112,12 @@ export async function planImport(
         site =
           known.get(name.toLowerCase()) ?? known.get(normalizeName(name)) ?? created.get(normalizeName(name));
         if (!site) {
+          const kindText = cell(cSiteKind).toLowerCase();
           site = {
             id: contentId(siteCanonical(name)),
             type: 'site',
             name: name.replace(/\s+/g, ' '),
-            kind: 'other',
+            kind: SITE_KINDS.find((k) => k === kindText) ?? 'other',
             defaults: {},
             notes: 'Created by CSV import.',
             updatedAt,
@@ -149,7 +162,7 @@ export async function planImport(
     }
     const measured: MeasuredValue[] = [];
     const values: Record<string, number> = {};
-    for (const { index, q, unit } of valueCols) {
+    for (const { index, q, unit, titration } of valueCols) {
       const raw = cell(index);
       if (raw === '') continue;
       const x = parseNumber(raw, decimalComma);
@@ -178,6 +191,12 @@ export async function planImport(
         continue;
       }
       const stored = storedForm(q, unit, x);
+      if (titration) {
+        // A titration's result: kept apart from typed values, and part of the content id as such.
+        measured.push({ quantity: q.id, value: stored.value, unit: stored.unit, source: 'titration' });
+        values[`titration_${unit.key}`] = k;
+        continue;
+      }
       if (q.id === 'ph' && scale) stored.unit = scale;
       measured.push({ quantity: q.id, value: stored.value, unit: stored.unit });
       values[unit.key] = k;
@@ -189,15 +208,36 @@ export async function planImport(
       rowErrors.push(rowIssue(line, 'row-no-values', 'This row has no measured values.'));
     }
 
+    // Identity: the reading's own id when the file carries it (our export does), else its content.
+    const givenId = cell(cReadingId);
+    if (givenId !== '' && !READING_ID.test(givenId)) {
+      rowErrors.push(
+        rowIssue(line, 'reading-id-invalid', `"${givenId}" is not a reading id.`, header[cReadingId]),
+      );
+    }
+    const changedText = cell(cUpdatedAt);
+    const changed = changedText === '' ? undefined : Date.parse(changedText);
+    if (changed !== undefined && !Number.isFinite(changed)) {
+      rowErrors.push(
+        rowIssue(line, 'time-unreadable', `"${changedText}" is not an ISO 8601 time.`, header[cUpdatedAt]),
+      );
+    }
+
     if (rowErrors.length > 0 || !site || !takenAt) {
       errors.push(...rowErrors);
       continue;
     }
-    const id = contentId(readingCanonical(site.id, takenAt, values));
+    const id = givenId !== '' ? givenId : contentId(readingCanonical(site.id, takenAt, values));
     const earlier = seenIds.get(id);
     if (earlier !== undefined) {
       plan.duplicateRows.push(
-        rowIssue(line, 'row-duplicate', `Same site, time and values as line ${earlier}.`),
+        rowIssue(
+          line,
+          'row-duplicate',
+          givenId !== ''
+            ? `Same reading id as line ${earlier}.`
+            : `Same site, time and values as line ${earlier}.`,
+        ),
       );
       continue;
     }
@@ -210,11 +250,12 @@ export async function planImport(
       timeZone: zone,
       values: measured,
       notes: cell(cNotes),
-      updatedAt,
+      updatedAt: changed !== undefined ? new Date(changed).toISOString() : updatedAt,
       deleted: false,
     };
     plan.readings.push(reading);
     plan.readingLines.push(line);
+    plan.updatedAtGiven.push(changed !== undefined);
   }
   plan.newSites = [...created.values()];
   return plan;

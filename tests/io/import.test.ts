@@ -7,8 +7,10 @@ import { exportReadingsCsv } from '../../src/io/export-csv';
 import { commitImport, previewImport, warningsFromResults } from '../../src/io/import-commit';
 import { planImport } from '../../src/io/import-plan';
 import { mappingFromRecord, mappingToRecord } from '../../src/io/layout-memory';
-import { engineValues, solveInputOf } from '../../src/io/solve-input';
+import { engineValues } from '../../src/io/solve-input';
+import { readingRequest } from '../../src/reading/request';
 import { openRepository } from '../../src/store/repository';
+import type { ReadingDoc } from '../../src/store/schema';
 import { RepositoryStore } from '../../src/sync/repository-store';
 
 let n = 0;
@@ -191,10 +193,13 @@ describe('CSV import', () => {
     const text = exportReadingsCsv(await repo.listAllReadings(), sites);
     const lines = text.split('\r\n');
     expect(lines[0]).toBe(
-      'reading_id,site,site_id,taken_at,time_zone,ph_scale,temperature_c,ph,alkalinity_meq_l,specific_conductance_us_cm,notes',
+      'reading_id,site,site_id,site_kind,taken_at,time_zone,updated_at,ph_scale,temperature_c,ph,alkalinity_meq_l,specific_conductance_us_cm,titration_alkalinity_meq_l,titration_dic_umol_kg,input_sources,notes',
     );
+    const pond = sites.find((s) => s.name === 'Mill pond')!;
+    const pondReading = (await repo.listReadings(pond.id))[0]!;
+    // The pH scale written is the one the reading is computed with (Settings here: NBS).
     expect(lines).toContain(
-      `${(await repo.listReadings(sites.find((s) => s.name === 'Mill pond')!.id))[0]!.id},Mill pond,${sites.find((s) => s.name === 'Mill pond')!.id},2026-06-03T14:05:00+02:00,Europe/Vienna,,17.9,8.34,2.41,355,algae`,
+      `${pondReading.id},Mill pond,${pond.id},other,2026-06-03T14:05:00+02:00,Europe/Vienna,${pondReading.updatedAt},nbs,17.9,8.34,2.41,355,,,temperature_c=typed;ph=typed;alkalinity_meq_l=typed;specific_conductance_us_cm=typed,algae`,
     );
     expect(text).toContain(',clear; slight odour\r\n'); // no quotes needed: no comma inside
     const back = await importText(store, text);
@@ -202,8 +207,10 @@ describe('CSV import', () => {
     const { store: other, repo: otherRepo } = await fresh();
     const into = await importText(other, text);
     expect(into.report).toMatchObject({ ok: true, written: 3, sitesCreated: 2 });
-    const a = (await repo.listAllReadings()).map((r) => [r.takenAt, r.values, r.notes]).sort();
-    const b = (await otherRepo.listAllReadings()).map((r) => [r.takenAt, r.values, r.notes]).sort();
+    // Same ids; the values are the same, with the pH now naming the scale it was computed on.
+    const named = (r: ReadingDoc) => r.values.map((v) => (v.unit === 'ph' ? { ...v, unit: 'nbs' } : v));
+    const a = (await repo.listAllReadings()).map((r) => [r.id, r.takenAt, named(r), r.notes]).sort();
+    const b = (await otherRepo.listAllReadings()).map((r) => [r.id, r.takenAt, r.values, r.notes]).sort();
     expect(b).toEqual(a);
   });
 });
@@ -248,7 +255,7 @@ describe('results computed elsewhere (the app solves in its engine worker)', () 
     );
     const plan = await planImport(csv, defaultMapping(csv.table.header, 'UTC'), []);
     const bySite = new Map(plan.newSites.map((s) => [s.id, s]));
-    const results = plan.readings.map((r) => solve(solveInputOf(r, bySite.get(r.siteId))));
+    const results = plan.readings.map((r) => solve(readingRequest(r, bySite.get(r.siteId)).input));
     expect(warningsFromResults(plan, results)).toEqual(
       (
         await commitImport(
@@ -268,7 +275,7 @@ describe('results computed elsewhere (the app solves in its engine worker)', () 
     const readings = await repo.listAllReadings();
     const sites = await repo.listSites();
     const byId = new Map(sites.map((s) => [s.id, s]));
-    const given = new Map(readings.map((r) => [r.id, solve(solveInputOf(r, byId.get(r.siteId)))]));
+    const given = new Map(readings.map((r) => [r.id, solve(readingRequest(r, byId.get(r.siteId)).input)]));
     const a = exportReadingsCsv(readings, sites, { solve });
     expect(exportReadingsCsv(readings, sites, { results: given })).toBe(a);
     expect(a).toContain('computed_dic_umol_kg');

@@ -11,13 +11,11 @@ import type { TitrateOutcome } from '../../chem/titration/titrate';
 import { storeIssue } from '../../store/errors';
 import type { MeasuredValue, ReadingDoc, SiteDoc } from '../../store/schema';
 import { useApp } from '../app-context';
-import { solveInWorker, titrateInWorker } from '../engine-client';
+import { solveReadingInWorker } from '../engine-client';
 import { formatNumber, parseDecimal } from '../numbers';
 import { plainWords } from '../plain-words';
 import { QUANTITIES, quantity, quantityForKey } from '../quantities';
 import { go } from '../router';
-import { readingInput } from '../solve-context';
-import { titrationInput, withTitration } from '../titration';
 import { ResultsPanel } from './ResultsPanel';
 import {
   EMPTY_TITRATION,
@@ -135,15 +133,10 @@ export function ReadingEntryScreen(props: { siteId?: string; readingId?: string 
     const mine = ++seq.current;
     setBusy(true);
     const t = setTimeout(async () => {
-      let reduced: TitrateOutcome | undefined;
-      if (titration.record) {
-        const ti = titrationInput(titration.record, values);
-        reduced = 'code' in ti ? { error: ti } : await titrateInWorker(ti);
-      }
-      const { input } = readingInput(values, site, settings);
-      const r = await solveInWorker(
-        withTitration(input, reduced && !('error' in reduced) ? reduced : undefined),
-      );
+      // The draft goes through the same request function as a stored reading (in the worker).
+      const draft = titration.record ? { values, titration: titration.record } : { values };
+      const { request, result: r } = await solveReadingInWorker(draft, site, settings);
+      const reduced = request.titration;
       if (mine !== seq.current) return; // a newer keystroke won
       setToutcome(reduced);
       setResult(r);

@@ -1,6 +1,6 @@
 /** The page's side of the engine worker: promise per request, one worker for the app's life. */
 
-import type { SolveInput, SolveResult } from '../chem/api';
+import type { SolveResult } from '../chem/api';
 import type { ReadingFacts, ReadingRequest, RequestSettings } from '../reading/request';
 import type { SiteDoc } from '../store/schema';
 import type { EngineRequest, EngineResponse, ReadingJob, RequestSummary } from './engine.worker';

@@ -23,6 +23,8 @@ export type ColumnRole =
   /** `total`, `free`, `seawater` or `nbs` per row. */
   | { role: 'ph-scale' }
   | { role: 'value'; quantity: string; unit: string }
+  /** The site's own id (our export's `site_id`): rows go to that site, or one created with that id. */
+  | { role: 'site-id' }
   /** The reading's own id (our export's `reading_id`): the same reading, never a copy. */
   | { role: 'reading-id' }
   /** When the reading last changed (ISO 8601): an import replaces only an older copy. */
@@ -119,6 +121,7 @@ const EXACT = new Map<string, ColumnRole>([
   ['notes', { role: 'notes' }],
   ['ph_scale', { role: 'ph-scale' }],
   ['reading_id', { role: 'reading-id' }],
+  ['site_id', { role: 'site-id' }],
   ['updated_at', { role: 'updated-at' }],
   ['site_kind', { role: 'site-kind' }],
   ['titration_alkalinity_meq_l', { role: 'titration-value', quantity: 'alkalinity', unit: 'meq_l' }],

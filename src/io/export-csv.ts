@@ -105,7 +105,8 @@ export function exportReadingsCsv(
       formatWithOffset(Date.parse(r.takenAt), r.timeZone),
       r.timeZone,
       r.updatedAt,
-      ...(hasScale ? [String(requests[i]!.input.ph_scale ?? opts.ph_scale ?? '')] : []),
+      // Only a scale the reading names: a re-import must store the very same values (same reading).
+      ...(hasScale ? [opts.ph_scale ?? ''] : []),
       ...valueKeys.map((k) => formatNumber(values[k])),
       formatNumber(fromTitration(i, 'alkalinity_meq_l')),
       formatNumber(fromTitration(i, 'dic_umol_kg')),

@@ -74,6 +74,7 @@ export async function planImport(
     return plan;
   }
   const created = new Map<string, SiteDoc>();
+  const createdById = new Map<string, SiteDoc>();
   const updatedAt = now.toISOString();
   const col = (role: string) => mapping.columns.findIndex((c) => c.role === role);
   const cTimestamp = col('timestamp');
@@ -86,6 +87,7 @@ export async function planImport(
   const cReadingId = col('reading-id');
   const cUpdatedAt = col('updated-at');
   const cSiteKind = col('site-kind');
+  const cSiteId = col('site-id');
   const valueCols = mapping.columns.flatMap((c, i) => {
     if (c.role !== 'value' && c.role !== 'titration-value') return [];
     const q = quantityById(c.quantity)!;
@@ -102,19 +104,30 @@ export async function planImport(
     const rowErrors: RowIssue[] = [];
     const cell = (i: number) => (i >= 0 ? (row[i] ?? '').trim() : '');
 
-    // Site
+    // Site: by its own id when the file carries it (our export does), else by name.
     let site = fixedSite;
-    if (cSite >= 0) {
+    const siteIdText = cell(cSiteId);
+    if (siteIdText !== '' && !READING_ID.test(siteIdText)) {
+      rowErrors.push(
+        rowIssue(line, 'reading-id-invalid', `"${siteIdText}" is not a site id.`, header[cSiteId]),
+      );
+    }
+    const byGivenId =
+      siteIdText !== '' ? (known.get(siteIdText.toLowerCase()) ?? createdById.get(siteIdText)) : undefined;
+    if (byGivenId) site = byGivenId;
+    else if (cSite >= 0) {
       const name = cell(cSite);
       if (name === '') {
         rowErrors.push(rowIssue(line, 'site-missing', 'No site is given in this row.', header[cSite]));
       } else {
         site =
-          known.get(name.toLowerCase()) ?? known.get(normalizeName(name)) ?? created.get(normalizeName(name));
+          (siteIdText === '' ? known.get(name.toLowerCase()) : undefined) ??
+          (siteIdText === '' ? known.get(normalizeName(name)) : undefined) ??
+          (siteIdText === '' ? created.get(normalizeName(name)) : undefined);
         if (!site) {
           const kindText = cell(cSiteKind).toLowerCase();
           site = {
-            id: contentId(siteCanonical(name)),
+            id: siteIdText !== '' ? siteIdText : contentId(siteCanonical(name)),
             type: 'site',
             name: name.replace(/\s+/g, ' '),
             kind: SITE_KINDS.find((k) => k === kindText) ?? 'other',
@@ -123,7 +136,8 @@ export async function planImport(
             updatedAt,
             deleted: false,
           };
-          created.set(normalizeName(name), site);
+          if (siteIdText !== '') createdById.set(siteIdText, site);
+          else created.set(normalizeName(name), site);
         }
       }
     }
@@ -257,6 +271,6 @@ export async function planImport(
     plan.readingLines.push(line);
     plan.updatedAtGiven.push(changed !== undefined);
   }
-  plan.newSites = [...created.values()];
+  plan.newSites = [...created.values(), ...createdById.values()];
   return plan;
 }

@@ -32,6 +32,7 @@ export function roleFromString(s: string | undefined): ColumnRole {
     'notes',
     'ph-scale',
     'reading-id',
+    'site-id',
     'updated-at',
     'site-kind',
   ] as const;

@@ -197,9 +197,10 @@ describe('CSV import', () => {
     );
     const pond = sites.find((s) => s.name === 'Mill pond')!;
     const pondReading = (await repo.listReadings(pond.id))[0]!;
-    // The pH scale written is the one the reading is computed with (Settings here: NBS).
+    // The pH scale column names only a scale the reading itself names (none here): a re-import
+    // stores the very same values; the scale used is in input_sources.
     expect(lines).toContain(
-      `${pondReading.id},Mill pond,${pond.id},other,2026-06-03T14:05:00+02:00,Europe/Vienna,${pondReading.updatedAt},nbs,17.9,8.34,2.41,355,,,temperature_c=typed;ph=typed;alkalinity_meq_l=typed;specific_conductance_us_cm=typed,algae`,
+      `${pondReading.id},Mill pond,${pond.id},other,2026-06-03T14:05:00+02:00,Europe/Vienna,${pondReading.updatedAt},,17.9,8.34,2.41,355,,,temperature_c=typed;ph=typed;alkalinity_meq_l=typed;specific_conductance_us_cm=typed,algae`,
     );
     expect(text).toContain(',clear; slight odour\r\n'); // no quotes needed: no comma inside
     const back = await importText(store, text);
@@ -207,10 +208,10 @@ describe('CSV import', () => {
     const { store: other, repo: otherRepo } = await fresh();
     const into = await importText(other, text);
     expect(into.report).toMatchObject({ ok: true, written: 3, sitesCreated: 2 });
-    // Same ids; the values are the same, with the pH now naming the scale it was computed on.
-    const named = (r: ReadingDoc) => r.values.map((v) => (v.unit === 'ph' ? { ...v, unit: 'nbs' } : v));
-    const a = (await repo.listAllReadings()).map((r) => [r.id, r.takenAt, named(r), r.notes]).sort();
-    const b = (await otherRepo.listAllReadings()).map((r) => [r.id, r.takenAt, r.values, r.notes]).sort();
+    // The same readings: same ids, sites, times, values, notes and last change.
+    const facts = (r: ReadingDoc) => [r.id, r.siteId, r.takenAt, r.values, r.notes, r.updatedAt];
+    const a = (await repo.listAllReadings()).map(facts).sort();
+    const b = (await otherRepo.listAllReadings()).map(facts).sort();
     expect(b).toEqual(a);
   });
 });

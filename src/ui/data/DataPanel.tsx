@@ -33,6 +33,7 @@ const ROLE_OPTIONS: { value: string; label: string }[] = [
   { value: 'notes', label: 'Notes' },
   { value: 'ph-scale', label: 'pH scale' },
   { value: 'reading-id', label: 'Reading id (same reading, never a copy)' },
+  { value: 'site-id', label: 'Site id (same site, never a copy)' },
   { value: 'updated-at', label: 'Last changed (replaces only older copies)' },
   { value: 'site-kind', label: 'Kind of site' },
   { value: 'titration-value:alkalinity:meq_l', label: 'Alkalinity from a titration — meq/L' },

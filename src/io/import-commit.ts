@@ -142,7 +142,12 @@ export async function commitImport(
     const old = stored.get(r.id);
     return old !== undefined && !old.deleted && old.type === 'reading' && r.updatedAt > old.updatedAt;
   });
-  const readings = [...plan.readings.filter((r) => !existing.has(r.id)), ...newer];
+  // A replaced reading keeps this device's server revision, so its next push updates, not conflicts.
+  const replacing = newer.map((r) => {
+    const rev = stored.get(r.id)?.rev;
+    return rev === undefined ? r : { ...r, rev };
+  });
+  const readings = [...plan.readings.filter((r) => !existing.has(r.id)), ...replacing];
   try {
     if (sites.length + readings.length > 0) await target.bulkPut([...sites, ...readings]);
   } catch (e) {

@@ -319,7 +319,7 @@ function PlanResultView({ out }: { out: PlanOutput }) {
           </thead>
           <tbody>
             {rows.map((r) => (
-              <tr>
+              <tr data-key={r.key} data-before={String(r.before)} data-after={String(r.after)}>
                 <th scope="row" style={{ ...S.cell, textAlign: 'left', fontWeight: 400 }}>
                   {r.label}
                 </th>

@@ -1,0 +1,138 @@
+/**
+ * Issue 10, end to end on the built app: a reading whose alkalinity comes only from its field
+ * titration gives the same computed outputs (1e-9 relative) on the reading page, in the planner's
+ * "before" column, in the CSV export, and on another device after re-importing that CSV; and the
+ * reading page says where each input came from.
+ */
+import { readFileSync } from 'node:fs';
+import type { Browser, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { solve } from '../../src/chem/solve';
+import { readingRequest } from '../../src/reading/request';
+import type { MeasuredValue, SiteDoc } from '../../src/store/schema';
+import { DEFAULT_SETTINGS } from '../../src/store/settings';
+import { KESTREL } from '../reading/fixtures';
+import { launch, newContext, openApp, screenshot } from './browser';
+
+const base = inject('baseUrl');
+let browser: Browser;
+beforeAll(async () => {
+  browser = await launch();
+});
+afterAll(async () => browser?.close());
+
+/** Outputs compared on every path (all are on the reading page and in the CSV). */
+const KEYS = ['dic_umol_kg', 'alkalinity_umol_kg', 'pco2_uatm', 'co2_umol_kg', 'hco3_umol_kg', 'co3_umol_kg'];
+const near = (a: number, b: number) => Math.abs(a - b) / Math.max(Math.abs(b), 1e-300);
+
+async function readingPageValues(page: Page): Promise<Record<string, number>> {
+  const out: Record<string, number> = {};
+  for (const k of KEYS) {
+    const el = page.locator(`.results .output[data-key="${k}"]`).first();
+    await el.waitFor({ timeout: 20_000 });
+    out[k] = Number(await el.getAttribute('data-value'));
+  }
+  return out;
+}
+
+describe('one reading, one truth', () => {
+  it('a titration-only reading is the same on its page, in the planner, the CSV and after re-import', async () => {
+    const values: MeasuredValue[] = [
+      { quantity: 'temperature', value: 11.2, unit: 'c' },
+      { quantity: 'ph', value: 7.16, unit: 'ph' },
+      { quantity: 'conductance', value: 480, unit: 'us_cm' },
+    ];
+    const site = { defaults: { model: 'fresh' } } as SiteDoc;
+    const truth = solve(readingRequest({ values, titration: KESTREL }, site, DEFAULT_SETTINGS).input);
+    if ('error' in truth) throw new Error(truth.error.message);
+
+    const page = await (await newContext(browser)).newPage();
+    await openApp(page, base);
+    await page.getByRole('link', { name: 'New site' }).click();
+    await page.getByLabel('Name').fill('Kestrel Hollow spring');
+    await page.getByLabel('Kind of water').selectOption('spring');
+    await page.getByLabel('Water model').selectOption('fresh');
+    await page.getByRole('button', { name: 'Save site' }).click();
+    await page.getByRole('heading', { name: 'Kestrel Hollow spring' }).waitFor();
+    await page.getByRole('link', { name: 'New reading' }).click();
+    await page.getByLabel('Temperature', { exact: true }).fill('11.2');
+    await page.getByLabel('pH', { exact: true }).fill('7.16');
+    await page.getByLabel('Specific conductance (25 °C)', { exact: true }).fill('480');
+    await page.getByText('Field titration (optional)').click();
+    await page.getByLabel('Sample volume (mL)').fill(String(KESTREL.sampleVolumeMl));
+    await page.getByLabel('Acid normality (eq/L)').fill(String(KESTREL.titrantNormality));
+    await page
+      .getByLabel('Points: acid added (mL) and pH, one pair per line')
+      .fill(KESTREL.points.map((p) => `${p.volumeMl}\t${p.ph}`).join('\n'));
+    await page.locator('.results .output[data-key="dic_umol_kg"]').waitFor({ timeout: 20_000 });
+    await page.getByRole('button', { name: 'Save reading' }).click();
+    await page.getByRole('heading', { name: 'Titration' }).waitFor();
+    const readingId = decodeURIComponent(page.url().split('#/reading/')[1]!.split('/')[0]!);
+
+    // 1. The reading page (after a reload, from the store), with where each input came from.
+    await page.reload();
+    await page.waitForSelector('html[data-ready="true"]');
+    const onPage = await readingPageValues(page);
+    for (const k of KEYS)
+      expect(near(onPage[k]!, truth[k as keyof typeof truth] as number), k).toBeLessThan(1e-9);
+    const alkRow = page.locator('[data-testid="inputs-used"] tr[data-key="alkalinity_meq_l"]');
+    expect(await alkRow.getAttribute('data-source')).toBe('titration');
+    await page.getByText('Inputs used and where they came from').click();
+    await screenshot(page, '40-reading-inputs-used');
+
+    // 2. The planner's "before" column.
+    await page.getByRole('button', { name: 'Plan a dose, aeration or mix for this water' }).click();
+    await page.getByLabel('What to do').selectOption('equilibrate');
+    await page.getByRole('button', { name: 'Show the result' }).click();
+    for (const k of KEYS) {
+      const row = page.locator(`tr[data-key="${k}"]`).first();
+      await row.waitFor({ timeout: 20_000 });
+      expect(near(Number(await row.getAttribute('data-before')), onPage[k]!), `planner ${k}`).toBeLessThan(
+        1e-9,
+      );
+    }
+    await page.getByRole('button', { name: 'Save plan with this reading' }).click();
+    await page.getByTestId('saved-plan').waitFor();
+    await screenshot(page, '41-reading-saved-plan');
+
+    // 3. The CSV export of the site.
+    await page.locator(`a[href^="#/site/"]`).first().click();
+    const [download] = await Promise.all([
+      page.waitForEvent('download'),
+      page.getByRole('button', { name: 'Download CSV of this site' }).click(),
+    ]);
+    const csv = readFileSync((await download.path())!, 'utf8');
+    const [head, row] = csv.split('\r\n');
+    const header = head!.split(',');
+    const cells = row!.split(',');
+    const cell = (k: string) => cells[header.indexOf(k)]!;
+    expect(cell('reading_id')).toBe(readingId);
+    expect(cell('site_kind')).toBe('spring');
+    expect(cell('input_sources')).toContain('alkalinity_meq_l=titration');
+    // CSV numbers carry 12 significant digits.
+    for (const k of KEYS)
+      expect(near(Number(cell(`computed_${k}`)), onPage[k]!), `csv ${k}`).toBeLessThan(1e-9);
+
+    // 4. Re-imported on another device (a fresh browser profile): same id, same outputs, same kind.
+    const other = await (await newContext(browser)).newPage();
+    await openApp(other, base);
+    await other.getByRole('link', { name: 'Settings' }).click();
+    await other
+      .getByLabel('File from a logger or spreadsheet')
+      .setInputFiles({ name: 'kestrel.csv', mimeType: 'text/csv', buffer: Buffer.from(csv) });
+    await other.getByText('1 readings ready').or(other.getByText('1 reading ready')).waitFor();
+    await other.getByRole('button', { name: /^Import/ }).click();
+    await other.getByText(/Imported 1 readings? and 1 new site/).waitFor();
+    await other.goto(`${base}#/reading/${readingId}`);
+    await other.waitForSelector('html[data-ready="true"]');
+    const again = await readingPageValues(other);
+    for (const k of KEYS) expect(near(again[k]!, onPage[k]!), `re-import ${k}`).toBeLessThan(1e-9);
+    expect(
+      await other
+        .locator('[data-testid="inputs-used"] tr[data-key="alkalinity_meq_l"]')
+        .getAttribute('data-source'),
+    ).toBe('titration');
+    await other.locator('a[href^="#/site/"]').first().click();
+    await other.getByText('spring', { exact: false }).first().waitFor();
+  }, 120_000);
+});

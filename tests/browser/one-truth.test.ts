@@ -94,6 +94,16 @@ describe('one reading, one truth', () => {
     await page.getByRole('button', { name: 'Save plan with this reading' }).click();
     await page.getByTestId('saved-plan').waitFor();
     await screenshot(page, '41-reading-saved-plan');
+    // After a reload the plan is still on the page and reopens with its own settings.
+    await page.reload();
+    await page.waitForSelector('html[data-ready="true"]');
+    await page.getByTestId('saved-plan').waitFor();
+    expect(await page.getByTestId('saved-plan').textContent()).toContain(
+      'Exchange CO2 towards 420 µatm in 100 L',
+    );
+    await page.getByRole('button', { name: 'Open the saved plan in the planner' }).click();
+    expect(await page.getByLabel('What to do').inputValue()).toBe('equilibrate');
+    await page.locator('tr[data-key="dic_umol_kg"]').first().waitFor();
 
     // 3. The CSV export of the site.
     await page.locator(`a[href^="#/site/"]`).first().click();

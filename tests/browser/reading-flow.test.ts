@@ -92,7 +92,9 @@ describe('site and reading', () => {
     await page.getByRole('heading', { name: 'Cautions' }).waitFor({ timeout: 15_000 });
     await screenshot(page, '04b-plan-panel');
     await page.getByRole('button', { name: 'Save plan with this reading' }).click();
-    await expect.poll(() => page.getByText('A plan is saved with this reading.').count()).toBe(1);
+    // The saved plan shows on the reading page: what was planned and the predicted water.
+    await page.getByTestId('saved-plan').waitFor();
+    expect(await page.getByTestId('saved-plan-water').count()).toBe(1);
     const detailUrl = page.url();
 
     await page.reload();

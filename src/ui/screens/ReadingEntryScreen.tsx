@@ -66,6 +66,7 @@ export function ReadingEntryScreen(props: { siteId?: string; readingId?: string 
   const { repo, settings, locale, notify, dataChanged } = useApp();
   const [site, setSite] = useState<SiteDoc>();
   const [existing, setExisting] = useState<ReadingDoc>();
+  const [carried, setCarried] = useState<MeasuredValue[]>([]);
   const [rows, setRows] = useState<Row[]>([]);
   const [when, setWhen] = useState(() => toLocalInput(new Date()));
   const [notes, setNotes] = useState('');
@@ -85,7 +86,14 @@ export function ReadingEntryScreen(props: { siteId?: string; readingId?: string 
         if (r) {
           setExisting(r);
           s = await repo.getSite(r.siteId);
-          setRows(rowsFrom(r.values, locale));
+          // A titration's result carried by an imported file is not typed: it stays as it is.
+          setRows(
+            rowsFrom(
+              r.values.filter((v) => v.source === undefined),
+              locale,
+            ),
+          );
+          setCarried(r.values.filter((v) => v.source !== undefined));
           setWhen(toLocalInput(new Date(r.takenAt)));
           setNotes(r.notes);
           setTform(formFromRecord(r.titration));
@@ -115,9 +123,12 @@ export function ReadingEntryScreen(props: { siteId?: string; readingId?: string 
       }),
     [rows, locale],
   );
-  const values: MeasuredValue[] = parsed
-    .filter((p) => p.value !== undefined)
-    .map((p) => ({ quantity: p.row.quantity, unit: p.row.unit, value: p.value as number }));
+  const values: MeasuredValue[] = [
+    ...parsed
+      .filter((p) => p.value !== undefined)
+      .map((p) => ({ quantity: p.row.quantity, unit: p.row.unit, value: p.value as number })),
+    ...carried,
+  ];
   const valuesKey = JSON.stringify(values);
 
   const titration = useMemo(() => recordFromForm(tform, locale), [tform, locale]);

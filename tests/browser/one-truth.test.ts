@@ -2,7 +2,7 @@
  * Issue 10, end to end on the built app: a reading whose alkalinity comes only from its field
  * titration gives the same computed outputs (1e-9 relative) on the reading page, in the planner's
  * "before" column, in the CSV export, on another device after re-importing that CSV, and on a
- * third after restoring a backup; the reading page says where each input came from, and a saved
+ * third after restoring a backup, and on a fourth after sync; the reading page says where each input came from, and a saved
  * plan shows again and reopens with its settings.
  */
 import { readFileSync } from 'node:fs';
@@ -13,14 +13,37 @@ import { readingRequest } from '../../src/reading/request';
 import type { MeasuredValue, SiteDoc } from '../../src/store/schema';
 import { DEFAULT_SETTINGS } from '../../src/store/settings';
 import { KESTREL } from '../reading/fixtures';
+import { CouchServer } from '../sync/couch-server';
 import { launch, newContext, openApp, screenshot } from './browser';
 
 const base = inject('baseUrl');
+const server = new CouchServer({ shared: true });
+const DB = `tufa-one-truth-${process.pid}-${Date.now()}`;
 let browser: Browser;
 beforeAll(async () => {
+  await server.start();
+  await server.createDb(DB);
   browser = await launch();
+}, 30_000);
+afterAll(async () => {
+  await browser?.close();
+  await server.stop();
 });
-afterAll(async () => browser?.close());
+
+/** Sets up sharing with the test server (Settings) and syncs once. */
+async function shareAndSync(p: Page): Promise<void> {
+  await p.getByRole('link', { name: 'Settings' }).click();
+  await p.getByLabel('Server address').fill(server.url);
+  await p.getByLabel('Database name').fill(DB);
+  await p.getByLabel('Sign-in').selectOption('none');
+  await p.getByRole('button', { name: 'Check and save' }).click();
+  const panel = p.locator('section[aria-labelledby="sync-h"]');
+  await expect.poll(() => panel.textContent(), { timeout: 20_000 }).toContain('Up to date.');
+  await p.getByRole('button', { name: 'Sync now' }).click();
+  await expect
+    .poll(() => p.getByTestId('sync-badge').textContent(), { timeout: 20_000 })
+    .toMatch(/synced \d\d:\d\d$/);
+}
 
 /** Outputs compared on every path (all are on the reading page and in the CSV). */
 const KEYS = ['dic_umol_kg', 'alkalinity_umol_kg', 'pco2_uatm', 'co2_umol_kg', 'hco3_umol_kg', 'co3_umol_kg'];
@@ -37,7 +60,7 @@ async function readingPageValues(page: Page): Promise<Record<string, number>> {
 }
 
 describe('one reading, one truth', () => {
-  it('a titration-only reading is the same on its page, in the planner, the CSV, after re-import and restore', async () => {
+  it('a titration-only reading is the same on its page, in the planner, the CSV, after re-import, restore and sync', async () => {
     const values: MeasuredValue[] = [
       { quantity: 'temperature', value: 11.2, unit: 'c' },
       { quantity: 'ph', value: 7.16, unit: 'ph' },
@@ -161,5 +184,15 @@ describe('one reading, one truth', () => {
     for (const k of KEYS) expect(near(restored[k]!, onPage[k]!), `restore ${k}`).toBeLessThan(1e-9);
     await third.getByRole('heading', { name: 'Titration' }).waitFor();
     await third.getByTestId('saved-plan').waitFor();
-  }, 150_000);
+
+    // 6. Synced to a second phone through the server: same id, same outputs.
+    await shareAndSync(page);
+    const fourth = await (await newContext(browser)).newPage();
+    await openApp(fourth, base);
+    await shareAndSync(fourth);
+    await fourth.goto(`${base}#/reading/${readingId}`);
+    await fourth.waitForSelector('html[data-ready="true"]');
+    const synced = await readingPageValues(fourth);
+    for (const k of KEYS) expect(near(synced[k]!, onPage[k]!), `sync ${k}`).toBeLessThan(1e-9);
+  }, 180_000);
 });

@@ -31,6 +31,8 @@ export type ColumnRole =
   | { role: 'updated-at' }
   /** Kind of water of a site the import creates (stream, spring, ...). */
   | { role: 'site-kind' }
+  /** Defaults of a site the import creates (`model=fresh;salinity=0.3`, see `site-defaults-text.ts`). */
+  | { role: 'site-defaults' }
   /** A titration's result (no raw points), used where nothing was typed, as on the reading page. */
   | { role: 'titration-value'; quantity: string; unit: string };
 
@@ -124,6 +126,7 @@ const EXACT = new Map<string, ColumnRole>([
   ['site_id', { role: 'site-id' }],
   ['updated_at', { role: 'updated-at' }],
   ['site_kind', { role: 'site-kind' }],
+  ['site_defaults', { role: 'site-defaults' }],
   ['titration_alkalinity_meq_l', { role: 'titration-value', quantity: 'alkalinity', unit: 'meq_l' }],
   ['titration_dic_umol_kg', { role: 'titration-value', quantity: 'dic', unit: 'umol_kg' }],
   ...QUANTITIES.flatMap((q) =>

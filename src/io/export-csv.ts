@@ -11,6 +11,7 @@ import { writeCsv } from './csv-write';
 import type { ReadingDoc, SiteDoc } from './docs';
 import { formatNumber } from './numbers';
 import { KEY_ORDER } from './quantities';
+import { siteDefaultsText } from './site-defaults-text';
 import { engineValues, type Solver } from './solve-input';
 import { formatWithOffset } from './timestamps';
 
@@ -82,6 +83,7 @@ export function exportReadingsCsv(
     'site',
     'site_id',
     'site_kind',
+    'site_defaults',
     'taken_at',
     'time_zone',
     'updated_at',
@@ -102,6 +104,7 @@ export function exportReadingsCsv(
       site?.name ?? '',
       r.siteId,
       site?.kind ?? '',
+      site ? siteDefaultsText(site.defaults) : '',
       formatWithOffset(Date.parse(r.takenAt), r.timeZone),
       r.timeZone,
       r.updatedAt,

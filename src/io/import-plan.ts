@@ -13,6 +13,7 @@ import type { MeasuredValue, ReadingDoc, SiteDoc } from './docs';
 import { type RowIssue, rowIssue } from './io-issues';
 import { parseNumber } from './numbers';
 import { quantityById, storedForm } from './quantities';
+import { parseSiteDefaults } from './site-defaults-text';
 import { isKnownTimeZone, parseTimestamp } from './timestamps';
 
 /** Ids our devices make (uuid) and tests use: letters, digits and `.-_:`, at most 100 characters. */
@@ -88,6 +89,7 @@ export async function planImport(
   const cUpdatedAt = col('updated-at');
   const cSiteKind = col('site-kind');
   const cSiteId = col('site-id');
+  const cSiteDefaults = col('site-defaults');
   const valueCols = mapping.columns.flatMap((c, i) => {
     if (c.role !== 'value' && c.role !== 'titration-value') return [];
     const q = quantityById(c.quantity)!;
@@ -126,12 +128,15 @@ export async function planImport(
           (siteIdText === '' ? created.get(normalizeName(name)) : undefined);
         if (!site) {
           const kindText = cell(cSiteKind).toLowerCase();
+          const defaults = parseSiteDefaults(cell(cSiteDefaults));
+          if ('reason' in defaults)
+            rowErrors.push(rowIssue(line, 'value-out-of-range', defaults.reason, header[cSiteDefaults]));
           site = {
             id: siteIdText !== '' ? siteIdText : contentId(siteCanonical(name)),
             type: 'site',
             name: name.replace(/\s+/g, ' '),
             kind: SITE_KINDS.find((k) => k === kindText) ?? 'other',
-            defaults: {},
+            defaults: 'reason' in defaults ? {} : defaults,
             notes: 'Created by CSV import.',
             updatedAt,
             deleted: false,

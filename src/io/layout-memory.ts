@@ -35,6 +35,7 @@ export function roleFromString(s: string | undefined): ColumnRole {
     'site-id',
     'updated-at',
     'site-kind',
+    'site-defaults',
   ] as const;
   const hit = simple.find((x) => x === s);
   return hit ? ({ role: hit } as ColumnRole) : { role: 'ignore' };

@@ -193,14 +193,14 @@ describe('CSV import', () => {
     const text = exportReadingsCsv(await repo.listAllReadings(), sites);
     const lines = text.split('\r\n');
     expect(lines[0]).toBe(
-      'reading_id,site,site_id,site_kind,taken_at,time_zone,updated_at,ph_scale,temperature_c,ph,alkalinity_meq_l,specific_conductance_us_cm,titration_alkalinity_meq_l,titration_dic_umol_kg,input_sources,notes',
+      'reading_id,site,site_id,site_kind,site_defaults,taken_at,time_zone,updated_at,ph_scale,temperature_c,ph,alkalinity_meq_l,specific_conductance_us_cm,titration_alkalinity_meq_l,titration_dic_umol_kg,input_sources,notes',
     );
     const pond = sites.find((s) => s.name === 'Mill pond')!;
     const pondReading = (await repo.listReadings(pond.id))[0]!;
     // The pH scale column names only a scale the reading itself names (none here): a re-import
     // stores the very same values; the scale used is in input_sources.
     expect(lines).toContain(
-      `${pondReading.id},Mill pond,${pond.id},other,2026-06-03T14:05:00+02:00,Europe/Vienna,${pondReading.updatedAt},,17.9,8.34,2.41,355,,,temperature_c=typed;ph=typed;alkalinity_meq_l=typed;specific_conductance_us_cm=typed,algae`,
+      `${pondReading.id},Mill pond,${pond.id},other,,2026-06-03T14:05:00+02:00,Europe/Vienna,${pondReading.updatedAt},,17.9,8.34,2.41,355,,,temperature_c=typed;ph=typed;alkalinity_meq_l=typed;specific_conductance_us_cm=typed,algae`,
     );
     expect(text).toContain(',clear; slight odour\r\n'); // no quotes needed: no comma inside
     const back = await importText(store, text);

@@ -122,6 +122,44 @@ describe('a titration-only reading in files (defect 1)', () => {
   });
 });
 
+describe('site defaults travel with the file', () => {
+  it('a reading computed with its site salinity and pH scale computes the same elsewhere', async () => {
+    const a = await device(server.url, `${DB}-unused`);
+    const tank = await a.repo.createSite({
+      name: 'Saltmarsh holding tank',
+      kind: 'tank',
+      defaults: { model: 'saline', salinity: 31.5, ph_scale: 'total', units: { alkalinity: 'dkh' } },
+      notes: '',
+    });
+    const r = await a.repo.createReading({
+      siteId: tank.id,
+      takenAt: '2026-06-03T09:00:00.000Z',
+      timeZone: 'Europe/Vienna',
+      values: [
+        { quantity: 'temperature', value: 24, unit: 'c' },
+        { quantity: 'ph', value: 8.02, unit: 'ph' },
+        { quantity: 'alkalinity', value: 8.1, unit: 'dkh' },
+      ],
+      notes: '',
+    });
+    const text = await exportCsv(a);
+    expect(text).toContain(',tank,model=saline;salinity=31.5;ph_scale=total,');
+    const b = await device(server.url, `${DB}-unused`);
+    expect(await importCsv(b, text)).toMatchObject({ ok: true, written: 1, sitesCreated: 1 });
+    const [site] = await b.repo.listSites();
+    expect(site).toMatchObject({
+      id: tank.id,
+      kind: 'tank',
+      defaults: { model: 'saline', salinity: 31.5, ph_scale: 'total' },
+    });
+    expectSame(await computed(a, r.id), await computed(b, r.id));
+    // A cell that is not a site default is a row error, not a guess.
+    const bad = text.replace('salinity=31.5', 'salinity=lots');
+    const c = await device(server.url, `${DB}-unused`);
+    expect((await importCsv(c, bad)).errors.map((e) => e.code)).toEqual(['value-out-of-range']);
+  });
+});
+
 describe('identity across export, import, backup, restore and sync (defect 2)', () => {
   it('leaves exactly one copy of every reading, with its id, on two devices', async () => {
     const { a, titrationOnly } = await seeded();

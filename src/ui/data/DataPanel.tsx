@@ -36,6 +36,7 @@ const ROLE_OPTIONS: { value: string; label: string }[] = [
   { value: 'site-id', label: 'Site id (same site, never a copy)' },
   { value: 'updated-at', label: 'Last changed (replaces only older copies)' },
   { value: 'site-kind', label: 'Kind of site' },
+  { value: 'site-defaults', label: 'Site defaults (model, salinity, …)' },
   { value: 'titration-value:alkalinity:meq_l', label: 'Alkalinity from a titration — meq/L' },
   { value: 'titration-value:dic:umol_kg', label: 'DIC from a titration — µmol/kg' },
   ...QUANTITIES.flatMap((q) =>

@@ -150,6 +150,20 @@ describe('the request of a reading', () => {
     expect(typed.sources.alkalinity_meq_l).toBe('typed');
   });
 
+  it('a titration result carried by a file counts as from the titration, after typed values', () => {
+    const carried: MeasuredValue = { quantity: 'alkalinity', value: 3.9, unit: 'meq_l', source: 'titration' };
+    const t = { quantity: 'temperature', value: 11.2, unit: 'c' };
+    const only = readingRequest(reading([t, carried]), site({}));
+    expect(only.input.alkalinity_meq_l).toBe(3.9);
+    expect(only.sources.alkalinity_meq_l).toBe('titration');
+    const typed = readingRequest(
+      reading([t, carried, { quantity: 'alkalinity', value: 8, unit: 'dkh' }]),
+      site({}),
+    );
+    expect(typed.input).not.toHaveProperty('alkalinity_meq_l');
+    expect(typed.sources.alkalinity_dkh).toBe('typed');
+  });
+
   it('a failed reduction is reported with its code, and nothing is invented in its place', () => {
     const req = readingRequest(reading([{ quantity: 'ph', value: 7.1, unit: 'ph' }], KESTREL), site({}));
     expect(req.titration).toEqual({
@@ -210,12 +224,23 @@ const valueArb: fc.Arbitrary<MeasuredValue[]> = fc
     },
     { requiredKeys: ['temperature'] },
   )
-  .map((r) => Object.values(r) as MeasuredValue[]);
+  .chain((r) =>
+    // Sometimes a titration's result carried by an imported file (used only where nothing was typed).
+    fc
+      .option(fc.double({ min: 0.5, max: 6, noNaN: true }), { nil: undefined })
+      .map((carried) => [
+        ...(Object.values(r) as MeasuredValue[]),
+        ...(carried === undefined
+          ? []
+          : [{ quantity: 'alkalinity', value: carried, unit: 'meq_l', source: 'titration' as const }]),
+      ]),
+  );
 
 const defaultsArb: fc.Arbitrary<SiteDefaults> = fc.record(
   {
     model: fc.constantFrom('saline', 'fresh', 'auto'),
     salinity: fc.double({ min: 0, max: 36, noNaN: true }),
+    specific_conductance_us_cm: fc.double({ min: 50, max: 3000, noNaN: true }),
     ph_scale: fc.constantFrom('total', 'nbs'),
     carbonic_constants: fc.constantFrom('lueker2000', 'millero2010'),
   },

@@ -142,8 +142,11 @@ export function ReadingScreen(props: { readingId: string }) {
             const q = quantity(v.quantity);
             const u = q?.units.find((x) => x.id === v.unit);
             return (
-              <div class="output" key={v.quantity}>
-                <dt>{q?.label ?? v.quantity}</dt>
+              <div class="output" key={`${v.quantity}-${v.source ?? 'typed'}`}>
+                <dt>
+                  {q?.label ?? v.quantity}
+                  {v.source === 'titration' && ' (from a titration)'}
+                </dt>
                 <dd>
                   <span class="value">{formatNumber(v.value, locale, { digits: 6 })}</span>
                   {u && u.label !== 'pH' && <span class="unit"> {u.label}</span>}

@@ -160,6 +160,7 @@ describe('one reading, one truth', () => {
     await other.goto(`${base}#/reading/${readingId}`);
     await other.waitForSelector('html[data-ready="true"]');
     const again = await readingPageValues(other);
+    await screenshot(other, '42-reading-after-csv-reimport');
     for (const k of KEYS) expect(near(again[k]!, onPage[k]!), `re-import ${k}`).toBeLessThan(1e-9);
     expect(
       await other

@@ -8,6 +8,7 @@
  */
 
 import type { CarbonateKey, FreshWaterOutputs, SolvedWater, SolveOutput, SolveResult } from './api';
+import { highPco2Warning, possibleStates } from './consistency';
 import { type Issue, toIssue, warning } from './errors';
 import type { FreshConstantSet } from './fresh/constants';
 import { decideModel, freshContext } from './fresh/setup';
@@ -120,7 +121,12 @@ export function solveRequest(reqIn: SolveRequest, options: SolveOptions = {}): S
   const solveIn = (k: ConstantSet): CarbonateState[] => {
     const va = toInternal(a, req.measured[a]!, phScale, k);
     const vb = toInternal(b, req.measured[b]!, phScale, k);
-    return solvePair(PARAM_OF[a], va, PARAM_OF[b], vb, k, req.minor);
+    // Roots that are no water (negative DIC, absurd pCO2) are dropped; none left is a coded error.
+    return possibleStates(
+      solvePair(PARAM_OF[a], va, PARAM_OF[b], vb, k, req.minor),
+      [a, b],
+      [req.measured[a]!, req.measured[b]!],
+    );
   };
   const sameConditions = req.outTemperatureC === req.temperatureC && req.outPressureDbar === req.pressureDbar;
   const warnings: Issue[] = [...req.warnings, ...decision.warnings, ...(fresh?.plan.warnings ?? [])];
@@ -215,6 +221,8 @@ export function solveRequest(reqIn: SolveRequest, options: SolveOptions = {}): S
 
   addUnique(warnings, kIn.warnings);
   if (!sameConditions) addUnique(warnings, kOut.warnings);
+  const high = highPco2Warning(roots[0]!);
+  if (high) addUnique(warnings, [high]);
   if (roots.length > 1) {
     warnings.push(
       warning(

@@ -18,8 +18,9 @@ import { COMPUTED_COLUMNS } from '../io/export-csv';
 import { planImport } from '../io/import-plan';
 import { formatNumber } from '../io/numbers';
 import { KEY_ORDER, QUANTITIES, quantityById } from '../io/quantities';
-import { engineValues, solveInputOf } from '../io/solve-input';
+import { engineValues } from '../io/solve-input';
 import { formatWithOffset, isKnownTimeZone } from '../io/timestamps';
+import { readingRequest } from '../reading/request';
 import { type CliIo, EXIT_OK, EXIT_ROW_FAILED, EXIT_USAGE } from './io';
 
 export const RECOMPUTE_HELP = `tufa recompute — compute the carbonate system for every row of a logger or spreadsheet CSV
@@ -173,7 +174,7 @@ export async function runRecompute(args: string[], io: CliIo): Promise<number> {
   plan.readings.forEach((r, i) => {
     const s = sitesById.get(r.siteId);
     const { values, options } = converted[i]!;
-    const res = solve(solveInputOf(r, s));
+    const res = solve(readingRequest(r, s).input);
     const row = [
       String(plan.readingLines[i]),
       s?.name ?? '',

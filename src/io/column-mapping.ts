@@ -22,7 +22,19 @@ export type ColumnRole =
   | { role: 'notes' }
   /** `total`, `free`, `seawater` or `nbs` per row. */
   | { role: 'ph-scale' }
-  | { role: 'value'; quantity: string; unit: string };
+  | { role: 'value'; quantity: string; unit: string }
+  /** The site's own id (our export's `site_id`): rows go to that site, or one created with that id. */
+  | { role: 'site-id' }
+  /** The reading's own id (our export's `reading_id`): the same reading, never a copy. */
+  | { role: 'reading-id' }
+  /** When the reading last changed (ISO 8601): an import replaces only an older copy. */
+  | { role: 'updated-at' }
+  /** Kind of water of a site the import creates (stream, spring, ...). */
+  | { role: 'site-kind' }
+  /** Defaults of a site the import creates (`model=fresh;salinity=0.3`, see `site-defaults-text.ts`). */
+  | { role: 'site-defaults' }
+  /** A titration's result (no raw points), used where nothing was typed, as on the reading page. */
+  | { role: 'titration-value'; quantity: string; unit: string };
 
 export interface ColumnMapping {
   /** One role per header column, by position. */
@@ -110,6 +122,13 @@ const EXACT = new Map<string, ColumnRole>([
   ['site', { role: 'site' }],
   ['notes', { role: 'notes' }],
   ['ph_scale', { role: 'ph-scale' }],
+  ['reading_id', { role: 'reading-id' }],
+  ['site_id', { role: 'site-id' }],
+  ['updated_at', { role: 'updated-at' }],
+  ['site_kind', { role: 'site-kind' }],
+  ['site_defaults', { role: 'site-defaults' }],
+  ['titration_alkalinity_meq_l', { role: 'titration-value', quantity: 'alkalinity', unit: 'meq_l' }],
+  ['titration_dic_umol_kg', { role: 'titration-value', quantity: 'dic', unit: 'umol_kg' }],
   ...QUANTITIES.flatMap((q) =>
     q.units
       .filter((u) => u.id === q.units.find((x) => x.key === u.key)?.id)
@@ -161,7 +180,7 @@ export function checkMapping(header: readonly string[], m: ColumnMapping): RowIs
   const seen = new Map<string, number>();
   m.columns.forEach((c, i) => {
     let id: string | undefined;
-    if (c.role === 'value') {
+    if (c.role === 'value' || c.role === 'titration-value') {
       const q = quantityById(c.quantity);
       const unit = q?.units.find((x) => x.id === c.unit);
       if (!q || !unit) {
@@ -175,7 +194,7 @@ export function checkMapping(header: readonly string[], m: ColumnMapping): RowIs
         );
         return;
       }
-      id = `value:${c.quantity}`;
+      id = `${c.role}:${c.quantity}`;
     } else if (c.role !== 'ignore' && c.role !== 'notes') id = c.role;
     if (id === undefined) return;
     const prev = seen.get(id);

@@ -6,11 +6,13 @@
  */
 
 import { isSolveError, type SolveResult } from '../chem/api';
+import { type ReadingRequest, type RequestSettings, readingRequest, sourcesText } from '../reading/request';
 import { writeCsv } from './csv-write';
 import type { ReadingDoc, SiteDoc } from './docs';
 import { formatNumber } from './numbers';
 import { KEY_ORDER } from './quantities';
-import { engineValues, type Solver, solveInputOf } from './solve-input';
+import { siteDefaultsText } from './site-defaults-text';
+import { engineValues, type Solver } from './solve-input';
 import { formatWithOffset } from './timestamps';
 
 /** Outputs written when a solver is given, with our column names. */
@@ -29,12 +31,19 @@ export const COMPUTED_COLUMNS = [
   'revelle_factor',
 ] as const;
 
+/** What a titration gave the request, written so a re-import computes the same (see `import-plan.ts`). */
+export const TITRATION_COLUMNS = ['titration_alkalinity_meq_l', 'titration_dic_umol_kg'] as const;
+
 export interface ExportOptions {
   /** Only this site's readings; all when absent. */
   siteId?: string;
   solve?: Solver;
+  /** Settings the requests are made with (defaults when absent), as on the reading page. */
+  settings?: RequestSettings;
   /** Results already computed (e.g. in the app's engine worker), by reading id; used instead of `solve`. */
   results?: ReadonlyMap<string, SolveResult>;
+  /** The requests those results were computed from, by reading id (made here when absent). */
+  requests?: ReadonlyMap<string, Pick<ReadingRequest, 'input' | 'sources'>>;
   withBom?: boolean;
 }
 
@@ -54,20 +63,34 @@ export function exportReadingsCsv(
   const valueKeys = KEY_ORDER.filter((k) => present.has(k));
   const hasScale = present.has('ph');
   const computing = options.results !== undefined || options.solve !== undefined;
-  const resultOf = (r: ReadingDoc, site: SiteDoc | undefined): SolveResult =>
+  // Every reading's request comes from the one request function (src/reading/request.ts).
+  const requests = rows.map(
+    (r) => options.requests?.get(r.id) ?? readingRequest(r, byId.get(r.siteId), options.settings),
+  );
+  const resultOf = (r: ReadingDoc, i: number): SolveResult =>
     options.results
       ? (options.results.get(r.id) ?? {
           error: { code: 'internal-error', message: 'This reading was not computed.' },
         })
-      : options.solve!(solveInputOf(r, site));
+      : options.solve!(requests[i]!.input);
+  const fromTitration = (i: number, key: string): number | undefined => {
+    const q = requests[i]!;
+    const v = q.input[key];
+    return q.sources[key] === 'titration' && typeof v === 'number' ? v : undefined;
+  };
   const header = [
     'reading_id',
     'site',
     'site_id',
+    'site_kind',
+    'site_defaults',
     'taken_at',
     'time_zone',
+    'updated_at',
     ...(hasScale ? ['ph_scale'] : []),
     ...valueKeys,
+    ...TITRATION_COLUMNS,
+    'input_sources',
     'notes',
     ...(computing
       ? [...COMPUTED_COLUMNS.map((c) => `computed_${c}`), 'computed_model', 'computed_issues']
@@ -80,14 +103,21 @@ export function exportReadingsCsv(
       r.id,
       site?.name ?? '',
       r.siteId,
+      site?.kind ?? '',
+      site ? siteDefaultsText(site.defaults) : '',
       formatWithOffset(Date.parse(r.takenAt), r.timeZone),
       r.timeZone,
-      ...(hasScale ? [opts.ph_scale ?? site?.defaults.ph_scale ?? ''] : []),
+      r.updatedAt,
+      // Only a scale the reading names: a re-import must store the very same values (same reading).
+      ...(hasScale ? [opts.ph_scale ?? ''] : []),
       ...valueKeys.map((k) => formatNumber(values[k])),
+      formatNumber(fromTitration(i, 'alkalinity_meq_l')),
+      formatNumber(fromTitration(i, 'dic_umol_kg')),
+      sourcesText(requests[i]!),
       r.notes,
     ];
     if (computing) {
-      const res = resultOf(r, site);
+      const res = resultOf(r, i);
       if (isSolveError(res)) {
         out.push(...COMPUTED_COLUMNS.map(() => ''), '', `${res.error.code}: ${res.error.message}`);
       } else {

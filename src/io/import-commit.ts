@@ -5,16 +5,22 @@
  */
 
 import { isSolveError, type SolveResult } from '../chem/api';
+import { type RequestSettings, readingRequest } from '../reading/request';
 import type { ReadingDoc, SiteDoc, TufaDoc } from './docs';
 import type { ImportPlan } from './import-plan';
 import { type RowIssue, rowIssue } from './io-issues';
-import { type Solver, solveInputOf } from './solve-input';
+import type { Solver } from './solve-input';
 
 export interface ImportTarget {
   /** Which of these ids already exist (tombstones count: a deleted reading is not revived). */
   existingIds(ids: readonly string[]): Promise<Set<string>>;
   /** Writes every doc in one transaction and queues each for sync; all or nothing. */
   bulkPut(docs: TufaDoc[]): Promise<void>;
+  /**
+   * The stored copies of these ids (tombstones included), so an imported reading that carries its
+   * id replaces only an older copy. Without it, a reading already present is never replaced.
+   */
+  getDocs?(ids: readonly string[]): Promise<Map<string, TufaDoc>>;
 }
 
 export interface ImportReport {
@@ -22,6 +28,8 @@ export interface ImportReport {
   rows: number;
   written: number;
   alreadyPresent: number;
+  /** Readings already present that the file holds in a newer version (same id): replaced. */
+  replaced: number;
   sitesCreated: number;
   duplicateRows: RowIssue[];
   errors: RowIssue[];
@@ -45,21 +53,27 @@ export function previewImport(
   sites: readonly SiteDoc[],
   solve: Solver,
   n = 10,
+  settings?: RequestSettings,
 ): PreviewRow[] {
   const byId = siteMap(plan, sites);
   return plan.readings.slice(0, n).map((reading, i) => ({
     line: plan.readingLines[i]!,
     reading,
-    result: solve(solveInputOf(reading, byId.get(reading.siteId))),
+    result: solve(readingRequest(reading, byId.get(reading.siteId), settings).input),
   }));
 }
 
 /** Runs the engine over every planned row; failures become row warnings (the data is still kept). */
-export function computeWarnings(plan: ImportPlan, sites: readonly SiteDoc[], solve: Solver): RowIssue[] {
+export function computeWarnings(
+  plan: ImportPlan,
+  sites: readonly SiteDoc[],
+  solve: Solver,
+  settings?: RequestSettings,
+): RowIssue[] {
   const byId = siteMap(plan, sites);
   return warningsFromResults(
     plan,
-    plan.readings.map((reading) => solve(solveInputOf(reading, byId.get(reading.siteId)))),
+    plan.readings.map((reading) => solve(readingRequest(reading, byId.get(reading.siteId), settings).input)),
   );
 }
 
@@ -104,6 +118,7 @@ export async function commitImport(
     rows: plan.rowCount,
     written: 0,
     alreadyPresent: 0,
+    replaced: 0,
     sitesCreated: 0,
     duplicateRows: plan.duplicateRows,
     errors: [...plan.errors].sort((a, b) => a.row - b.row),
@@ -118,7 +133,21 @@ export async function commitImport(
     ...plan.newSites.map((s) => s.id),
   ]);
   const sites = plan.newSites.filter((s) => !existing.has(s.id));
-  const readings = plan.readings.filter((r) => !existing.has(r.id));
+  // Same id, same reading: replaced only by a newer copy, never revived from a tombstone.
+  const present = plan.readings.filter((r) => existing.has(r.id)).map((r) => r.id);
+  const stored =
+    present.length && target.getDocs ? await target.getDocs(present) : new Map<string, TufaDoc>();
+  const newer = plan.readings.filter((r, i) => {
+    if (!plan.updatedAtGiven[i]) return false;
+    const old = stored.get(r.id);
+    return old !== undefined && !old.deleted && old.type === 'reading' && r.updatedAt > old.updatedAt;
+  });
+  // A replaced reading keeps this device's server revision, so its next push updates, not conflicts.
+  const replacing = newer.map((r) => {
+    const rev = stored.get(r.id)?.rev;
+    return rev === undefined ? r : { ...r, rev };
+  });
+  const readings = [...plan.readings.filter((r) => !existing.has(r.id)), ...replacing];
   try {
     if (sites.length + readings.length > 0) await target.bulkPut([...sites, ...readings]);
   } catch (e) {
@@ -129,7 +158,8 @@ export async function commitImport(
     return report;
   }
   report.ok = true;
-  report.written = readings.length;
+  report.written = readings.length - newer.length;
+  report.replaced = newer.length;
   report.alreadyPresent = plan.readings.length - readings.length;
   report.sitesCreated = sites.length;
   return report;

@@ -4,6 +4,7 @@
  * in one transaction, and only when it has no errors.
  */
 
+import { SITE_KINDS } from '../store/schema';
 import type { ColumnMapping } from './column-mapping';
 import { checkMapping } from './column-mapping';
 import { contentId, normalizeName, readingCanonical, siteCanonical } from './content-id';
@@ -12,12 +13,18 @@ import type { MeasuredValue, ReadingDoc, SiteDoc } from './docs';
 import { type RowIssue, rowIssue } from './io-issues';
 import { parseNumber } from './numbers';
 import { quantityById, storedForm } from './quantities';
+import { parseSiteDefaults } from './site-defaults-text';
 import { isKnownTimeZone, parseTimestamp } from './timestamps';
+
+/** Ids our devices make (uuid) and tests use: letters, digits and `.-_:`, at most 100 characters. */
+const READING_ID = /^[A-Za-z0-9._:-]{1,100}$/;
 
 export interface ImportPlan {
   readings: ReadingDoc[];
   /** File line of each planned reading (same order as `readings`). */
   readingLines: number[];
+  /** Whether the file said when each reading last changed (same order); only those replace older copies. */
+  updatedAtGiven: boolean[];
   /** Sites named in the file that do not exist yet; created with the readings. */
   newSites: SiteDoc[];
   errors: RowIssue[];
@@ -48,6 +55,7 @@ export async function planImport(
   const plan: ImportPlan = {
     readings: [],
     readingLines: [],
+    updatedAtGiven: [],
     newSites: [],
     errors,
     duplicateRows: [],
@@ -67,6 +75,7 @@ export async function planImport(
     return plan;
   }
   const created = new Map<string, SiteDoc>();
+  const createdById = new Map<string, SiteDoc>();
   const updatedAt = now.toISOString();
   const col = (role: string) => mapping.columns.findIndex((c) => c.role === role);
   const cTimestamp = col('timestamp');
@@ -76,10 +85,17 @@ export async function planImport(
   const cSite = col('site');
   const cNotes = col('notes');
   const cScale = col('ph-scale');
+  const cReadingId = col('reading-id');
+  const cUpdatedAt = col('updated-at');
+  const cSiteKind = col('site-kind');
+  const cSiteId = col('site-id');
+  const cSiteDefaults = col('site-defaults');
   const valueCols = mapping.columns.flatMap((c, i) => {
-    if (c.role !== 'value') return [];
+    if (c.role !== 'value' && c.role !== 'titration-value') return [];
     const q = quantityById(c.quantity)!;
-    return [{ index: i, q, unit: q.units.find((x) => x.id === c.unit)! }];
+    return [
+      { index: i, q, unit: q.units.find((x) => x.id === c.unit)!, titration: c.role === 'titration-value' },
+    ];
   });
   const seenIds = new Map<string, number>();
   const decimalComma = csv.sniff.decimalComma;
@@ -90,27 +106,43 @@ export async function planImport(
     const rowErrors: RowIssue[] = [];
     const cell = (i: number) => (i >= 0 ? (row[i] ?? '').trim() : '');
 
-    // Site
+    // Site: by its own id when the file carries it (our export does), else by name.
     let site = fixedSite;
-    if (cSite >= 0) {
+    const siteIdText = cell(cSiteId);
+    if (siteIdText !== '' && !READING_ID.test(siteIdText)) {
+      rowErrors.push(
+        rowIssue(line, 'reading-id-invalid', `"${siteIdText}" is not a site id.`, header[cSiteId]),
+      );
+    }
+    const byGivenId =
+      siteIdText !== '' ? (known.get(siteIdText.toLowerCase()) ?? createdById.get(siteIdText)) : undefined;
+    if (byGivenId) site = byGivenId;
+    else if (cSite >= 0) {
       const name = cell(cSite);
       if (name === '') {
         rowErrors.push(rowIssue(line, 'site-missing', 'No site is given in this row.', header[cSite]));
       } else {
         site =
-          known.get(name.toLowerCase()) ?? known.get(normalizeName(name)) ?? created.get(normalizeName(name));
+          (siteIdText === '' ? known.get(name.toLowerCase()) : undefined) ??
+          (siteIdText === '' ? known.get(normalizeName(name)) : undefined) ??
+          (siteIdText === '' ? created.get(normalizeName(name)) : undefined);
         if (!site) {
+          const kindText = cell(cSiteKind).toLowerCase();
+          const defaults = parseSiteDefaults(cell(cSiteDefaults));
+          if ('reason' in defaults)
+            rowErrors.push(rowIssue(line, 'value-out-of-range', defaults.reason, header[cSiteDefaults]));
           site = {
-            id: contentId(siteCanonical(name)),
+            id: siteIdText !== '' ? siteIdText : contentId(siteCanonical(name)),
             type: 'site',
             name: name.replace(/\s+/g, ' '),
-            kind: 'other',
-            defaults: {},
+            kind: SITE_KINDS.find((k) => k === kindText) ?? 'other',
+            defaults: 'reason' in defaults ? {} : defaults,
             notes: 'Created by CSV import.',
             updatedAt,
             deleted: false,
           };
-          created.set(normalizeName(name), site);
+          if (siteIdText !== '') createdById.set(siteIdText, site);
+          else created.set(normalizeName(name), site);
         }
       }
     }
@@ -149,7 +181,7 @@ export async function planImport(
     }
     const measured: MeasuredValue[] = [];
     const values: Record<string, number> = {};
-    for (const { index, q, unit } of valueCols) {
+    for (const { index, q, unit, titration } of valueCols) {
       const raw = cell(index);
       if (raw === '') continue;
       const x = parseNumber(raw, decimalComma);
@@ -178,6 +210,12 @@ export async function planImport(
         continue;
       }
       const stored = storedForm(q, unit, x);
+      if (titration) {
+        // A titration's result: kept apart from typed values, and part of the content id as such.
+        measured.push({ quantity: q.id, value: stored.value, unit: stored.unit, source: 'titration' });
+        values[`titration_${unit.key}`] = k;
+        continue;
+      }
       if (q.id === 'ph' && scale) stored.unit = scale;
       measured.push({ quantity: q.id, value: stored.value, unit: stored.unit });
       values[unit.key] = k;
@@ -189,15 +227,36 @@ export async function planImport(
       rowErrors.push(rowIssue(line, 'row-no-values', 'This row has no measured values.'));
     }
 
+    // Identity: the reading's own id when the file carries it (our export does), else its content.
+    const givenId = cell(cReadingId);
+    if (givenId !== '' && !READING_ID.test(givenId)) {
+      rowErrors.push(
+        rowIssue(line, 'reading-id-invalid', `"${givenId}" is not a reading id.`, header[cReadingId]),
+      );
+    }
+    const changedText = cell(cUpdatedAt);
+    const changed = changedText === '' ? undefined : Date.parse(changedText);
+    if (changed !== undefined && !Number.isFinite(changed)) {
+      rowErrors.push(
+        rowIssue(line, 'time-unreadable', `"${changedText}" is not an ISO 8601 time.`, header[cUpdatedAt]),
+      );
+    }
+
     if (rowErrors.length > 0 || !site || !takenAt) {
       errors.push(...rowErrors);
       continue;
     }
-    const id = contentId(readingCanonical(site.id, takenAt, values));
+    const id = givenId !== '' ? givenId : contentId(readingCanonical(site.id, takenAt, values));
     const earlier = seenIds.get(id);
     if (earlier !== undefined) {
       plan.duplicateRows.push(
-        rowIssue(line, 'row-duplicate', `Same site, time and values as line ${earlier}.`),
+        rowIssue(
+          line,
+          'row-duplicate',
+          givenId !== ''
+            ? `Same reading id as line ${earlier}.`
+            : `Same site, time and values as line ${earlier}.`,
+        ),
       );
       continue;
     }
@@ -210,12 +269,13 @@ export async function planImport(
       timeZone: zone,
       values: measured,
       notes: cell(cNotes),
-      updatedAt,
+      updatedAt: changed !== undefined ? new Date(changed).toISOString() : updatedAt,
       deleted: false,
     };
     plan.readings.push(reading);
     plan.readingLines.push(line);
+    plan.updatedAtGiven.push(changed !== undefined);
   }
-  plan.newSites = [...created.values()];
+  plan.newSites = [...created.values(), ...createdById.values()];
   return plan;
 }

@@ -25,6 +25,7 @@ export type IoCode =
   | 'site-missing'
   | 'row-no-values'
   | 'row-duplicate'
+  | 'reading-id-invalid'
   | 'row-solve-failed'
   | 'backup-not-json'
   | 'backup-wrong-format'

@@ -11,17 +11,32 @@ import { quantityById } from './quantities';
 import type { DateOrder } from './timestamps';
 
 export function roleToString(r: ColumnRole): string {
-  return r.role === 'value' ? `value:${r.quantity}:${r.unit}` : r.role;
+  return r.role === 'value' || r.role === 'titration-value' ? `${r.role}:${r.quantity}:${r.unit}` : r.role;
 }
 
 export function roleFromString(s: string | undefined): ColumnRole {
   if (!s) return { role: 'ignore' };
-  if (s.startsWith('value:')) {
-    const [, quantity = '', unit = ''] = s.split(':');
+  if (s.startsWith('value:') || s.startsWith('titration-value:')) {
+    const [role, quantity = '', unit = ''] = s.split(':');
     const q = quantityById(quantity);
-    return q?.units.some((u) => u.id === unit) ? { role: 'value', quantity, unit } : { role: 'ignore' };
+    if (!q?.units.some((u) => u.id === unit)) return { role: 'ignore' };
+    return role === 'value' ? { role: 'value', quantity, unit } : { role: 'titration-value', quantity, unit };
   }
-  const simple = ['ignore', 'timestamp', 'date', 'time', 'time-zone', 'site', 'notes', 'ph-scale'] as const;
+  const simple = [
+    'ignore',
+    'timestamp',
+    'date',
+    'time',
+    'time-zone',
+    'site',
+    'notes',
+    'ph-scale',
+    'reading-id',
+    'site-id',
+    'updated-at',
+    'site-kind',
+    'site-defaults',
+  ] as const;
   const hit = simple.find((x) => x === s);
   return hit ? ({ role: hit } as ColumnRole) : { role: 'ignore' };
 }

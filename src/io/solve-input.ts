@@ -1,11 +1,11 @@
 /**
- * Builds the engine input of a stored reading: the site's defaults first (model, salinity,
- * constants, pH scale), then the reading's measured values converted to engine keys, which win.
+ * A reading's typed values under engine keys, for the value columns of an export. The engine's
+ * request of a reading is made by `src/reading/request.ts` only; nothing here computes.
  * A value whose quantity or unit this catalogue does not know is reported, not guessed.
  */
 
 import type { SolveInput, SolveResult } from '../chem/api';
-import type { ReadingDoc, SiteDoc } from './docs';
+import type { ReadingDoc } from './docs';
 import { unitOf } from './quantities';
 
 export type Solver = (input: SolveInput) => SolveResult;
@@ -20,6 +20,7 @@ export function engineValues(reading: Pick<ReadingDoc, 'values'>): {
   const options: Record<string, string> = {};
   const unknown: string[] = [];
   for (const v of reading.values) {
+    if (v.source !== undefined) continue; // a titration's carried result has its own column
     const unit = unitOf(v.quantity, v.unit);
     if (!unit) {
       unknown.push(`${v.quantity} [${v.unit}]`);
@@ -29,10 +30,4 @@ export function engineValues(reading: Pick<ReadingDoc, 'values'>): {
     Object.assign(options, unit.options);
   }
   return { values, options, unknown };
-}
-
-export function solveInputOf(reading: ReadingDoc, site: SiteDoc | undefined): SolveInput {
-  const { units: _units, ...defaults } = site?.defaults ?? {};
-  const { values, options } = engineValues(reading);
-  return { ...defaults, ...options, ...values };
 }

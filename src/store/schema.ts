@@ -64,6 +64,11 @@ export interface MeasuredValue {
   quantity: string;
   value: number;
   unit: string;
+  /**
+   * `titration`: a titration's result carried without its raw points (a re-imported CSV); the
+   * reading's request uses it only where nothing was typed. Absent for typed values.
+   */
+  source?: 'titration';
 }
 
 /** Raw titration data, kept raw so it can be re-reduced by another method later. */

@@ -1,9 +1,9 @@
 /** The page's side of the engine worker: promise per request, one worker for the app's life. */
 
-import type { SolveInput, SolveResult } from '../chem/api';
-import type { TitrateOutcome } from '../chem/titration/titrate';
-import type { TitrationInput } from '../chem/titration/types';
-import type { EngineRequest, EngineResponse } from './engine.worker';
+import type { SolveResult } from '../chem/api';
+import type { ReadingFacts, ReadingRequest, RequestSettings } from '../reading/request';
+import type { SiteDoc } from '../store/schema';
+import type { EngineRequest, EngineResponse, ReadingJob, RequestSummary } from './engine.worker';
 
 let worker: Worker | undefined;
 let next = 1;
@@ -31,34 +31,61 @@ function ask(req: Req): Promise<EngineResponse> {
   });
 }
 
-export async function solveInWorker(input: SolveInput): Promise<SolveResult> {
-  const r = await ask({ kind: 'solve', input });
-  if (r.kind !== 'solve') throw new Error('engine worker answered the wrong request');
-  return r.result;
+/** The settings a request depends on, copied out of the app's Settings (structured clone is cheap). */
+function requestSettings(s: RequestSettings): RequestSettings {
+  return {
+    model: s.model,
+    ph_scale: s.ph_scale,
+    carbonic_constants: s.carbonic_constants,
+    boron_total: s.boron_total,
+    atmospheric_pco2_uatm: s.atmospheric_pco2_uatm,
+    ph_uncertainty: s.ph_uncertainty,
+  };
 }
 
-/** Solves many inputs and returns the chosen numeric outputs as columns (null = did not solve). */
-export async function solveColumns(inputs: SolveInput[], keys: string[]): Promise<(number | null)[][]> {
-  const r = await ask({ kind: 'columns', inputs, keys });
-  if (r.kind !== 'columns') throw new Error('engine worker answered the wrong request');
-  return r.columns;
+function job(reading: ReadingFacts, site: Pick<SiteDoc, 'defaults'> | undefined): ReadingJob {
+  const facts: ReadingFacts = { values: reading.values };
+  if (reading.titration) facts.titration = reading.titration;
+  return site ? { reading: facts, defaults: site.defaults } : { reading: facts };
 }
 
-export async function titrateInWorker(input: TitrationInput): Promise<TitrateOutcome> {
-  const r = await ask({ kind: 'titrate', input });
-  if (r.kind !== 'titrate') throw new Error('engine worker answered the wrong request');
-  return r.result;
+/** A reading's request (`src/reading/request.ts`, built in the worker) and its result. */
+export async function solveReadingInWorker(
+  reading: ReadingFacts,
+  site: Pick<SiteDoc, 'defaults'> | undefined,
+  settings: RequestSettings,
+  uncertainty = false,
+): Promise<{ request: ReadingRequest; result: SolveResult }> {
+  const r = await ask({
+    kind: 'reading',
+    job: job(reading, site),
+    settings: requestSettings(settings),
+    uncertainty,
+  });
+  if (r.kind !== 'reading') throw new Error('engine worker answered the wrong request');
+  return { request: r.request, result: r.result };
 }
 
-/**
- * Solves many inputs in the worker. With `keys`, each success carries only those outputs plus
- * `model` and `warnings` (a 100 000-row import needs no more, and copying less back is faster).
- */
-export async function solveManyInWorker(
-  inputs: SolveInput[],
+/** Many readings through the one request function: slim results (with `keys`) and request summaries. */
+export async function solveReadingsInWorker(
+  readings: readonly (ReadingFacts & { siteId: string })[],
+  sites: ReadonlyMap<string, Pick<SiteDoc, 'defaults'>>,
+  settings: RequestSettings,
   keys?: readonly string[],
-): Promise<SolveResult[]> {
-  const r = await ask(keys ? { kind: 'many', inputs, keys: [...keys] } : { kind: 'many', inputs });
-  if (r.kind !== 'many') throw new Error('engine worker answered the wrong request');
-  return r.results;
+): Promise<{ requests: RequestSummary[]; results: SolveResult[] }> {
+  const jobs = readings.map((r) => job(r, sites.get(r.siteId)));
+  const base = { kind: 'readings' as const, jobs, settings: requestSettings(settings) };
+  const r = await ask(keys ? { ...base, keys: [...keys] } : base);
+  if (r.kind !== 'readings') throw new Error('engine worker answered the wrong request');
+  return { requests: r.requests, results: r.results };
+}
+
+/** One column per output key from results (null where a reading did not solve: a gap on the chart). */
+export function resultColumns(results: readonly SolveResult[], keys: readonly string[]): (number | null)[][] {
+  return keys.map((k) =>
+    results.map((r) => {
+      const v = 'error' in r ? undefined : (r as unknown as Record<string, unknown>)[k];
+      return typeof v === 'number' && Number.isFinite(v) ? v : null;
+    }),
+  );
 }

@@ -1,5 +1,3 @@
-/** The one place the app picks up the carbonate engine (used by the worker and by tests). */
+/** The one place the app picks up the carbonate engine (used by the workers and by tests). */
 
 export { solve } from '../chem/solve';
-export { freshTitrationConstants as titrationConstants } from '../chem/titration/reduceTitration';
-export { titrate } from '../chem/titration/titrate';

@@ -6,22 +6,41 @@
 
 import type { SolveInput, SolveResult } from '../chem/api';
 import { toIssue } from '../chem/errors';
-import type { TitrateOutcome } from '../chem/titration/titrate';
-import type { TitrationInput } from '../chem/titration/types';
-import { solve, titrate, titrationConstants } from './engine-source';
+import {
+  type ReadingFacts,
+  type ReadingRequest,
+  type RequestSettings,
+  readingRequest,
+  withUncertainty,
+} from '../reading/request';
+import type { SiteDefaults } from '../store/schema';
+import { solve } from './engine-source';
+
+/** A reading as the worker needs it: its facts and the defaults of its site. */
+export interface ReadingJob {
+  reading: ReadingFacts;
+  defaults?: SiteDefaults;
+}
+
+/** What a bulk consumer gets back of a request: the inputs and where they came from. */
+export type RequestSummary = Pick<ReadingRequest, 'input' | 'sources'>;
 
 export type EngineRequest =
-  | { id: number; kind: 'solve'; input: SolveInput }
-  | { id: number; kind: 'columns'; inputs: SolveInput[]; keys: string[] }
-  | { id: number; kind: 'titrate'; input: TitrationInput }
-  /** Full results, or (with `keys`) only those outputs plus model and warnings: less to copy back. */
-  | { id: number; kind: 'many'; inputs: SolveInput[]; keys?: string[] };
+  /** One stored (or draft) reading through `readingRequest`, solved; with its uncertainties when asked. */
+  | { id: number; kind: 'reading'; job: ReadingJob; settings: RequestSettings; uncertainty: boolean }
+  /** Many readings through `readingRequest`: slim results (with `keys`) and each request's summary. */
+  | { id: number; kind: 'readings'; jobs: ReadingJob[]; settings: RequestSettings; keys?: string[] };
 
 export type EngineResponse =
-  | { id: number; kind: 'solve'; result: SolveResult }
-  | { id: number; kind: 'columns'; columns: (number | null)[][] }
-  | { id: number; kind: 'titrate'; result: TitrateOutcome }
-  | { id: number; kind: 'many'; results: SolveResult[] };
+  | { id: number; kind: 'reading'; request: ReadingRequest; result: SolveResult }
+  | { id: number; kind: 'readings'; requests: RequestSummary[]; results: SolveResult[] };
+
+function slim(r: SolveResult, keys: readonly string[] | undefined): SolveResult {
+  if (!keys || 'error' in r) return r;
+  const out: Record<string, unknown> = { model: r.model, warnings: r.warnings };
+  for (const k of keys) out[k] = (r as unknown as Record<string, unknown>)[k];
+  return out as unknown as SolveResult;
+}
 
 function safeSolve(input: SolveInput): SolveResult {
   try {
@@ -34,41 +53,21 @@ function safeSolve(input: SolveInput): SolveResult {
 const scope = self as unknown as DedicatedWorkerGlobalScope;
 scope.onmessage = (ev: MessageEvent<EngineRequest>) => {
   const req = ev.data;
-  if (req.kind === 'titrate') {
-    let result: TitrateOutcome;
-    try {
-      result = titrate(req.input, titrationConstants);
-    } catch (e) {
-      result = { error: toIssue(e) };
+  if (req.kind === 'reading') {
+    const request = readingRequest(req.job.reading, { defaults: req.job.defaults ?? {} }, req.settings);
+    const result = safeSolve(req.uncertainty ? withUncertainty(request) : request.input);
+    scope.postMessage({ id: req.id, kind: 'reading', request, result } satisfies EngineResponse);
+    return;
+  }
+  if (req.kind === 'readings') {
+    const requests: RequestSummary[] = [];
+    const results: SolveResult[] = [];
+    for (const job of req.jobs) {
+      const { input, sources } = readingRequest(job.reading, { defaults: job.defaults ?? {} }, req.settings);
+      requests.push({ input, sources });
+      results.push(slim(safeSolve(input), req.keys));
     }
-    scope.postMessage({ id: req.id, kind: 'titrate', result } satisfies EngineResponse);
+    scope.postMessage({ id: req.id, kind: 'readings', requests, results } satisfies EngineResponse);
     return;
   }
-  if (req.kind === 'solve') {
-    scope.postMessage({ id: req.id, kind: 'solve', result: safeSolve(req.input) } satisfies EngineResponse);
-    return;
-  }
-  if (req.kind === 'many') {
-    const keys = req.keys;
-    const results = req.inputs.map((input) => {
-      const r = safeSolve(input);
-      if (!keys || 'error' in r) return r;
-      const slim: Record<string, unknown> = { model: r.model, warnings: r.warnings };
-      for (const k of keys) slim[k] = (r as unknown as Record<string, unknown>)[k];
-      return slim as unknown as SolveResult;
-    });
-    scope.postMessage({ id: req.id, kind: 'many', results } satisfies EngineResponse);
-    return;
-  }
-  // One column per requested output key; null where a row did not solve (a gap on the chart).
-  const columns = req.keys.map(() => new Array<number | null>(req.inputs.length).fill(null));
-  req.inputs.forEach((input, i) => {
-    const r = safeSolve(input) as Record<string, unknown>;
-    if ('error' in r) return;
-    req.keys.forEach((k, j) => {
-      const v = r[k];
-      if (typeof v === 'number' && Number.isFinite(v)) columns[j]![i] = v;
-    });
-  });
-  scope.postMessage({ id: req.id, kind: 'columns', columns } satisfies EngineResponse);
 };

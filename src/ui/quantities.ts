@@ -5,9 +5,6 @@
  * dKH, which need density) map to their own input keys; only exact conversions (°F) happen here.
  */
 
-import type { SolveInput } from '../chem/api';
-import type { MeasuredValue } from '../store/schema';
-
 export interface UnitDef {
   id: string;
   label: string;
@@ -137,35 +134,4 @@ export function unitOf(q: QuantityDef, unitId: string): UnitDef | undefined {
 export function quantityForKey(key: string): string | undefined {
   for (const q of QUANTITIES) if (q.units.some((u) => u.key === key)) return q.id;
   return undefined;
-}
-
-/** Engine settings that travel with every solve (from the site's defaults over the user's settings). */
-export interface SolveContext {
-  model?: string;
-  ph_scale?: string;
-  carbonic_constants?: string;
-  boron_total?: string;
-  salinity?: number;
-  specific_conductance_us_cm?: number;
-}
-
-/** The solve input for measured rows; unknown quantities or units are reported, not dropped silently. */
-export function toSolveInput(
-  values: MeasuredValue[],
-  ctx: SolveContext,
-): { input: SolveInput; unknown: string[] } {
-  const input: SolveInput = {};
-  for (const [k, v] of Object.entries(ctx)) if (v !== undefined && v !== '') input[k] = v;
-  const unknown: string[] = [];
-  for (const row of values) {
-    const q = quantity(row.quantity);
-    const u = q && unitOf(q, row.unit);
-    if (!u) {
-      unknown.push(`${row.quantity} (${row.unit})`);
-      continue;
-    }
-    input[u.key] = u.toKey ? u.toKey(row.value) : row.value;
-    if (u.options) Object.assign(input, u.options);
-  }
-  return { input, unknown };
 }

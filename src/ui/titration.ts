@@ -1,12 +1,10 @@
 /**
- * A field titration in the reading form: the raw record kept with the reading (re-reducible
- * later), how typed points are read, and how a reduction feeds the solve.
+ * A field titration in the reading form: method labels and how typed points are read. How a
+ * stored titration feeds the engine is `src/reading/request.ts`'s job.
  */
 
-import type { SolveInput } from '../chem/api';
 import type { Issue } from '../chem/errors';
-import type { TitrationInput, TitrationMethod, TitrationResult } from '../chem/titration/types';
-import type { MeasuredValue, TitrationRecord } from '../store/schema';
+import type { TitrationMethod } from '../chem/titration/types';
 import { parseDecimal } from './numbers';
 
 /** Published method names; labels are ours. */
@@ -54,35 +52,4 @@ export function parsePoints(
     points.push({ volumeMl: v.value, ph: p.value });
   });
   return { points, issues };
-}
-
-/** The engine's titration input from the stored record and the reading's measured temperature/conductance. */
-export function titrationInput(record: TitrationRecord, values: MeasuredValue[]): TitrationInput | Issue {
-  const t = values.find((v) => v.quantity === 'temperature');
-  if (!t)
-    return {
-      code: 'titration-needs-temperature',
-      message: 'Enter the sample temperature to reduce the titration.',
-    };
-  const temperature_c = t.unit === 'f' ? ((t.value - 32) * 5) / 9 : t.value;
-  const input: TitrationInput = {
-    sample_volume_ml: record.sampleVolumeMl,
-    titrant_normality: record.titrantNormality,
-    temperature_c,
-    method: (record.method as TitrationMethod | undefined) ?? 'gran',
-    points: record.points.map((p) => ({ volume_ml: p.volumeMl, ph: p.ph })),
-  };
-  if (record.correctionFactor !== undefined) input.titrant_correction_factor = record.correctionFactor;
-  if (record.endpointPh !== undefined) input.endpoint_ph = record.endpointPh;
-  const k = values.find((v) => v.quantity === 'conductance');
-  if (k) input.specific_conductance_us_cm = k.value;
-  return input;
-}
-
-/** A measured alkalinity row wins; otherwise the titration's alkalinity (and DIC of a curve fit) feeds the solve. */
-export function withTitration(input: SolveInput, result: TitrationResult | undefined): SolveInput {
-  if (!result) return input;
-  const hasAlk = Object.keys(input).some((k) => k.startsWith('alkalinity_'));
-  if (hasAlk) return input;
-  return { ...input, alkalinity_meq_l: result.alkalinity_meq_l };
 }

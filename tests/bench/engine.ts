@@ -7,6 +7,7 @@
 
 import { benchFresh } from './fresh';
 import { benchPlan } from './plan';
+import { benchRequest } from './request';
 import { benchSolve } from './solve';
 import { benchSolveUncertainty, benchTitration } from './titration';
 
@@ -16,6 +17,7 @@ const sections: [string, () => string[]][] = [
   ['Solve with uncertainties', benchSolveUncertainty],
   ['Fresh model beside saline, solve() JSON path (20 000 rows each)', benchFresh],
   ['Planning: dose, dose to target, target in steps (plan() JSON path)', benchPlan],
+  ['A reading to its engine request (src/reading/request.ts)', benchRequest],
 ];
 
 for (const [title, run] of sections) {

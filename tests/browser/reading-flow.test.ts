@@ -6,11 +6,11 @@
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { isSolveError } from '../../src/chem/api';
+import { readingRequest } from '../../src/reading/request';
 import type { SiteDoc } from '../../src/store/schema';
 import { DEFAULT_SETTINGS } from '../../src/store/settings';
 import { solve } from '../../src/ui/engine-source';
 import { formatNumber } from '../../src/ui/numbers';
-import { readingInput } from '../../src/ui/solve-context';
 import { launch, newContext, openApp, screenshot } from './browser';
 
 let browser: Browser;
@@ -59,7 +59,7 @@ describe('site and reading', () => {
       { quantity: 'alkalinity', value: 2300, unit: 'umol_kg' },
       { quantity: 'salinity', value: 35, unit: 'pss' },
     ];
-    const expected = solve(readingInput(values, site, DEFAULT_SETTINGS).input);
+    const expected = solve(readingRequest({ values }, site, DEFAULT_SETTINGS).input);
     expect(isSolveError(expected), JSON.stringify(expected)).toBe(false);
     if (isSolveError(expected)) return;
     const dic = page.locator('.results .output[data-key="dic_umol_kg"] .value');
@@ -76,7 +76,7 @@ describe('site and reading', () => {
     await page.locator('[data-testid="speciation"]').waitFor();
     // The reading page propagates the constants' and the pH reading's uncertainty to every output.
     const withU = solve({
-      ...readingInput(values, site, DEFAULT_SETTINGS).input,
+      ...readingRequest({ values }, site, DEFAULT_SETTINGS).input,
       uncertainty: { constants: true, ph: 0.02 },
     });
     if (isSolveError(withU) || !withU.uncertainty?.dic_umol_kg) throw new Error('engine gave no uncertainty');
@@ -92,7 +92,9 @@ describe('site and reading', () => {
     await page.getByRole('heading', { name: 'Cautions' }).waitFor({ timeout: 15_000 });
     await screenshot(page, '04b-plan-panel');
     await page.getByRole('button', { name: 'Save plan with this reading' }).click();
-    await expect.poll(() => page.getByText('A plan is saved with this reading.').count()).toBe(1);
+    // The saved plan shows on the reading page: what was planned and the predicted water.
+    await page.getByTestId('saved-plan').waitFor();
+    expect(await page.getByTestId('saved-plan-water').count()).toBe(1);
     const detailUrl = page.url();
 
     await page.reload();

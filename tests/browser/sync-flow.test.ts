@@ -10,7 +10,7 @@ import { readFileSync } from 'node:fs';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { isSolveError } from '../../src/chem/api';
-import { solveInputOf } from '../../src/io/solve-input';
+import { readingRequest } from '../../src/reading/request';
 import type { SiteDoc } from '../../src/store/schema';
 import { solve } from '../../src/ui/engine-source';
 import { CouchServer } from '../sync/couch-server';
@@ -111,7 +111,7 @@ describe('sync and export through the app', () => {
     expect(cell('ph')).toBe('8.02');
     // What the engine says for the same reading, computed here in Node.
     const site = docs.find((d) => d.type === 'site') as unknown as SiteDoc;
-    const expected = solve(solveInputOf(reading as never, site));
+    const expected = solve(readingRequest(reading as never, site).input);
     expect(isSolveError(expected)).toBe(false);
     if (isSolveError(expected)) return;
     expect(Number(cell('computed_dic_umol_kg'))).toBeCloseTo(expected.dic_umol_kg, 6);

@@ -11,11 +11,11 @@ import { isSolveError } from '../../src/chem/api';
 import { freshTitrationConstants } from '../../src/chem/titration/reduceTitration';
 import { titrate } from '../../src/chem/titration/titrate';
 import type { TitrationInput } from '../../src/chem/titration/types';
+import { readingRequest } from '../../src/reading/request';
 import type { SiteDoc } from '../../src/store/schema';
 import { DEFAULT_SETTINGS } from '../../src/store/settings';
 import { solve } from '../../src/ui/engine-source';
 import { formatNumber } from '../../src/ui/numbers';
-import { readingInput } from '../../src/ui/solve-context';
 import { launch, newContext, openApp, screenshot } from './browser';
 
 const record = JSON.parse(
@@ -52,7 +52,7 @@ describe('field titration in a reading', () => {
       { quantity: 'conductance', value: 480, unit: 'us_cm' },
     ];
     const solved = solve({
-      ...readingInput(values, site, DEFAULT_SETTINGS).input,
+      ...readingRequest({ values }, site, DEFAULT_SETTINGS).input,
       alkalinity_meq_l: expected.alkalinity_meq_l,
     });
     if (isSolveError(solved)) throw new Error(solved.error.message);

@@ -31,6 +31,7 @@ const BAD: [string, unknown][] = [
   ['pair-not-independent', { ...ok, pair: ['dic_umol_kg', 'dic_umol_kg'] }],
   ['no-solution', { temperature_c: 25, salinity: 35, dic_umol_kg: 1000, co2_umol_kg: 2000 }],
   ['missing-salinity', { temperature_c: 25, model: 'saline', alkalinity_umol_kg: 2300, dic_umol_kg: 2000 }],
+  ['measurements-disagree', { temperature_c: 25, salinity: 35, ph: 12, alkalinity_umol_kg: 2500 }],
 ];
 
 describe('tufa solve (JSON Lines)', { timeout: 60_000 }, () => {

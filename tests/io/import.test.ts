@@ -7,8 +7,10 @@ import { exportReadingsCsv } from '../../src/io/export-csv';
 import { commitImport, previewImport, warningsFromResults } from '../../src/io/import-commit';
 import { planImport } from '../../src/io/import-plan';
 import { mappingFromRecord, mappingToRecord } from '../../src/io/layout-memory';
-import { engineValues, solveInputOf } from '../../src/io/solve-input';
+import { engineValues } from '../../src/io/solve-input';
+import { readingRequest } from '../../src/reading/request';
 import { openRepository } from '../../src/store/repository';
+import type { ReadingDoc } from '../../src/store/schema';
 import { RepositoryStore } from '../../src/sync/repository-store';
 
 let n = 0;
@@ -191,10 +193,14 @@ describe('CSV import', () => {
     const text = exportReadingsCsv(await repo.listAllReadings(), sites);
     const lines = text.split('\r\n');
     expect(lines[0]).toBe(
-      'reading_id,site,site_id,taken_at,time_zone,ph_scale,temperature_c,ph,alkalinity_meq_l,specific_conductance_us_cm,notes',
+      'reading_id,site,site_id,site_kind,site_defaults,taken_at,time_zone,updated_at,ph_scale,temperature_c,ph,alkalinity_meq_l,specific_conductance_us_cm,titration_alkalinity_meq_l,titration_dic_umol_kg,input_sources,notes',
     );
+    const pond = sites.find((s) => s.name === 'Mill pond')!;
+    const pondReading = (await repo.listReadings(pond.id))[0]!;
+    // The pH scale column names only a scale the reading itself names (none here): a re-import
+    // stores the very same values; the scale used is in input_sources.
     expect(lines).toContain(
-      `${(await repo.listReadings(sites.find((s) => s.name === 'Mill pond')!.id))[0]!.id},Mill pond,${sites.find((s) => s.name === 'Mill pond')!.id},2026-06-03T14:05:00+02:00,Europe/Vienna,,17.9,8.34,2.41,355,algae`,
+      `${pondReading.id},Mill pond,${pond.id},other,,2026-06-03T14:05:00+02:00,Europe/Vienna,${pondReading.updatedAt},,17.9,8.34,2.41,355,,,temperature_c=typed;ph=typed;alkalinity_meq_l=typed;specific_conductance_us_cm=typed,algae`,
     );
     expect(text).toContain(',clear; slight odour\r\n'); // no quotes needed: no comma inside
     const back = await importText(store, text);
@@ -202,8 +208,10 @@ describe('CSV import', () => {
     const { store: other, repo: otherRepo } = await fresh();
     const into = await importText(other, text);
     expect(into.report).toMatchObject({ ok: true, written: 3, sitesCreated: 2 });
-    const a = (await repo.listAllReadings()).map((r) => [r.takenAt, r.values, r.notes]).sort();
-    const b = (await otherRepo.listAllReadings()).map((r) => [r.takenAt, r.values, r.notes]).sort();
+    // The same readings: same ids, sites, times, values, notes and last change.
+    const facts = (r: ReadingDoc) => [r.id, r.siteId, r.takenAt, r.values, r.notes, r.updatedAt];
+    const a = (await repo.listAllReadings()).map(facts).sort();
+    const b = (await otherRepo.listAllReadings()).map(facts).sort();
     expect(b).toEqual(a);
   });
 });
@@ -248,7 +256,7 @@ describe('results computed elsewhere (the app solves in its engine worker)', () 
     );
     const plan = await planImport(csv, defaultMapping(csv.table.header, 'UTC'), []);
     const bySite = new Map(plan.newSites.map((s) => [s.id, s]));
-    const results = plan.readings.map((r) => solve(solveInputOf(r, bySite.get(r.siteId))));
+    const results = plan.readings.map((r) => solve(readingRequest(r, bySite.get(r.siteId)).input));
     expect(warningsFromResults(plan, results)).toEqual(
       (
         await commitImport(
@@ -268,7 +276,7 @@ describe('results computed elsewhere (the app solves in its engine worker)', () 
     const readings = await repo.listAllReadings();
     const sites = await repo.listSites();
     const byId = new Map(sites.map((s) => [s.id, s]));
-    const given = new Map(readings.map((r) => [r.id, solve(solveInputOf(r, byId.get(r.siteId)))]));
+    const given = new Map(readings.map((r) => [r.id, solve(readingRequest(r, byId.get(r.siteId)).input)]));
     const a = exportReadingsCsv(readings, sites, { solve });
     expect(exportReadingsCsv(readings, sites, { results: given })).toBe(a);
     expect(a).toContain('computed_dic_umol_kg');

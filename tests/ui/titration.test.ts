@@ -1,7 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import type { TitrationResult } from '../../src/chem/titration/types';
 import { EMPTY_TITRATION, recordFromForm } from '../../src/ui/screens/TitrationSection';
-import { parsePoints, withTitration } from '../../src/ui/titration';
+import { parsePoints } from '../../src/ui/titration';
 
 describe('typed titration points', () => {
   it('reads tabs, semicolons, spaces, decimal commas and skips headers', () => {
@@ -27,10 +26,5 @@ describe('typed titration points', () => {
     const r = recordFromForm({ ...EMPTY_TITRATION, pointsText: '0 7\n1 4' }, 'en-GB');
     expect(r.record).toBeUndefined();
     expect(r.issues.map((i) => i.code)).toContain('titration-field-missing');
-  });
-  it('a measured alkalinity wins over the titration', () => {
-    const t = { alkalinity_meq_l: 2.5 } as TitrationResult;
-    expect(withTitration({ ph: 7 }, t)).toEqual({ ph: 7, alkalinity_meq_l: 2.5 });
-    expect(withTitration({ ph: 7, alkalinity_dkh: 8 }, t)).toEqual({ ph: 7, alkalinity_dkh: 8 });
   });
 });

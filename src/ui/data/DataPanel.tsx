@@ -13,8 +13,10 @@ import { commitImport, type ImportReport, type PreviewRow } from '../../io/impor
 import { mappingFromRecord, mappingToRecord, roleFromString, roleToString } from '../../io/layout-memory';
 import { QUANTITIES } from '../../io/quantities';
 import { formatWithOffset } from '../../io/timestamps';
+import type { RequestSettings } from '../../reading/request';
 import type { Repository } from '../../store/repository';
 import type { SiteDoc } from '../../store/schema';
+import { DEFAULT_SETTINGS } from '../../store/settings';
 import { RepositoryStore } from '../../sync/repository-store';
 import { showValue } from '../sync/conflict-fields';
 import { downloadText as download, readingsCsv } from './csv-download';
@@ -30,6 +32,13 @@ const ROLE_OPTIONS: { value: string; label: string }[] = [
   { value: 'site', label: 'Site' },
   { value: 'notes', label: 'Notes' },
   { value: 'ph-scale', label: 'pH scale' },
+  { value: 'reading-id', label: 'Reading id (same reading, never a copy)' },
+  { value: 'site-id', label: 'Site id (same site, never a copy)' },
+  { value: 'updated-at', label: 'Last changed (replaces only older copies)' },
+  { value: 'site-kind', label: 'Kind of site' },
+  { value: 'site-defaults', label: 'Site defaults (model, salinity, …)' },
+  { value: 'titration-value:alkalinity:meq_l', label: 'Alkalinity from a titration — meq/L' },
+  { value: 'titration-value:dic:umol_kg', label: 'DIC from a titration — µmol/kg' },
   ...QUANTITIES.flatMap((q) =>
     q.units.map((u) => ({ value: `value:${q.id}:${u.id}`, label: `${q.label} — ${u.label}` })),
   ),
@@ -89,7 +98,16 @@ function failure(code: string, what: string, e: unknown): string {
   return `${code}: ${what} (${e instanceof Error ? e.message : String(e)}). Nothing was written.`;
 }
 
-export function DataPanel({ repo, onDataChanged }: { repo: Repository; onDataChanged?: () => void }) {
+export function DataPanel({
+  repo,
+  onDataChanged,
+  settings = DEFAULT_SETTINGS,
+}: {
+  repo: Repository;
+  onDataChanged?: () => void;
+  /** The settings readings are computed with (as on their pages). */
+  settings?: RequestSettings;
+}) {
   const store = new RepositoryStore(repo);
   // Parsing, planning and solving a file run in this worker; the page only shows and stores.
   const worker = useMemo(() => new ImportWorker(), []);
@@ -149,7 +167,7 @@ export function DataPanel({ repo, onDataChanged }: { repo: Repository; onDataCha
   useEffect(() => {
     if (!csv || !mapping) return;
     let live = true;
-    worker.plan(mapping, sites, PREVIEW_ROWS).then(
+    worker.plan(mapping, sites, PREVIEW_ROWS, settings).then(
       (p) => {
         if (live) setPlan(p);
       },
@@ -329,6 +347,7 @@ export function DataPanel({ repo, onDataChanged }: { repo: Repository; onDataCha
                 {report.sitesCreated
                   ? ` and ${report.sitesCreated} new ${report.sitesCreated === 1 ? 'site' : 'sites'}`
                   : ''}
+                {report.replaced ? `; ${report.replaced} replaced older copies of the same readings` : ''}
                 {report.alreadyPresent
                   ? `; ${report.alreadyPresent} were already here and were left as they are`
                   : ''}
@@ -371,7 +390,7 @@ export function DataPanel({ repo, onDataChanged }: { repo: Repository; onDataCha
             onClick={async () => {
               download(
                 `tufa-readings-${new Date().toISOString().slice(0, 10)}.csv`,
-                await readingsCsv(repo, exportSite || undefined),
+                await readingsCsv(repo, settings, exportSite || undefined),
                 'text/csv',
               );
             }}

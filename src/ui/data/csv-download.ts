@@ -4,10 +4,10 @@
  */
 
 import { COMPUTED_COLUMNS, exportReadingsCsv } from '../../io/export-csv';
-import { solveInputOf } from '../../io/solve-input';
+import type { RequestSettings } from '../../reading/request';
 import type { Repository } from '../../store/repository';
 import type { ReadingDoc, SiteDoc } from '../../store/schema';
-import { solveManyInWorker } from '../engine-client';
+import { solveReadingsInWorker } from '../engine-client';
 
 export function downloadText(name: string, text: string, type: string): void {
   const url = URL.createObjectURL(new Blob([text], { type }));
@@ -30,15 +30,18 @@ export function fileStem(name: string): string {
 }
 
 /** Readings of one site (or all) as CSV text, with what the engine computes from each row. */
-export async function readingsCsv(repo: Repository, siteId?: string): Promise<string> {
+export async function readingsCsv(
+  repo: Repository,
+  settings: RequestSettings,
+  siteId?: string,
+): Promise<string> {
   const sites = await repo.listSites({ includeDeleted: true });
   const readings: ReadingDoc[] = siteId ? await repo.listReadings(siteId) : await repo.listAllReadings();
   const byId = new Map<string, SiteDoc>(sites.map((s) => [s.id, s]));
   const live = readings.filter((r) => !r.deleted);
-  const solved = await solveManyInWorker(
-    live.map((r) => solveInputOf(r, byId.get(r.siteId))),
-    COMPUTED_COLUMNS,
-  );
-  const results = new Map(live.map((r, i) => [r.id, solved[i]!]));
-  return exportReadingsCsv(live, sites, siteId ? { siteId, results } : { results });
+  // Each reading's request is made in the worker by the one request function, as on its page.
+  const solved = await solveReadingsInWorker(live, byId, settings, COMPUTED_COLUMNS);
+  const results = new Map(live.map((r, i) => [r.id, solved.results[i]!]));
+  const requests = new Map(live.map((r, i) => [r.id, solved.requests[i]!]));
+  return exportReadingsCsv(live, sites, siteId ? { siteId, results, requests } : { results, requests });
 }

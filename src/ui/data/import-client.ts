@@ -4,6 +4,7 @@ import type { ColumnMapping } from '../../io/column-mapping';
 import type { SiteDoc } from '../../io/docs';
 import type { ImportPlan } from '../../io/import-plan';
 import type { RowIssue } from '../../io/io-issues';
+import type { RequestSettings } from '../../reading/request';
 import type { FileSummary, ImportRequest, ImportResponse, PlanSummary } from './import.worker';
 
 type Req = ImportRequest extends infer R ? (R extends ImportRequest ? Omit<R, 'id'> : never) : never;
@@ -42,8 +43,15 @@ export class ImportWorker {
     return ImportWorker.expect(await this.ask({ kind: 'open', text }), 'open').file;
   }
 
-  async plan(mapping: ColumnMapping, sites: SiteDoc[], previewRows: number): Promise<PlanSummary> {
-    return ImportWorker.expect(await this.ask({ kind: 'plan', mapping, sites, previewRows }), 'plan').plan;
+  async plan(
+    mapping: ColumnMapping,
+    sites: SiteDoc[],
+    previewRows: number,
+    settings?: RequestSettings,
+  ): Promise<PlanSummary> {
+    const req = { kind: 'plan' as const, mapping, sites, previewRows };
+    return ImportWorker.expect(await this.ask(settings ? { ...req, settings: { ...settings } } : req), 'plan')
+      .plan;
   }
 
   /** The full plan of the last mapping, with the rows the engine could not compute. */

@@ -15,6 +15,7 @@ import { computeWarnings, type PreviewRow, previewImport } from '../../io/import
 import { type ImportPlan, planImport } from '../../io/import-plan';
 import type { RowIssue } from '../../io/io-issues';
 import type { Solver } from '../../io/solve-input';
+import type { RequestSettings } from '../../reading/request';
 import { solve } from '../engine-source';
 
 export interface FileSummary {
@@ -34,7 +35,15 @@ export interface PlanSummary {
 
 export type ImportRequest =
   | { id: number; kind: 'open'; text: string }
-  | { id: number; kind: 'plan'; mapping: ColumnMapping; sites: SiteDoc[]; previewRows: number }
+  | {
+      id: number;
+      kind: 'plan';
+      mapping: ColumnMapping;
+      sites: SiteDoc[];
+      previewRows: number;
+      /** Settings the rows are computed with, as on their reading pages. */
+      settings?: RequestSettings;
+    }
   | { id: number; kind: 'take' };
 
 export type ImportResponse =
@@ -44,7 +53,7 @@ export type ImportResponse =
   | { id: number; kind: 'failed'; message: string };
 
 let csv: ParsedCsv | undefined;
-let last: { plan: ImportPlan; sites: SiteDoc[] } | undefined;
+let last: { plan: ImportPlan; sites: SiteDoc[]; settings?: RequestSettings } | undefined;
 
 const safeSolve: Solver = (input) => {
   try {
@@ -68,7 +77,7 @@ async function answer(req: ImportRequest): Promise<ImportResponse> {
     case 'plan': {
       if (!csv) throw new Error('no file is open');
       const plan = await planImport(csv, req.mapping, req.sites);
-      last = { plan, sites: req.sites };
+      last = req.settings ? { plan, sites: req.sites, settings: req.settings } : { plan, sites: req.sites };
       return {
         id: req.id,
         kind: 'plan',
@@ -77,14 +86,16 @@ async function answer(req: ImportRequest): Promise<ImportResponse> {
           newSites: plan.newSites,
           errors: plan.errors,
           duplicateRows: plan.duplicateRows,
-          preview: previewImport(plan, req.sites, safeSolve, req.previewRows),
+          preview: previewImport(plan, req.sites, safeSolve, req.previewRows, req.settings),
         },
       };
     }
     case 'take': {
       if (!last) throw new Error('nothing is planned');
       // Rows the engine cannot compute are kept (they are data) and reported as warnings.
-      const warnings = last.plan.errors.length ? [] : computeWarnings(last.plan, last.sites, safeSolve);
+      const warnings = last.plan.errors.length
+        ? []
+        : computeWarnings(last.plan, last.sites, safeSolve, last.settings);
       return { id: req.id, kind: 'take', plan: last.plan, warnings };
     }
   }

@@ -22,12 +22,9 @@ import {
   show,
   speciation,
 } from './plan-model';
+import { formOfSavedPlan, type SavedPlan } from './saved-plan';
 
-export interface SavedPlan {
-  request: Record<string, unknown>;
-  result: PlanOutput;
-  saved_at: string;
-}
+export type { SavedPlan } from './saved-plan';
 
 export interface PlanPanelProps {
   /** The reading's solve input. */
@@ -35,6 +32,8 @@ export interface PlanPanelProps {
   onSave: (plan: SavedPlan) => void;
   /** Water volume to start with, litres. */
   volumeL?: number;
+  /** A plan saved with the reading: the panel opens with its fields and shows it again. */
+  saved?: SavedPlan;
   /** The engine call; defaults to the in-page `plan()` (a plan takes milliseconds). */
   engine?: (request: unknown) => PlanResult;
 }
@@ -97,14 +96,40 @@ const TARGET_LABELS: Partial<Record<TargetQuantity, string>> = {
   calcium_umol_kg: 'calcium (µmol/kg)',
 };
 
-export function PlanPanel({ reading, onSave, volumeL, engine = plan }: PlanPanelProps) {
-  const [form, setForm] = useState<PanelForm>({
-    ...DEFAULT_FORM,
-    volumeL: volumeL === undefined ? DEFAULT_FORM.volumeL : String(volumeL),
-  });
-  const [result, setResult] = useState<{ request: Record<string, unknown>; out: PlanOutput } | undefined>();
-  const [problem, setProblem] = useState<{ field?: string; text: string } | undefined>();
-  const [saved, setSaved] = useState(false);
+/** Runs the planner for the form; a field that cannot be read or an engine refusal becomes a problem. */
+function runPlan(
+  reading: Readonly<Record<string, unknown>>,
+  form: PanelForm,
+  engine: (request: unknown) => PlanResult,
+):
+  | { result: { request: Record<string, unknown>; out: PlanOutput } }
+  | { problem: { field?: string; text: string } } {
+  try {
+    const request = planRequest(reading, form);
+    const r = engine(request);
+    if (isPlanError(r)) return { problem: { text: `${r.error.message} (${r.error.code})` } };
+    return { result: { request, out: r } };
+  } catch (err) {
+    if (err instanceof FieldError) return { problem: { field: err.field, text: err.message } };
+    return { problem: { text: `Unexpected failure: ${(err as Error).message}` } };
+  }
+}
+
+export function PlanPanel({ reading, onSave, volumeL, saved: savedPlan, engine = plan }: PlanPanelProps) {
+  const [form, setForm] = useState<PanelForm>(() =>
+    savedPlan
+      ? formOfSavedPlan(savedPlan)
+      : { ...DEFAULT_FORM, volumeL: volumeL === undefined ? DEFAULT_FORM.volumeL : String(volumeL) },
+  );
+  // A saved plan is shown again, computed now from this reading's request (its "before" is today's truth).
+  const [first] = useState(() => (savedPlan ? runPlan(reading, form, engine) : undefined));
+  const [result, setResult] = useState<{ request: Record<string, unknown>; out: PlanOutput } | undefined>(
+    first && 'result' in first ? first.result : undefined,
+  );
+  const [problem, setProblem] = useState<{ field?: string; text: string } | undefined>(
+    first && 'problem' in first ? first.problem : undefined,
+  );
+  const [saved, setSaved] = useState(savedPlan !== undefined);
 
   const set = <K extends keyof PanelForm>(k: K, value: PanelForm[K]) => {
     setForm({ ...form, [k]: value });
@@ -112,21 +137,9 @@ export function PlanPanel({ reading, onSave, volumeL, engine = plan }: PlanPanel
   };
   const run = (e: Event) => {
     e.preventDefault();
-    try {
-      const request = planRequest(reading, form);
-      const r = engine(request);
-      if (isPlanError(r)) {
-        setProblem({ text: `${r.error.message} (${r.error.code})` });
-        setResult(undefined);
-      } else {
-        setProblem(undefined);
-        setResult({ request, out: r });
-      }
-    } catch (err) {
-      if (err instanceof FieldError) setProblem({ field: err.field, text: err.message });
-      else setProblem({ text: `Unexpected failure: ${(err as Error).message}` });
-      setResult(undefined);
-    }
+    const r = runPlan(reading, form, engine);
+    setResult('result' in r ? r.result : undefined);
+    setProblem('problem' in r ? r.problem : undefined);
   };
 
   const field = (k: keyof PanelForm, label: string, hint?: string) => (
@@ -254,7 +267,12 @@ export function PlanPanel({ reading, onSave, volumeL, engine = plan }: PlanPanel
             type="button"
             style={{ ...S.button, background: BG, color: ACCENT }}
             onClick={() => {
-              onSave({ request: result.request, result: result.out, saved_at: new Date().toISOString() });
+              onSave({
+                request: result.request,
+                result: result.out,
+                saved_at: new Date().toISOString(),
+                form,
+              });
               setSaved(true);
             }}
           >
@@ -301,7 +319,7 @@ function PlanResultView({ out }: { out: PlanOutput }) {
           </thead>
           <tbody>
             {rows.map((r) => (
-              <tr>
+              <tr data-key={r.key} data-before={String(r.before)} data-after={String(r.after)}>
                 <th scope="row" style={{ ...S.cell, textAlign: 'left', fontWeight: 400 }}>
                   {r.label}
                 </th>

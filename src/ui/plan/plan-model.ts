@@ -123,6 +123,11 @@ export function planRequest(
       if (dkh !== undefined) action.max_alkalinity_step_dkh = dkh;
       if (f.amountUnit === 'ml_stock')
         action.stock_mol_l = need(f.stockMolL, 'stockMolL', 'Stock strength (mol/L)');
+      else {
+        // Dosed by weighing the product: its purity scales the mass (the engine refuses > 100 %).
+        const purity = parseDecimal(f.purityPercent, 'purityPercent', 'Purity (%)');
+        if (purity !== undefined) action.purity_percent = purity;
+      }
       break;
     }
     case 'mix': {

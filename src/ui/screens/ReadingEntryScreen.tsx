@@ -11,13 +11,11 @@ import type { TitrateOutcome } from '../../chem/titration/titrate';
 import { storeIssue } from '../../store/errors';
 import type { MeasuredValue, ReadingDoc, SiteDoc } from '../../store/schema';
 import { useApp } from '../app-context';
-import { solveInWorker, titrateInWorker } from '../engine-client';
+import { solveReadingInWorker } from '../engine-client';
 import { formatNumber, parseDecimal } from '../numbers';
 import { plainWords } from '../plain-words';
 import { QUANTITIES, quantity, quantityForKey } from '../quantities';
 import { go } from '../router';
-import { readingInput } from '../solve-context';
-import { titrationInput, withTitration } from '../titration';
 import { ResultsPanel } from './ResultsPanel';
 import {
   EMPTY_TITRATION,
@@ -68,6 +66,7 @@ export function ReadingEntryScreen(props: { siteId?: string; readingId?: string 
   const { repo, settings, locale, notify, dataChanged } = useApp();
   const [site, setSite] = useState<SiteDoc>();
   const [existing, setExisting] = useState<ReadingDoc>();
+  const [carried, setCarried] = useState<MeasuredValue[]>([]);
   const [rows, setRows] = useState<Row[]>([]);
   const [when, setWhen] = useState(() => toLocalInput(new Date()));
   const [notes, setNotes] = useState('');
@@ -87,7 +86,14 @@ export function ReadingEntryScreen(props: { siteId?: string; readingId?: string 
         if (r) {
           setExisting(r);
           s = await repo.getSite(r.siteId);
-          setRows(rowsFrom(r.values, locale));
+          // A titration's result carried by an imported file is not typed: it stays as it is.
+          setRows(
+            rowsFrom(
+              r.values.filter((v) => v.source === undefined),
+              locale,
+            ),
+          );
+          setCarried(r.values.filter((v) => v.source !== undefined));
           setWhen(toLocalInput(new Date(r.takenAt)));
           setNotes(r.notes);
           setTform(formFromRecord(r.titration));
@@ -117,9 +123,12 @@ export function ReadingEntryScreen(props: { siteId?: string; readingId?: string 
       }),
     [rows, locale],
   );
-  const values: MeasuredValue[] = parsed
-    .filter((p) => p.value !== undefined)
-    .map((p) => ({ quantity: p.row.quantity, unit: p.row.unit, value: p.value as number }));
+  const values: MeasuredValue[] = [
+    ...parsed
+      .filter((p) => p.value !== undefined)
+      .map((p) => ({ quantity: p.row.quantity, unit: p.row.unit, value: p.value as number })),
+    ...carried,
+  ];
   const valuesKey = JSON.stringify(values);
 
   const titration = useMemo(() => recordFromForm(tform, locale), [tform, locale]);
@@ -135,15 +144,10 @@ export function ReadingEntryScreen(props: { siteId?: string; readingId?: string 
     const mine = ++seq.current;
     setBusy(true);
     const t = setTimeout(async () => {
-      let reduced: TitrateOutcome | undefined;
-      if (titration.record) {
-        const ti = titrationInput(titration.record, values);
-        reduced = 'code' in ti ? { error: ti } : await titrateInWorker(ti);
-      }
-      const { input } = readingInput(values, site, settings);
-      const r = await solveInWorker(
-        withTitration(input, reduced && !('error' in reduced) ? reduced : undefined),
-      );
+      // The draft goes through the same request function as a stored reading (in the worker).
+      const draft = titration.record ? { values, titration: titration.record } : { values };
+      const { request, result: r } = await solveReadingInWorker(draft, site, settings);
+      const reduced = request.titration;
       if (mine !== seq.current) return; // a newer keystroke won
       setToutcome(reduced);
       setResult(r);

@@ -3,18 +3,20 @@
 import { useEffect, useRef, useState } from 'preact/hooks';
 import type { SolveOutput, SolveResult } from '../../chem/api';
 import { isSolveError } from '../../chem/api';
-import type { TitrateOutcome } from '../../chem/titration/titrate';
+import type { ReadingRequest } from '../../reading/request';
 import { storeIssue } from '../../store/errors';
 import type { ReadingDoc, SiteDoc } from '../../store/schema';
 import { useApp } from '../app-context';
 import { drawSpeciation, fractionsAt } from '../charts/speciation';
-import { solveInWorker, titrateInWorker } from '../engine-client';
+import { solveReadingInWorker } from '../engine-client';
 import { formatDateTime, formatNumber } from '../numbers';
+import { asSavedPlan } from '../plan/saved-plan';
 import { quantity } from '../quantities';
 import { go } from '../router';
-import { readingInput } from '../solve-context';
-import { METHOD_LABELS, titrationInput, withTitration } from '../titration';
+import { METHOD_LABELS } from '../titration';
+import { InputsUsed } from './InputsUsed';
 import { ResultsPanel } from './ResultsPanel';
+import { SavedPlanView } from './SavedPlanView';
 import { TitrationSummary } from './TitrationSection';
 
 function Speciation(props: { result: SolveOutput }) {
@@ -75,7 +77,7 @@ export function ReadingScreen(props: { readingId: string }) {
   const [reading, setReading] = useState<ReadingDoc | null>();
   const [site, setSite] = useState<SiteDoc>();
   const [result, setResult] = useState<SolveResult>();
-  const [toutcome, setToutcome] = useState<TitrateOutcome>();
+  const [request, setRequest] = useState<ReadingRequest>();
   // The planning panel carries the plan engine: loaded only when asked for.
   const [Planner, setPlanner] = useState<PlanPanelType>();
 
@@ -86,21 +88,11 @@ export function ReadingScreen(props: { readingId: string }) {
       setReading(r);
       const s = await repo.getSite(r.siteId);
       setSite(s);
-      // A stored titration is raw data: reduce it again now (methods may have improved).
-      let reduced: TitrateOutcome | undefined;
-      if (r.titration) {
-        const ti = titrationInput(r.titration, r.values);
-        reduced = 'code' in ti ? { error: ti } : await titrateInWorker(ti);
-      }
-      setToutcome(reduced);
-      const input = readingInput(r.values, s, settings).input;
-      const full = withTitration(input, reduced && !('error' in reduced) ? reduced : undefined);
-      // Uncertainty of every output from the constants (Orr et al. 2018 values in the engine) and the pH reading.
-      full.uncertainty = {
-        constants: true,
-        ...(typeof full.ph === 'number' ? { ph: settings.ph_uncertainty } : {}),
-      };
-      setResult(await solveInWorker(full));
+      // The one request of this reading (src/reading/request.ts, made in the engine worker): a
+      // stored titration is raw data, reduced again now; uncertainties of pH, titration and constants.
+      const solved = await solveReadingInWorker(r, s, settings, true);
+      setRequest(solved.request);
+      setResult(solved.result);
     })().catch((e) => reportError(storeIssue(e)));
   }, [props.readingId, settings]);
 
@@ -128,6 +120,7 @@ export function ReadingScreen(props: { readingId: string }) {
   }
 
   const ok = result && !isSolveError(result) ? result : undefined;
+  const savedPlan = asSavedPlan(reading.plan);
   return (
     <article aria-labelledby="reading-h">
       <div class="titlebar">
@@ -149,8 +142,11 @@ export function ReadingScreen(props: { readingId: string }) {
             const q = quantity(v.quantity);
             const u = q?.units.find((x) => x.id === v.unit);
             return (
-              <div class="output" key={v.quantity}>
-                <dt>{q?.label ?? v.quantity}</dt>
+              <div class="output" key={`${v.quantity}-${v.source ?? 'typed'}`}>
+                <dt>
+                  {q?.label ?? v.quantity}
+                  {v.source === 'titration' && ' (from a titration)'}
+                </dt>
                 <dd>
                   <span class="value">{formatNumber(v.value, locale, { digits: 6 })}</span>
                   {u && u.label !== 'pH' && <span class="unit"> {u.label}</span>}
@@ -171,12 +167,13 @@ export function ReadingScreen(props: { readingId: string }) {
             {METHOD_LABELS[(reading.titration.method as keyof typeof METHOD_LABELS | undefined) ?? 'gran'] ??
               reading.titration.method}
           </p>
-          <TitrationSummary outcome={toutcome} />
+          <TitrationSummary outcome={request?.titration} />
         </section>
       )}
       <section class="panel" aria-labelledby="computed-h">
         <h2 id="computed-h">Computed</h2>
         <ResultsPanel result={result} full />
+        {request && <InputsUsed request={request} />}
       </section>
       {ok && (
         <>
@@ -251,10 +248,11 @@ export function ReadingScreen(props: { readingId: string }) {
         </>
       )}
       <section class="panel" aria-label="Plan a change">
-        {reading.plan !== undefined && <p class="muted">A plan is saved with this reading.</p>}
-        {Planner ? (
+        {reading.plan !== undefined && <SavedPlanView plan={reading.plan} />}
+        {Planner && request ? (
           <Planner
-            reading={readingInput(reading.values, site, settings).input}
+            reading={request.input}
+            {...(savedPlan ? { saved: savedPlan } : {})}
             onSave={async (plan) => {
               try {
                 setReading(await repo.updateReading(reading.id, { plan }));
@@ -275,7 +273,7 @@ export function ReadingScreen(props: { readingId: string }) {
               )
             }
           >
-            Plan a dose, aeration or mix for this water
+            {savedPlan ? 'Open the saved plan in the planner' : 'Plan a dose, aeration or mix for this water'}
           </button>
         )}
       </section>

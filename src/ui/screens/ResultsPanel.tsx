@@ -42,7 +42,8 @@ export function ResultsPanel(props: { result: SolveResult | undefined; busy?: bo
     <section class={`results${props.busy ? ' busy' : ''}`} aria-live="polite" aria-label="Results">
       <dl class="outputs">
         {rows.map(({ def, value }) => (
-          <div class="output" key={def.key} data-key={def.key}>
+          // data-value: the engine's number in full, so tests (and copy tools) can compare exactly.
+          <div class="output" key={def.key} data-key={def.key} data-value={String(value)}>
             <dt>{def.label}</dt>
             <dd>
               <span class="value">

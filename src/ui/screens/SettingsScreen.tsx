@@ -233,7 +233,7 @@ export function SettingsScreen() {
         <p class="muted">Loading sharing with a server…</p>
       )}
       {Data ? (
-        <Data repo={repo} onDataChanged={dataChanged} />
+        <Data repo={repo} onDataChanged={dataChanged} settings={settings} />
       ) : (
         <p class={dataIssue ? 'issue error' : 'muted'}>{dataIssue ?? 'Loading import and export…'}</p>
       )}

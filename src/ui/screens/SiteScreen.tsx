@@ -10,12 +10,11 @@ import { useApp } from '../app-context';
 import type { Columnar, PointSeries } from '../charts/chart-data';
 import { mergeSeries } from '../charts/chart-data';
 import type { TimeChart } from '../charts/time-chart';
-import { solveColumns } from '../engine-client';
+import { resultColumns, solveReadingsInWorker } from '../engine-client';
 import { formatDateTime, formatNumber } from '../numbers';
 import { OUTPUTS } from '../outputs';
 import { quantity } from '../quantities';
 import { go } from '../router';
-import { readingInput } from '../solve-context';
 import { kindLabel } from './SitesScreen';
 
 const PAGE = 50;
@@ -95,8 +94,9 @@ export function SiteScreen(props: { siteId: string }) {
         const t = Float64Array.from(rs, (r) => Date.parse(r.takenAt) / 1000);
         const computedKeys = selected.filter((id) => id.startsWith('c:')).map((id) => id.slice(2));
         const computed = computedKeys.length
-          ? await solveColumns(
-              rs.map((r) => readingInput(r.values, s ?? undefined, settings).input),
+          ? resultColumns(
+              (await solveReadingsInWorker(rs, new Map(s ? [[s.id, s]] : []), settings, computedKeys))
+                .results,
               computedKeys,
             )
           : [];
@@ -257,7 +257,7 @@ export function SiteScreen(props: { siteId: string }) {
             setExporting(true);
             try {
               const { downloadText, fileStem, readingsCsv } = await import('../data/csv-download');
-              const text = await readingsCsv(repo, props.siteId);
+              const text = await readingsCsv(repo, settings, props.siteId);
               const day = new Date().toISOString().slice(0, 10);
               downloadText(`${fileStem(site?.name ?? '')}-${day}.csv`, text, 'text/csv');
             } catch (e) {

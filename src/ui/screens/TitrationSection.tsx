@@ -3,7 +3,11 @@
 import type { Issue } from '../../chem/errors';
 import { ACID_HANDLING_CAUTION } from '../../chem/titration/acidCautions';
 import type { TitrateOutcome } from '../../chem/titration/titrate';
-import { TITRATION_METHODS, type TitrationMethod } from '../../chem/titration/types';
+import {
+  DEFAULT_TITRATION_METHOD,
+  TITRATION_METHODS,
+  type TitrationMethod,
+} from '../../chem/titration/types';
 import type { TitrationRecord } from '../../store/schema';
 import { useApp } from '../app-context';
 import { formatNumber, parseDecimal } from '../numbers';
@@ -22,7 +26,7 @@ export const EMPTY_TITRATION: TitrationForm = {
   sampleVolume: '',
   normality: '',
   correction: '',
-  method: 'gran',
+  method: DEFAULT_TITRATION_METHOD,
   endpoint: '',
   pointsText: '',
 };

@@ -315,6 +315,10 @@ export function reduceModifiedGran(curve: TitrationCurve, opts: ModifiedGranOpti
     drV[j] = (r.y - y[j]! - s * DV - cc * (r.g - g[j]!)) / DV;
   }
   const n = curve.ph.length;
+  const k0 = opts.constantsAt(ionic0);
+  const h0 = 10 ** -curve.ph[0]!;
+  // Open vessel: DIC of the sample = CO2*·(1 + K1/h0 + K1K2/h0²) at its first reading.
+  const openFactor = open ? 1 + k0.k1 / h0 + (k0.k1 * k0.k2) / (h0 * h0) : 1;
   const toPoints = (byParam: Float64Array[]) => {
     const ta = new Float64Array(n);
     const dic = new Float64Array(n);
@@ -326,9 +330,9 @@ export function reduceModifiedGran(curve: TitrationCurve, opts: ModifiedGranOpti
         ddic += gDic[a]! * byParam[a]![j]!;
       }
       ta[used[j]!] = dta;
-      dic[used[j]!] = ddic;
+      dic[used[j]!] = ddic * openFactor;
     }
-    return open ? { alkalinity: ta } : { alkalinity: ta, dic };
+    return { alkalinity: ta, dic };
   };
   const sensitivity: PointSensitivity = {
     ph: toPoints(parameterSensitivities(inv, jac, w, drPh)),
@@ -358,10 +362,7 @@ export function reduceModifiedGran(curve: TitrationCurve, opts: ModifiedGranOpti
       ),
     );
   }
-  const k0 = opts.constantsAt(ionic0);
-  const dic = open
-    ? carbon * (1 + k0.k1 / 10 ** -curve.ph[0]! + (k0.k1 * k0.k2) / 10 ** (-2 * curve.ph[0]!))
-    : carbon;
+  const dic = carbon * openFactor;
   const rmsValue = Math.sqrt(residuals.reduce((t, r) => t + r * r, 0) / m);
   const details: Record<string, number> = {
     slope: s,
@@ -375,7 +376,7 @@ export function reduceModifiedGran(curve: TitrationCurve, opts: ModifiedGranOpti
     min_ph: MODIFIED_GRAN_MIN_PH,
     max_ph: MODIFIED_GRAN_MAX_PH,
   };
-  if (!open) details.dic_se_mmol_l = dicSe * 1e3;
+  details.dic_se_mmol_l = dicSe * openFactor * 1e3;
   return {
     equivalenceVolumeMl: ve,
     alkalinityEqL: alkalinity,
@@ -386,7 +387,7 @@ export function reduceModifiedGran(curve: TitrationCurve, opts: ModifiedGranOpti
     confidence: {
       level,
       alkalinity_se_meq_l: taSe * 1e3,
-      ...(open ? {} : { dic_se_mmol_l: dicSe * 1e3 }),
+      dic_se_mmol_l: dicSe * openFactor * 1e3,
       points_used: m,
       points_past_endpoint: past,
     },

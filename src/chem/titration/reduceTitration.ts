@@ -122,7 +122,11 @@ export function reduceTitrationWithHints(
     });
   } else {
     if (method === 'gran') {
-      core = reduceGran(t.curve, { sampleVolumeMl: t.sampleVolumeMl, maxPh: input.gran_max_ph });
+      core = reduceGran(t.curve, {
+        sampleVolumeMl: t.sampleVolumeMl,
+        maxPh: input.gran_max_ph,
+        titrantEqL: t.titrantEqL,
+      });
     } else if (method === 'inflection') {
       core = reduceInflection(t.curve);
     } else if (method === 'two_endpoint') {

@@ -97,13 +97,23 @@ export function titrationUncertainty(
   // then cost nothing more (linear in the number of points); the others are perturbed one by one.
   const sens = base.sensitivity;
   const analytic = sens === undefined ? [] : inputs.filter((i) => i.name === 'ph' || i.name === 'volume_ml');
-  const numeric = inputs.filter((i) => !analytic.includes(i));
+  // Without sensitivities, only the readings a method used can move its result to first order
+  // (a reading outside its selection changes nothing until it crosses a selection edge).
+  const usedPoints = base.result.fit.points_used;
+  const numeric = inputs
+    .filter((i) => !analytic.includes(i))
+    .map((i) => ((i.components ?? 1) > 1 ? { ...i, components: usedPoints.length } : i));
   const evaluate: Evaluate = (p) =>
     p === null
       ? outputsOf(base.result)
       : outputsOf(
           reduceTitrationWithHints(
-            perturbed(input, p.name as TitrationUncertaintyKey, p.index, p.delta),
+            perturbed(
+              input,
+              p.name as TitrationUncertaintyKey,
+              p.name === 'ph' || p.name === 'volume_ml' ? usedPoints[p.index]! : p.index,
+              p.delta,
+            ),
             makeConstants,
             base.hints,
           ).result,

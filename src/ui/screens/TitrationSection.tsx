@@ -126,6 +126,20 @@ export function TitrationSummary(props: { outcome: TitrateOutcome | undefined })
             <span class="unit"> ({o.fit.points_used.length} points)</span>
           </dd>
         </div>
+        {o.confidence.level !== 'not_estimated' && (
+          <div class="output" data-key="titration-confidence">
+            <dt>Confidence</dt>
+            <dd>
+              <span class="value">{o.confidence.level}</span>
+              {o.confidence.alkalinity_se_meq_l !== undefined && (
+                <span class="unit">
+                  {' '}
+                  (± {formatNumber(o.confidence.alkalinity_se_meq_l, locale, { digits: 2 })} meq/L)
+                </span>
+              )}
+            </dd>
+          </div>
+        )}
       </dl>
       {o.warnings.map((w, i) => (
         <p key={`${w.code}-${i}`} class="issue warn">

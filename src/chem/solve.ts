@@ -21,7 +21,7 @@ import { choosePair, parseSolveInput, type SolveRequest } from './input';
 import { applyShifts, type ConstantShifts, constantsFor } from './models';
 import { bufferFactors, revelleFactor } from './solver/buffer';
 import { type Param, solvePair } from './solver/pairs';
-import { addTradeOutputs, type TradeContext } from './trades/solveOutputs';
+import { addTradeOutputs, type TradeContext, uncertaintyWithCalibration } from './trades/solveOutputs';
 import type { CarbonateState, ConstantSet, MinorTotals, PhScale, WaterModel } from './types';
 import { solveUncertainty } from './uncertainty/solveUncertainty';
 
@@ -54,7 +54,7 @@ export function solve(input: unknown, options: SolveOptions = {}): SolveResult {
 function solveWithUncertainty(input: Record<string, unknown>, options: SolveOptions): SolveOutput {
   const { uncertainty, ...plain } = input;
   const out = solveRequest(parseSolveInput(plain), options);
-  out.uncertainty = solveUncertainty(plain, uncertainty, out, (i, o) =>
+  out.uncertainty = solveUncertainty(plain, uncertaintyWithCalibration(plain, uncertainty), out, (i, o) =>
     solve(i, o.shifts ? { ...options, shifts: { ...options.shifts, ...o.shifts } } : options),
   );
   return out;

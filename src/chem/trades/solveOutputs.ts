@@ -11,6 +11,12 @@ import type { CarbonateState, ConstantSet, MinorTotals } from '../types';
 import { densityKgL } from '../units';
 import { EMERSON_1975_VALIDITY_C, N_G_PER_MOL, pkaAmmoniaEmerson1975, unionizedAmmonia } from './ammonia';
 import { co2FluxMmolM2D, k600Raymond2012, kCo2FromK600, SCHMIDT_VALIDITY_C, schmidtCo2 } from './gasExchange';
+import {
+  type CalibrationRecord,
+  type CalibrationResult,
+  phCalibration,
+  phUncertaintyFromCalibration,
+} from './phCalibration';
 import { hydrogenSulfide, S_G_PER_MOL } from './sulfide';
 
 export const TRADE_INPUT_KEYS = [
@@ -20,6 +26,7 @@ export const TRADE_INPUT_KEYS = [
   'stream_slope',
   'stream_velocity_m_s',
   'stream_depth_m',
+  'ph_calibration',
 ] as const;
 // air_pco2_uatm (default 420 µatm) is already a key of the solve contract (src/chem/fresh/request.ts).
 
@@ -42,6 +49,8 @@ export interface TradeOutputs {
   k_co2_m_d: number;
   air_pco2_uatm: number;
   co2_flux_mmol_m2_d: number;
+  /** The day's pH meter calibration, when given, and the pH uncertainty it leaves. */
+  ph_calibration: CalibrationResult & { ph_standard_uncertainty: number | null };
 }
 
 function nonNegative(raw: Readonly<Record<string, unknown>>, key: string): number | undefined {
@@ -140,6 +149,24 @@ export function addTradeOutputs(
     o.hydrogen_sulfide_mg_l = h2s.h2s_mg_l;
     o.sulfide_pk1 = pk1;
   }
+  const cal = calibrationOf(ctx.raw);
+  if (cal !== undefined) {
+    const measured = numberAt(ctx.raw, 'ph');
+    o.ph_calibration = {
+      ...cal,
+      ph_standard_uncertainty: measured === undefined ? null : phUncertaintyFromCalibration(cal, measured),
+    };
+    if (!cal.accepted) {
+      addOnce(
+        warnings,
+        warning(
+          'ph-calibration-refused',
+          `The pH meter calibration fails the usual limits (${cal.reasons.join('; ')}): recalibrate before trusting the pH and everything computed from it.`,
+          'ph_calibration',
+        ),
+      );
+    }
+  }
   const k600 = k600Of(ctx.raw);
   if (k600 !== undefined) {
     const air = nonNegative(ctx.raw, 'air_pco2_uatm') ?? DEFAULT_AIR_PCO2_UATM;
@@ -195,4 +222,27 @@ function k600Of(raw: Readonly<Record<string, unknown>>): number | undefined {
 
 function addOnce(into: Issue[], w: Issue): void {
   if (!into.some((x) => x.code === w.code && x.message === w.message)) into.push(w);
+}
+
+function calibrationOf(raw: Readonly<Record<string, unknown>>): CalibrationResult | undefined {
+  const c = raw.ph_calibration;
+  if (c === undefined || c === null) return undefined;
+  if (typeof c !== 'object')
+    fail('ph-calibration-invalid', 'ph_calibration must be an object.', 'ph_calibration');
+  return phCalibration(c as CalibrationRecord);
+}
+
+/**
+ * The uncertainty request of a solve with the pH uncertainty taken from the day's calibration
+ * when the request names none: the calibration's quality feeds the pH uncertainty.
+ */
+export function uncertaintyWithCalibration(
+  plain: Readonly<Record<string, unknown>>,
+  uncertainty: unknown,
+): unknown {
+  if (typeof uncertainty !== 'object' || uncertainty === null || 'ph' in uncertainty) return uncertainty;
+  const cal = calibrationOf(plain);
+  const ph = numberAt(plain, 'ph');
+  if (cal === undefined || ph === undefined) return uncertainty;
+  return { ...uncertainty, ph: phUncertaintyFromCalibration(cal, ph) };
 }

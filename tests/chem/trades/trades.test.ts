@@ -191,4 +191,34 @@ describe('pH meter calibration', () => {
       }),
     ).toThrow(/differ/);
   });
+  it('solve: the calibration is reported, warns when refused, and feeds the pH uncertainty', () => {
+    const s = nernstSlopeMv(18);
+    const good = {
+      temperature_c: 18,
+      buffers: [4.0, 7.0, 10.06].map((ph, i) => ({ ph, mv: -0.99 * s * (ph - 7) + 4 + (i - 1) * 0.3 })),
+      time: '2026-11-14T08:10:00Z',
+    };
+    const water = { temperature_c: 18, ph: 7.4, alkalinity_meq_l: 2, model: 'fresh', ph_calibration: good };
+    const r = solved({ ...water, uncertainty: { alkalinity_meq_l: 0.02 } });
+    expect(r.ph_calibration!.accepted).toBe(true);
+    expect(r.ph_calibration!.slope_percent).toBeCloseTo(99, 0);
+    const u = r.ph_calibration!.ph_standard_uncertainty!;
+    expect(u).toBeGreaterThan(0.01);
+    expect(r.uncertainty!.pco2_uatm!.contributions.ph).toBeGreaterThan(0);
+    // The pH uncertainty moves pCO2 exactly as an explicit "ph": u would.
+    const explicit = solved({ ...water, uncertainty: { alkalinity_meq_l: 0.02, ph: u } });
+    expect(r.uncertainty!.pco2_uatm!.standard_uncertainty).toBeCloseTo(
+      explicit.uncertainty!.pco2_uatm!.standard_uncertainty,
+      10,
+    );
+    const bad = {
+      temperature_c: 18,
+      buffers: [
+        { ph: 4, mv: 150 },
+        { ph: 7, mv: 0 },
+      ],
+    };
+    const refused = solved({ ...water, ph_calibration: bad });
+    expect(refused.warnings.map((w) => w.code)).toContain('ph-calibration-refused');
+  });
 });

@@ -54,7 +54,7 @@ export function reduceGran(curve: TitrationCurve, opts: GranOptions): MethodResu
     fail(
       'gran-too-few-points',
       `Gran needs at least ${GRAN_MIN_POINTS} points between pH ${GRAN_MIN_PH} and ${maxPh}; got ${candidates.length}. ` +
-        'Keep adding acid past the endpoint.',
+        'Keep adding acid past the endpoint, or use method modified_gran (the default), which also uses the readings before it.',
       'points',
     );
   }

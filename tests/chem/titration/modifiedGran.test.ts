@@ -5,6 +5,7 @@ import {
   reduceTitrationWithHints,
 } from '../../../src/chem/titration/reduceTitration';
 import type { TitrationInput } from '../../../src/chem/titration/types';
+import { titrationUncertainty } from '../../../src/chem/uncertainty/titrationUncertainty';
 import { densityKgL } from '../../../src/chem/units';
 import { GRID, gridTitration, makerFor } from './activityTitration';
 import { constantsAt25 } from './constantsFixture';
@@ -147,5 +148,38 @@ describe('per-reading sensitivities of the default', () => {
       expect(Math.abs(base.sensitivity!.ph.alkalinity[i]! / byPh - 1)).toBeLessThan(0.1);
       expect(Math.abs(base.sensitivity!.volume_ml.alkalinity[i]! / byVol - 1)).toBeLessThan(0.1);
     }
+  });
+});
+
+describe('per-reading uncertainty through sensitivities matches one reduction per reading', () => {
+  it.each(['modified_gran', 'gran', 'curve_fit'] as const)('%s', (method) => {
+    const input = {
+      ...gridTitration({ alkalinityMeqL: 1, dicRatio: 1.5, normality: 0.05 }, 'engine', 3.0, 0.005, 11),
+      method,
+    };
+    const u = { ph: 0.01, volume_ml: 0.002 };
+    const fast = titrationUncertainty(input, u, freshTitrationConstants);
+    // Brute force: move every reading in turn (central differences), starting from the same hints.
+    const base = reduceTitrationWithHints(input, freshTitrationConstants);
+    const ta = (i: TitrationInput) =>
+      reduceTitrationWithHints(i, freshTitrationConstants, base.hints).result.alkalinity_meq_l;
+    let varPh = 0;
+    let varVol = 0;
+    for (let i = 0; i < input.points.length; i++) {
+      const d = 1e-5;
+      const at = (dph: number, dv: number) => ({
+        ...input,
+        points: input.points.map((p, j) =>
+          j === i ? { ph: p.ph + dph, volume_ml: p.volume_ml! + (p.volume_ml === 0 ? 0 : dv) } : p,
+        ),
+      });
+      varPh += (((ta(at(d, 0)) - ta(at(-d, 0))) / (2 * d)) * u.ph) ** 2;
+      if (input.points[i]!.volume_ml !== 0) {
+        varVol += (((ta(at(0, d)) - ta(at(0, -d))) / (2 * d)) * u.volume_ml) ** 2;
+      }
+    }
+    const c = fast.alkalinity_meq_l!.contributions;
+    expect(Math.abs(c.ph! / Math.sqrt(varPh) - 1), 'ph').toBeLessThan(0.05);
+    expect(Math.abs(c.volume_ml! / Math.sqrt(varVol) - 1), 'volume_ml').toBeLessThan(0.05);
   });
 });

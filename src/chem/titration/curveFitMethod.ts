@@ -60,8 +60,10 @@ export function reduceCurveFit(curve: TitrationCurve, k: ConstantSet, opts: Curv
   const model = (p: readonly number[], out: Float64Array) => {
     const s = sampleOf(p, system);
     const offset = fitOffset ? p[2]! : 0;
+    // Newton starts from the reading itself, which the modelled pH is close to.
     for (let i = 0; i < n; i++)
-      out[i] = phAfterAcid(s, k, sampleVolumeMl, titrantEqL, curve.volumeMl[i]!) + offset;
+      out[i] =
+        phAfterAcid(s, k, sampleVolumeMl, titrantEqL, curve.volumeMl[i]!, curve.ph[i]! - offset) + offset;
   };
   const ta0 = opts.alkalinityGuess;
   const start: number[] = opts.start
@@ -145,7 +147,9 @@ export function reduceCurveFit(curve: TitrationCurve, k: ConstantSet, opts: Curv
       const s0 = sampleOf(p, system);
       const offset = fitOffset ? p[2]! : 0;
       for (let i = 0; i < n; i++)
-        out[i] = phAfterAcid(s0, k, sampleVolumeMl, titrantEqL, curve.volumeMl[i]! + dv) + offset;
+        out[i] =
+          phAfterAcid(s0, k, sampleVolumeMl, titrantEqL, curve.volumeMl[i]! + dv, curve.ph[i]! - offset) +
+          offset;
     },
   );
   return {

@@ -184,6 +184,7 @@ export function reduceModifiedGran(curve: TitrationCurve, opts: ModifiedGranOpti
   let inverse: number[][] | null = null;
   let ionic0 = Number.NaN;
   let reweights = 0;
+  let settled = false;
   const DPH = 1e-6;
   const DV = 1e-6;
   for (let pass = 0; pass < MAX_IONIC_PASSES; pass++) {
@@ -203,10 +204,11 @@ export function reduceModifiedGran(curve: TitrationCurve, opts: ModifiedGranOpti
       y[j] = r.y;
       g[j] = r.g;
     }
-    let ve = (-p[1]! / p[0]!) as number;
+    let ve = -p[1]! / p[0]!;
+    settled = false;
     for (let it = 0; it < MAX_REWEIGHTS; it++) {
       reweights++;
-      const [s, , cc] = p as [number, number, number];
+      const cc = p[2]!;
       for (let j = 0; j < m; j++) {
         const r = row(phs[j]! + DPH, vol[j]!, v0, ks[j]!, open);
         drPh[j] = (r.y - y[j]! - cc * (r.g - g[j]!)) / DPH;
@@ -254,12 +256,22 @@ export function reduceModifiedGran(curve: TitrationCurve, opts: ModifiedGranOpti
       const veNext = -q[1]! / q[0]!;
       const done = Math.abs(veNext - ve) <= VE_TOLERANCE * Math.abs(veNext) && it > 0;
       ve = veNext;
-      void s;
-      if (done) break;
+      if (done) {
+        settled = true;
+        break;
+      }
     }
     ta = (c * ve) / v0;
   }
   const [s, b, cc] = p as [number, number, number];
+  if (!settled) {
+    warnings.push(
+      warning(
+        'modified-gran-not-converged',
+        `The reweighted fit did not settle within ${MAX_REWEIGHTS} passes; treat the result with care.`,
+      ),
+    );
+  }
   if (!(s > 0)) {
     fail(
       'gran-no-slope',

@@ -34,6 +34,7 @@ describe('the default reduction (modified Gran) over the grid of waters', () => 
           // endpoint: the fit is exact, but the word says medium.
           expect(r.confidence.level).toBe(r.confidence.points_past_endpoint >= 3 ? 'high' : 'medium');
           expect(r.confidence.points_used).toBe(r.fit.points_used.length);
+          expect(r.warnings.map((w) => w.code)).not.toContain('modified-gran-not-converged');
         }
       }
     });

@@ -15,12 +15,26 @@ import {
   phUncertaintyFromCalibration,
 } from '../../../src/chem/trades/phCalibration';
 import { hydrogenSulfide } from '../../../src/chem/trades/sulfide';
+import { EMERSON1975 } from '../../fixtures/emerson1975';
+import { WANNINKHOF2014 } from '../../fixtures/wanninkhof2014';
 
 const solved = (input: Record<string, unknown>) => {
   const r = solve(input);
   if ('error' in r) throw new Error(r.error.message);
   return r;
 };
+
+describe('published check values per source', () => {
+  it.each(EMERSON1975)('$source: $quantity at $temperatureC °C', (c) => {
+    const pka = pkaAmmoniaEmerson1975(c.temperatureC);
+    const got = c.id === 'pka' ? pka : unionizedAmmonia(1, 8, pka).fraction * 100;
+    expect(Math.abs(got - c.value)).toBeLessThanOrEqual(c.tolerance);
+  });
+  it.each(WANNINKHOF2014)('$source: $quantity at $temperatureC °C', (c) => {
+    const got = c.salinity === 0 ? schmidtCo2Fresh(c.temperatureC) : schmidtCo2Seawater(c.temperatureC);
+    expect(Math.abs(got - c.value)).toBeLessThanOrEqual(c.tolerance);
+  });
+});
 
 describe('unionized ammonia (Emerson et al. 1975)', () => {
   it('pKa = 0.09018 + 2729.92/T: 9.2464 at 25 °C, near Bates & Pinching (1949) 9.245 (memory)', () => {

@@ -5,6 +5,7 @@
  */
 
 import type { Issue } from './errors';
+import type { TradeOutputs } from './trades/solveOutputs';
 
 export type ModelChoice = 'saline' | 'fresh' | 'auto';
 export type PhScaleName = 'total' | 'free' | 'seawater' | 'nbs';
@@ -171,7 +172,7 @@ export interface Conditions {
   pressure_dbar: number;
 }
 
-export interface SolveOutput extends SolvedWater, Partial<FreshWaterOutputs> {
+export interface SolveOutput extends SolvedWater, Partial<FreshWaterOutputs>, Partial<TradeOutputs> {
   /** Other roots for two-root pairs, in the same shape. */
   alternatives?: SolvedWater[];
   /** When the input asked for it: the uncertainty of every numeric output, keyed by output name. */

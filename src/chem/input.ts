@@ -11,6 +11,7 @@ import { alkalinityFromFieldUnits, FRESH_INPUT_KEYS } from './fresh/request';
 import { MOLAR_MASS_G_PER_MOL } from './physical';
 import { numberAt, optionAt } from './read-fields';
 import { salinityFromSpecificConductance } from './seawater/conductance';
+import { addTradeTotals, TRADE_INPUT_KEYS } from './trades/solveOutputs';
 import type { MinorTotals, PhScale } from './types';
 import { densityKgL } from './units';
 
@@ -63,6 +64,7 @@ export const KNOWN_INPUT_KEYS: ReadonlySet<string> = new Set([
   'output_temperature_c',
   'output_pressure_dbar',
   ...FRESH_INPUT_KEYS,
+  ...TRADE_INPUT_KEYS,
   'pair',
   'root',
   // Standard uncertainties to propagate (read by solve(), see uncertainty/solveUncertainty.ts).
@@ -173,6 +175,7 @@ export function parseSolveInput(input: unknown): SolveRequest {
     ammonia: minorAt('ammonia_umol_kg'),
     sulfide: minorAt('sulfide_umol_kg'),
   };
+  addTradeTotals(minor, raw, densityKgL(salinityForDensity, temperatureC));
   const calcium = numberAt(raw, 'calcium_umol_kg');
   if (calcium !== undefined && !(calcium > 0)) {
     fail(

@@ -22,6 +22,7 @@ import { choosePair, parseSolveInput, type SolveRequest } from './input';
 import { applyShifts, type ConstantShifts, constantsFor } from './models';
 import { bufferFactors, revelleFactor } from './solver/buffer';
 import { type Param, solvePair } from './solver/pairs';
+import { addTradeOutputs, type TradeContext, uncertaintyWithCalibration } from './trades/solveOutputs';
 import type { CarbonateState, ConstantSet, MinorTotals, PhScale, WaterModel } from './types';
 import { solveUncertainty } from './uncertainty/solveUncertainty';
 
@@ -54,7 +55,7 @@ export function solve(input: unknown, options: SolveOptions = {}): SolveResult {
 function solveWithUncertainty(input: Record<string, unknown>, options: SolveOptions): SolveOutput {
   const { uncertainty, ...plain } = input;
   const out = solveRequest(parseSolveInput(plain), options);
-  out.uncertainty = solveUncertainty(plain, uncertainty, out, (i, o) =>
+  out.uncertainty = solveUncertainty(plain, uncertaintyWithCalibration(plain, uncertainty), out, (i, o) =>
     solve(i, o.shifts ? { ...options, shifts: { ...options.shifts, ...o.shifts } } : options),
   );
   return out;
@@ -237,6 +238,7 @@ export function solveRequest(reqIn: SolveRequest, options: SolveOptions = {}): S
     const o = describe(out, k, req.minor, model, [a, b], warnings);
     o.model_reason = decision.reason;
     if (fresh !== undefined) addFreshOutputs(o, out, k as FreshConstantSet, fresh, warnings);
+    addTradeOutputs(o, out, k, tradeContext(req), warnings);
     return o;
   });
   const primary: SolveOutput = outputs[0]!;
@@ -258,6 +260,11 @@ export function solveRequest(reqIn: SolveRequest, options: SolveOptions = {}): S
     };
   }
   return primary;
+}
+
+/** Ammonia, sulfide and gas exchange (src/chem/trades) at the output conditions. */
+function tradeContext(req: SolveRequest): TradeContext {
+  return { raw: req.raw, minor: req.minor, temperatureC: req.outTemperatureC, salinity: req.salinity ?? 0 };
 }
 
 /** Fresh-water keys the saline model uses as well (alkalinity in field units, calcium in mg/L). */

@@ -43,18 +43,21 @@ Input fields:
   temperature_c               sample temperature, °C
   points                      [{"volume_ml": 0, "ph": 7.9}, ...] cumulative acid added and pH
                               (or {"counts": ..., "ph": ...} with counts_per_ml for a digital titrator)
-  method                      gran (default) | inflection | endpoint | two_endpoint | curve_fit
+  method                      modified_gran (default) | gran | inflection | endpoint |
+                              two_endpoint | curve_fit
                               (two_endpoint: for soft waters, endpoint_ph and 0.3 below it)
   endpoint_ph                 for methods endpoint and two_endpoint (default 4.5)
   ionic_strength_mol_kg or specific_conductance_us_cm   for activity corrections
-  system                      curve_fit: closed (default) or open (sample exchanging CO2 with air)
+  system                      modified_gran, curve_fit: closed (default) or open (sample
+                              exchanging CO2 with air)
   curve_fit_ph_offset         curve_fit: true to fit a pH-meter offset as well (default false)
   uncertainty                 {"titrant_normality": 0.0005, "sample_volume_ml": 0.1, "ph": 0.01,
                                "volume_ml": 0.005, "ph_offset": 0.02} standard uncertainties
 
 Output fields: alkalinity_meq_l, alkalinity_mg_l_caco3, alkalinity (every unit),
 equivalence_volume_ml, method, species (HCO3-, CO3--, OH-, CO2*, DIC at the first reading),
-fit (r2, residuals, rms, points_used, standard errors), warnings, dic_umol_kg (curve_fit),
+fit (r2, residuals, rms, points_used, standard errors), confidence (high | medium | low with
+standard errors), warnings, dic_umol_kg and dic_se_umol_kg (modified_gran closed, curve_fit),
 uncertainty (when asked for).
 
 Options:

@@ -9,6 +9,7 @@ import { parseDecimal } from './numbers';
 
 /** Published method names; labels are ours. */
 export const METHOD_LABELS: Record<TitrationMethod, string> = {
+  modified_gran: 'Corrected Gran (default, gives DIC too)',
   gran: 'Gran function (points past the endpoint)',
   inflection: 'Inflection point (steepest pH drop)',
   endpoint: 'Fixed endpoint pH',

@@ -10,10 +10,12 @@ import { benchPlan } from './plan';
 import { benchRequest } from './request';
 import { benchSolve } from './solve';
 import { benchSolveUncertainty, benchTitration } from './titration';
+import { benchTitrationUncertainty } from './titration-uncertainty';
 
 const sections: [string, () => string[]][] = [
   ['Saline solver (100 000 rows)', benchSolve],
   ['Titration: one 50-point titration by every method', benchTitration],
+  ['Titration uncertainty, 50 to 20 000 points, against the plain reduction', benchTitrationUncertainty],
   ['Solve with uncertainties', benchSolveUncertainty],
   ['Fresh model beside saline, solve() JSON path (20 000 rows each)', benchFresh],
   ['Planning: dose, dose to target, target in steps (plan() JSON path)', benchPlan],

@@ -80,7 +80,7 @@ export function benchTitration(): string[] {
     );
   }
   lines.push(
-    `(medians of 5 rounds; uncertainty of ${Object.keys(u).join(', ')}: per-point inputs cost one reduction per point, 103 in all)`,
+    `(medians of 5 rounds; uncertainty of ${Object.keys(u).join(', ')}: per-reading inputs go through the sensitivities of modified_gran, gran and curve_fit; the other methods take one reduction per reading they used)`,
   );
   if (sink === 42) lines.push('');
   return lines;

@@ -10,7 +10,7 @@ import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { isSolveError } from '../../src/chem/api';
 import { freshTitrationConstants } from '../../src/chem/titration/reduceTitration';
 import { titrate } from '../../src/chem/titration/titrate';
-import type { TitrationInput } from '../../src/chem/titration/types';
+import { DEFAULT_TITRATION_METHOD, type TitrationInput } from '../../src/chem/titration/types';
 import { readingRequest } from '../../src/reading/request';
 import type { SiteDoc } from '../../src/store/schema';
 import { DEFAULT_SETTINGS } from '../../src/store/settings';
@@ -34,7 +34,7 @@ afterAll(async () => browser?.close());
 
 describe('field titration in a reading', () => {
   it('reduces the points, uses the alkalinity for the results, and keeps the raw points', async () => {
-    const expected = titrate({ ...record, method: 'gran' }, freshTitrationConstants);
+    const expected = titrate({ ...record, method: DEFAULT_TITRATION_METHOD }, freshTitrationConstants);
     if ('error' in expected) throw new Error(expected.error.message);
     const site = {
       id: 'x',

@@ -16,6 +16,7 @@ import { type Issue, warning } from '../errors';
 import type { ConstantSet } from '../types';
 import { levenbergMarquardt } from './levenbergMarquardt';
 import type { MethodResult } from './methodResult';
+import { invertSmall, type PointSensitivity, parameterSensitivities } from './pointSensitivity';
 import { dicFromAlkalinityPh, dicOpen, phAfterAcid, type TitrationSample } from './titrationModel';
 import type { TitrationCurve, TitrationSystem } from './types';
 
@@ -59,8 +60,10 @@ export function reduceCurveFit(curve: TitrationCurve, k: ConstantSet, opts: Curv
   const model = (p: readonly number[], out: Float64Array) => {
     const s = sampleOf(p, system);
     const offset = fitOffset ? p[2]! : 0;
+    // Newton starts from the reading itself, which the modelled pH is close to.
     for (let i = 0; i < n; i++)
-      out[i] = phAfterAcid(s, k, sampleVolumeMl, titrantEqL, curve.volumeMl[i]!) + offset;
+      out[i] =
+        phAfterAcid(s, k, sampleVolumeMl, titrantEqL, curve.volumeMl[i]!, curve.ph[i]! - offset) + offset;
   };
   const ta0 = opts.alkalinityGuess;
   const start: number[] = opts.start
@@ -129,7 +132,28 @@ export function reduceCurveFit(curve: TitrationCurve, k: ConstantSet, opts: Curv
     if (system === 'closed') details.dic_se_mmol_l = Math.sqrt(Math.max(cov[1]![1]!, 0)) * 1e3;
     if (fitOffset) details.ph_offset_se = Math.sqrt(Math.max(cov[2]![2]!, 0));
   }
+  const dicOf = (q: readonly number[]) => {
+    if (system !== 'open') return q[1]!;
+    const s0 = sampleOf(q, system);
+    return dicOpen(phAfterAcid(s0, k, sampleVolumeMl, titrantEqL, curve.volumeMl[0]!), 10 ** q[1]!, k);
+  };
+  const sensitivity = curveFitSensitivity(
+    p,
+    pred,
+    model,
+    (j) => (j === 0 || (j === 1 && system === 'closed') ? Math.abs(p[j]!) * 1e-6 + 1e-12 : 1e-6),
+    dicOf,
+    (out, dv) => {
+      const s0 = sampleOf(p, system);
+      const offset = fitOffset ? p[2]! : 0;
+      for (let i = 0; i < n; i++)
+        out[i] =
+          phAfterAcid(s0, k, sampleVolumeMl, titrantEqL, curve.volumeMl[i]! + dv, curve.ph[i]! - offset) +
+          offset;
+    },
+  );
   return {
+    ...(sensitivity ? { sensitivity } : {}),
     parameters: fitOffset ? [p[0]!, p[1]!, p[2]!] : [p[0]!, p[1]!],
     equivalenceVolumeMl: (alkalinity * sampleVolumeMl) / titrantEqL,
     alkalinityEqL: alkalinity,
@@ -144,4 +168,62 @@ export function reduceCurveFit(curve: TitrationCurve, k: ConstantSet, opts: Curv
     },
     warnings,
   };
+}
+
+/**
+ * Per-reading sensitivities of the fitted alkalinity and DIC (./pointSensitivity.ts) with the
+ * residual rᵢ = pHᵢ − fᵢ(p): ∂rᵢ/∂pHᵢ = 1 and ∂rᵢ/∂Vᵢ = −∂fᵢ/∂Vᵢ, the latter for every reading
+ * from one model evaluation with every volume moved (fᵢ depends on Vᵢ alone). The Jacobian is
+ * taken afresh at the solution. Cost: a few model evaluations, linear in the number of readings.
+ */
+function curveFitSensitivity(
+  p: readonly number[],
+  fitted: Float64Array,
+  model: (q: readonly number[], out: Float64Array) => void,
+  step: (j: number) => number,
+  dicOf: (q: readonly number[]) => number,
+  movedVolumes: (out: Float64Array, dv: number) => void,
+): PointSensitivity | null {
+  const n = fitted.length;
+  const np = p.length;
+  const jac: Float64Array[] = [];
+  const trial = new Float64Array(n);
+  const gDic: number[] = [];
+  const dic0 = dicOf(p);
+  for (let j = 0; j < np; j++) {
+    const h = step(j);
+    const q = [...p];
+    q[j] = p[j]! + h;
+    model(q, trial);
+    const col = new Float64Array(n);
+    for (let i = 0; i < n; i++) col[i] = -(trial[i]! - fitted[i]!) / h;
+    jac.push(col);
+    gDic.push((dicOf(q) - dic0) / h);
+  }
+  const a: number[][] = Array.from({ length: np }, () => new Array<number>(np).fill(0));
+  for (let j = 0; j < np; j++)
+    for (let l = j; l < np; l++) {
+      let s = 0;
+      for (let i = 0; i < n; i++) s += jac[j]![i]! * jac[l]![i]!;
+      a[j]![l] = s;
+      a[l]![j] = s;
+    }
+  const inv = invertSmall(a);
+  if (inv === null) return null;
+  const dv = 1e-7;
+  movedVolumes(trial, dv);
+  const drV = new Float64Array(n);
+  for (let i = 0; i < n; i++) drV[i] = -(trial[i]! - fitted[i]!) / dv;
+  const drPh = new Float64Array(n).fill(1);
+  const toOutputs = (dr: Float64Array) => {
+    const byParam = parameterSensitivities(inv, jac, null, dr);
+    const dic = new Float64Array(n);
+    for (let i = 0; i < n; i++) {
+      let s = 0;
+      for (let j = 0; j < np; j++) s += gDic[j]! * byParam[j]![i]!;
+      dic[i] = s;
+    }
+    return { alkalinity: byParam[0]!, dic };
+  };
+  return { ph: toOutputs(drPh), volume_ml: toOutputs(drV) };
 }

@@ -14,6 +14,7 @@
 import { fail, type Issue, warning } from '../errors';
 import { fitLine } from './leastSquaresLine';
 import type { MethodResult } from './methodResult';
+import { invertSmall, parameterSensitivities } from './pointSensitivity';
 import type { TitrationCurve } from './types';
 
 /** Common practice: below about pH 4 the residual bicarbonate no longer bends the F1 line. */
@@ -27,6 +28,8 @@ const GRAN_ENOUGH_POINTS = 4;
 export interface GranOptions {
   sampleVolumeMl: number;
   maxPh?: number;
+  /** When given, the result carries per-reading sensitivities of the alkalinity (eq/L). */
+  titrantEqL?: number;
 }
 
 export function granFunction(sampleVolumeMl: number, volumeMl: number, ph: number): number {
@@ -51,7 +54,7 @@ export function reduceGran(curve: TitrationCurve, opts: GranOptions): MethodResu
     fail(
       'gran-too-few-points',
       `Gran needs at least ${GRAN_MIN_POINTS} points between pH ${GRAN_MIN_PH} and ${maxPh}; got ${candidates.length}. ` +
-        'Keep adding acid past the endpoint.',
+        'Keep adding acid past the endpoint, or use method modified_gran (the default), which also uses the readings before it.',
       'points',
     );
   }
@@ -113,6 +116,9 @@ export function reduceGran(curve: TitrationCurve, opts: GranOptions): MethodResu
   const rmsValue = Math.sqrt(fit.residuals.reduce((s, r) => s + r * r, 0) / fit.residuals.length);
   return {
     equivalenceVolumeMl: ve,
+    ...(opts.titrantEqL === undefined
+      ? {}
+      : { sensitivity: granSensitivity(curve, opts, opts.titrantEqL, used, fit.intercept, fit.slope) }),
     fit: {
       r2: fit.r2,
       residuals: fit.residuals,
@@ -129,4 +135,53 @@ export function reduceGran(curve: TitrationCurve, opts: GranOptions): MethodResu
     },
     warnings,
   };
+}
+
+/**
+ * ∂alkalinity/∂(pH, V) of every reading for the weighted Gran line (./pointSensitivity.ts):
+ * alkalinity = C·Ve/V0 with Ve = −a/b; r = F1 − a − b·V, ∂r/∂pH = −ln10·F1, ∂r/∂V = 10^−pH − b.
+ */
+function granSensitivity(
+  curve: TitrationCurve,
+  opts: GranOptions,
+  titrantEqL: number,
+  used: number[],
+  a: number,
+  b: number,
+): NonNullable<MethodResult['sensitivity']> {
+  const m = used.length;
+  const w = new Float64Array(m);
+  const jac = [new Float64Array(m), new Float64Array(m)];
+  const drPh = new Float64Array(m);
+  const drV = new Float64Array(m);
+  let s00 = 0;
+  let s01 = 0;
+  let s11 = 0;
+  for (let j = 0; j < m; j++) {
+    const i = used[j]!;
+    const f1 = granFunction(opts.sampleVolumeMl, curve.volumeMl[i]!, curve.ph[i]!);
+    w[j] = 1 / (f1 * f1);
+    jac[0]![j] = -1;
+    jac[1]![j] = -curve.volumeMl[i]!;
+    drPh[j] = -Math.LN10 * f1;
+    drV[j] = 10 ** -curve.ph[i]! - b;
+    s00 += w[j]!;
+    s01 += w[j]! * curve.volumeMl[i]!;
+    s11 += w[j]! * curve.volumeMl[i]! ** 2;
+  }
+  const inv = invertSmall([
+    [s00, s01],
+    [s01, s11],
+  ]);
+  const n = curve.ph.length;
+  const perPoint = (dr: Float64Array) => {
+    const out = new Float64Array(n);
+    if (inv === null) return out;
+    const [da, db] = parameterSensitivities(inv, jac, w, dr) as [Float64Array, Float64Array];
+    // Ve = −a/b.
+    const toTa = titrantEqL / opts.sampleVolumeMl;
+    for (let j = 0; j < m; j++) out[used[j]!] = toTa * (-da[j]! / b + (a / (b * b)) * db[j]!);
+    return out;
+  };
+  return { ph: { alkalinity: perPoint(drPh) }, volume_ml: { alkalinity: perPoint(drV) } };
 }

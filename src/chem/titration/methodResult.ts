@@ -1,7 +1,8 @@
 /** What every reduction method hands back before units and speciation are added. */
 
 import type { Issue } from '../errors';
-import type { FitQuality } from './types';
+import type { PointSensitivity } from './pointSensitivity';
+import type { FitQuality, TitrationConfidence } from './types';
 
 export interface MethodResult {
   equivalenceVolumeMl: number;
@@ -15,4 +16,8 @@ export interface MethodResult {
   initialPh?: number;
   /** Curve fit only: the fitted parameters (see CurveFitParameters). */
   parameters?: readonly number[];
+  /** Methods that fit the readings: how the result moves with each reading (for uncertainty). */
+  sensitivity?: PointSensitivity;
+  /** Methods that estimate their own standard errors. */
+  confidence?: TitrationConfidence;
 }

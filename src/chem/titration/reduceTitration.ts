@@ -13,10 +13,19 @@ import { reduceGran } from './granMethod';
 import { reduceInflection } from './inflectionMethod';
 import { ionicStrengthForTitration } from './ionicStrengthForTitration';
 import type { MethodResult } from './methodResult';
+import { confidenceLevel, reduceModifiedGran } from './modifiedGranMethod';
+import type { PointSensitivity } from './pointSensitivity';
 import { splitAlkalinity } from './speciesSplit';
 import { alkalinityInEveryUnit, dicUmolKg } from './titrationUnits';
 import { reduceTwoEndpoint } from './twoEndpointMethod';
-import { TITRATION_METHODS, type TitrationInput, type TitrationMethod, type TitrationResult } from './types';
+import {
+  DEFAULT_TITRATION_METHOD,
+  TITRATION_METHODS,
+  type TitrationConfidence,
+  type TitrationInput,
+  type TitrationMethod,
+  type TitrationResult,
+} from './types';
 import { checkTitration } from './validateTitration';
 
 /** Builds the fresh-water constant set for the sample temperature and ionic strength. */
@@ -29,7 +38,7 @@ export const freshTitrationConstants: ConstantsMaker = (temperatureC, ionicStren
 const DEFAULT_AIR_PCO2_UATM = 420;
 
 function methodOf(input: TitrationInput): TitrationMethod {
-  const m = input.method ?? 'gran';
+  const m = input.method ?? DEFAULT_TITRATION_METHOD;
   if (!(TITRATION_METHODS as readonly string[]).includes(m)) {
     fail(
       'titration-method-unknown',
@@ -43,6 +52,8 @@ function methodOf(input: TitrationInput): TitrationMethod {
 /** Internal shortcuts that change how fast a reduction runs, never its result. */
 export interface ReduceHints {
   curveFitStart?: CurveFitParameters;
+  /** Modified Gran: keep the readings an earlier reduction selected. */
+  pointsUsed?: readonly number[];
 }
 
 /** The reduction plus what a later reduction of nearly the same record can start from. */
@@ -50,7 +61,7 @@ export function reduceTitrationWithHints(
   input: TitrationInput,
   makeConstants: ConstantsMaker,
   hints: ReduceHints = {},
-): { result: TitrationResult; hints: ReduceHints } {
+): { result: TitrationResult; hints: ReduceHints; sensitivity?: PointSensitivity } {
   const method = methodOf(input);
   const t = checkTitration(input);
   const warnings: Issue[] = [...t.warnings];
@@ -60,7 +71,25 @@ export function reduceTitrationWithHints(
   let core: MethodResult;
   let ionic: ReturnType<typeof ionicStrengthForTitration>;
   let k: ConstantSet;
-  if (method === 'curve_fit') {
+  const system = input.system ?? 'closed';
+  if (system !== 'closed' && system !== 'open') {
+    fail('titration-value-invalid', `system must be "closed" or "open"; got "${system}".`, 'system');
+  }
+  if (method === 'modified_gran') {
+    const ionicOf = (ta: number) =>
+      ionicStrengthForTitration(input.ionic_strength_mol_kg, input.specific_conductance_us_cm, ta);
+    core = reduceModifiedGran(t.curve, {
+      sampleVolumeMl: t.sampleVolumeMl,
+      titrantEqL: t.titrantEqL,
+      system,
+      constantsAt: (i) => makeConstants(t.temperatureC, i),
+      sampleIonicStrength: (ta) => ionicOf(ta).value,
+      endpointPh: t.endpointPh,
+      ...(hints.pointsUsed ? { pointsUsed: hints.pointsUsed } : {}),
+    });
+    ionic = ionicOf(core.alkalinityEqL!);
+    k = makeConstants(t.temperatureC, ionic.value);
+  } else if (method === 'curve_fit') {
     // Starting alkalinity from Gran (robust) or, failing that, the fixed endpoint or the acid added.
     let guess: number;
     try {
@@ -78,10 +107,6 @@ export function reduceTitrationWithHints(
     }
     ionic = ionicStrengthForTitration(input.ionic_strength_mol_kg, input.specific_conductance_us_cm, guess);
     k = makeConstants(t.temperatureC, ionic.value);
-    const system = input.system ?? 'closed';
-    if (system !== 'closed' && system !== 'open') {
-      fail('titration-value-invalid', `system must be "closed" or "open"; got "${system}".`, 'system');
-    }
     const pco2 = input.air_pco2_uatm ?? DEFAULT_AIR_PCO2_UATM;
     if (typeof pco2 !== 'number' || !(pco2 > 0)) {
       fail('titration-value-invalid', 'air_pco2_uatm must be a positive number.', 'air_pco2_uatm');
@@ -97,7 +122,11 @@ export function reduceTitrationWithHints(
     });
   } else {
     if (method === 'gran') {
-      core = reduceGran(t.curve, { sampleVolumeMl: t.sampleVolumeMl, maxPh: input.gran_max_ph });
+      core = reduceGran(t.curve, {
+        sampleVolumeMl: t.sampleVolumeMl,
+        maxPh: input.gran_max_ph,
+        titrantEqL: t.titrantEqL,
+      });
     } else if (method === 'inflection') {
       core = reduceInflection(t.curve);
     } else if (method === 'two_endpoint') {
@@ -130,13 +159,52 @@ export function reduceTitrationWithHints(
     titrant_eq_l: t.titrantEqL,
     formulations: { ...k.formulations, titration: methodSource[method] },
     warnings,
+    confidence: core.confidence ?? confidenceOf(core, alkalinityEqL, t),
   };
-  if (core.dicMolL !== undefined) result.dic_umol_kg = dicUmolKg(core.dicMolL, t.temperatureC);
-  return { result, hints: core.parameters ? { curveFitStart: core.parameters } : {} };
+  if (core.dicMolL !== undefined) {
+    result.dic_umol_kg = dicUmolKg(core.dicMolL, t.temperatureC);
+    const se = result.confidence.dic_se_mmol_l;
+    if (se !== undefined) result.dic_se_umol_kg = dicUmolKg(se * 1e-3, t.temperatureC);
+  }
+  return {
+    result,
+    hints: core.parameters
+      ? { curveFitStart: core.parameters }
+      : method === 'modified_gran'
+        ? { pointsUsed: core.fit.points_used }
+        : {},
+    ...(core.sensitivity ? { sensitivity: core.sensitivity } : {}),
+  };
 }
 
 export function reduceTitration(input: TitrationInput, makeConstants: ConstantsMaker): TitrationResult {
   return reduceTitrationWithHints(input, makeConstants).result;
+}
+
+/** Confidence of the methods that do not report their own, from the standard errors they give. */
+function confidenceOf(
+  core: MethodResult,
+  alkalinityEqL: number,
+  t: ReturnType<typeof checkTitration>,
+): TitrationConfidence {
+  const d = core.fit.details;
+  let past = 0;
+  for (let i = 0; i < t.curve.ph.length; i++) {
+    if (t.curve.volumeMl[i]! > core.equivalenceVolumeMl && t.curve.ph[i]! < t.endpointPh) past++;
+  }
+  const seMeqL =
+    d.alkalinity_se_meq_l ??
+    (d.equivalence_volume_se_ml === undefined
+      ? undefined
+      : ((d.equivalence_volume_se_ml * t.titrantEqL) / t.sampleVolumeMl) * 1e3);
+  const base = { points_used: core.fit.points_used.length, points_past_endpoint: past };
+  if (seMeqL === undefined || !Number.isFinite(seMeqL)) return { level: 'not_estimated', ...base };
+  return {
+    level: confidenceLevel(seMeqL / (alkalinityEqL * 1e3), past),
+    alkalinity_se_meq_l: seMeqL,
+    ...(d.dic_se_mmol_l === undefined ? {} : { dic_se_mmol_l: d.dic_se_mmol_l }),
+    ...base,
+  };
 }
 
 function offsetFlag(v: unknown): boolean {
@@ -180,6 +248,8 @@ function checkEndpointReached(
 }
 
 const methodSource: Record<TitrationMethod, string> = {
+  modified_gran:
+    'modified Gran function corrected for carbonate, water and H+ activity at each point (Gran 1952; Hansson & Jagner 1973; Dickson 1981), weighted least squares',
   gran: 'Gran 1952 (F1 with dilution, linear fit past the endpoint)',
   inflection: 'maximum of dpH/dV, local quadratic smoothing (Savitzky & Golay 1964)',
   endpoint: 'fixed endpoint, linear interpolation in pH',

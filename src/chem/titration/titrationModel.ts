@@ -51,12 +51,12 @@ function openAlkalinityAndSlope(h: number, co2: number, boron: number, k: Consta
 /**
  * Solves alkalinity(h) = target for h by Newton steps in ln h, kept inside a shrinking bracket
  * (alkalinity falls monotonically with h, so the bracket always holds the single root).
- * Reaches |Δlog10 h| < PH_TOLERANCE in under 10 steps for natural waters; cap PH_MAX_ITERATIONS.
+ * Reaches |Δlog10 h| < PH_TOLERANCE in 4–6 steps for natural waters; cap PH_MAX_ITERATIONS.
  */
-function solveH(target: number, f: (h: number) => [number, number]): number {
+function solveH(target: number, f: (h: number) => [number, number], startPh = 7): number {
   let lo = -16 * Math.LN10; // ln h bounds: pH 16 .. pH -1
   let hi = 1 * Math.LN10;
-  let x = -7 * Math.LN10;
+  let x = -Math.min(Math.max(startPh, 0), 15) * Math.LN10;
   for (let i = 0; i < PH_MAX_ITERATIONS; i++) {
     const h = Math.exp(x);
     const [ta, slope] = f(h);
@@ -64,8 +64,10 @@ function solveH(target: number, f: (h: number) => [number, number]): number {
     if (r > 0) lo = x;
     else hi = x;
     let next = x - r / (slope * h);
-    if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
+    // Converged before the bracket test: at the root a last tiny step may land on a bracket edge,
+    // and bisecting a bracket whose far edge never moved would throw the iterate far away.
     if (Math.abs(next - x) < PH_TOLERANCE * Math.LN10) return Math.exp(next);
+    if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
     x = next;
   }
   fail('titration-model-no-convergence', 'The titration model did not converge to a pH.');
@@ -90,6 +92,8 @@ export function phAfterAcid(
   sampleVolumeMl: number,
   titrantEqL: number,
   volumeMl: number,
+  /** Where Newton starts (e.g. the reading's own pH); the same root, reached in fewer steps. */
+  startPh = 7,
 ): number {
   const dilution = sampleVolumeMl / (sampleVolumeMl + volumeMl);
   const taMix = sample.alkalinity * dilution - (titrantEqL * volumeMl) / (sampleVolumeMl + volumeMl);
@@ -97,10 +101,10 @@ export function phAfterAcid(
   let h: number;
   if (sample.pco2Atm !== undefined) {
     const co2 = k.k0 * k.fugacityFactor * sample.pco2Atm;
-    h = solveH(taMix, (x) => openAlkalinityAndSlope(x, co2, boron, k));
+    h = solveH(taMix, (x) => openAlkalinityAndSlope(x, co2, boron, k), startPh);
   } else {
     const dic = (sample.dic ?? 0) * dilution;
-    h = solveH(taMix, (x) => alkalinityAndSlope(x, dic, boron, k));
+    h = solveH(taMix, (x) => alkalinityAndSlope(x, dic, boron, k), startPh);
   }
   return -Math.log10(h);
 }

@@ -9,8 +9,17 @@
 import type { OutputUncertainty } from '../api';
 import type { Issue } from '../errors';
 
-export const TITRATION_METHODS = ['gran', 'inflection', 'endpoint', 'two_endpoint', 'curve_fit'] as const;
+export const TITRATION_METHODS = [
+  'modified_gran',
+  'gran',
+  'inflection',
+  'endpoint',
+  'two_endpoint',
+  'curve_fit',
+] as const;
 export type TitrationMethod = (typeof TITRATION_METHODS)[number];
+/** The reduction used when a record names none (see modifiedGranMethod.ts). */
+export const DEFAULT_TITRATION_METHOD: TitrationMethod = 'modified_gran';
 
 /** Whether CO2 stays in the vessel (closed) or the sample keeps exchanging with air (open). */
 export type TitrationSystem = 'closed' | 'open';
@@ -37,7 +46,7 @@ export interface TitrationInput {
   specific_conductance_us_cm?: number;
   /** Digital titrator counts per mL of titrant, as printed for the user's cartridge. */
   counts_per_ml?: number;
-  /** Curve fit: closed vessel (default) or sample open to air. */
+  /** Modified Gran and curve fit: closed vessel (default) or sample open to air. */
   system?: TitrationSystem;
   /** Curve fit, open system: partial pressure of CO2 in the air, µatm (default 420, then fitted). */
   air_pco2_uatm?: number;
@@ -101,6 +110,21 @@ export interface SpeciesSplit {
   oh_mg_l: number;
 }
 
+/**
+ * How far the reduction can be trusted from the readings alone: standard errors from the scatter
+ * of the readings about the fitted model (not the input uncertainties; see `uncertainty`), and a
+ * word for the screen: high (alkalinity SE ≤ 0.3 % and 3 or more readings past the endpoint),
+ * medium (SE ≤ 1 % and at least one past it), low (otherwise), not_estimated (the method fits
+ * nothing: fixed endpoints, inflection).
+ */
+export interface TitrationConfidence {
+  level: 'high' | 'medium' | 'low' | 'not_estimated';
+  alkalinity_se_meq_l?: number;
+  dic_se_mmol_l?: number;
+  points_used: number;
+  points_past_endpoint: number;
+}
+
 export interface TitrationResult {
   method: TitrationMethod;
   equivalence_volume_ml: number;
@@ -108,8 +132,15 @@ export interface TitrationResult {
   alkalinity_mg_l_caco3: number;
   /** Alkalinity in every unit of the units module, keyed by unit name. */
   alkalinity: Record<string, number>;
-  /** Only for the curve fit: DIC of the original sample. */
+  /**
+   * DIC of the original sample, µmol/kg of water, from the methods that fit it (modified_gran in
+   * a closed vessel, curve_fit), with its standard error from the fit (`dic_se_umol_kg`); a
+   * reading can use it as its second carbonate parameter.
+   */
   dic_umol_kg?: number;
+  dic_se_umol_kg?: number;
+  /** Which points were used (also `fit.points_used`) and how far the result can be trusted. */
+  confidence: TitrationConfidence;
   species: SpeciesSplit;
   fit: FitQuality;
   ionic_strength_mol_kg: number;

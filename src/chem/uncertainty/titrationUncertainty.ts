@@ -7,6 +7,7 @@
  */
 
 import { fail } from '../errors';
+import type { PerPointDerivatives } from '../titration/pointSensitivity';
 import { type ConstantsMaker, reduceTitrationWithHints } from '../titration/reduceTitration';
 import {
   TITRATION_UNCERTAINTY_KEYS,
@@ -91,15 +92,109 @@ export function titrationUncertainty(
   }
   // Every perturbed curve fit starts from the unperturbed fit: same minimum, a few iterations.
   const base = reduceTitrationWithHints(input, makeConstants);
+  const baseOut = outputsOf(base.result);
+  // Methods that fit the readings report how the result moves with each one: per-point inputs
+  // then cost nothing more (linear in the number of points); the others are perturbed one by one.
+  const sens = base.sensitivity;
+  const analytic = sens === undefined ? [] : inputs.filter((i) => i.name === 'ph' || i.name === 'volume_ml');
+  // Without sensitivities, only the readings a method used can move its result to first order
+  // (a reading outside its selection changes nothing until it crosses a selection edge).
+  const usedPoints = base.result.fit.points_used;
+  const numeric = inputs
+    .filter((i) => !analytic.includes(i))
+    .map((i) => ((i.components ?? 1) > 1 ? { ...i, components: usedPoints.length } : i));
   const evaluate: Evaluate = (p) =>
     p === null
       ? outputsOf(base.result)
       : outputsOf(
           reduceTitrationWithHints(
-            perturbed(input, p.name as TitrationUncertaintyKey, p.index, p.delta),
+            perturbed(
+              input,
+              p.name as TitrationUncertaintyKey,
+              p.name === 'ph' || p.name === 'volume_ml' ? usedPoints[p.index]! : p.index,
+              p.delta,
+            ),
             makeConstants,
             base.hints,
           ).result,
         );
-  return propagateUncertainty(evaluate, inputs, outputsOf(base.result));
+  const result = propagateUncertainty(evaluate, numeric, baseOut);
+  if (sens === undefined || analytic.length === 0) return result;
+  const perInput = analytic.map((inp) => ({
+    inp,
+    variances: perPointVariances(
+      base.result,
+      baseOut,
+      sens[inp.name as 'ph' | 'volume_ml'],
+      inp.u,
+      inp.name === 'volume_ml' ? zeroVolumes(input) : null,
+    ),
+  }));
+  return mergeContributions(result, inputs, perInput);
+}
+
+/** Points whose volume is the set starting zero (no reading uncertainty). */
+function zeroVolumes(input: TitrationInput): boolean[] {
+  return input.points.map((p) => (p.volume_ml ?? p.counts) === 0);
+}
+
+/**
+ * Σᵢ (∂out/∂θᵢ · u)² for every output. Alkalinity outputs are proportional to the alkalinity (at
+ * fixed sample volume, normality and temperature), dic_umol_kg to the DIC.
+ */
+function perPointVariances(
+  r: TitrationResult,
+  out: Record<string, number>,
+  d: PerPointDerivatives,
+  u: number,
+  skip: boolean[] | null,
+): Record<string, number> {
+  let sumTa = 0;
+  let sumDic = 0;
+  for (let i = 0; i < d.alkalinity.length; i++) {
+    if (skip?.[i]) continue;
+    sumTa += d.alkalinity[i]! ** 2;
+    if (d.dic) sumDic += d.dic[i]! ** 2;
+  }
+  const ta = r.alkalinity_meq_l * 1e-3;
+  const variances: Record<string, number> = {};
+  for (const [key, value] of Object.entries(out)) {
+    if (key === 'dic_umol_kg') {
+      // dic_umol_kg is DIC (mol/L) scaled by 1e6/density: the ratio value/DIC carries the factor.
+      const dicMolL = r.species.dic_mmol_l * 1e-3;
+      variances[key] = d.dic && dicMolL > 0 ? (value / dicMolL) ** 2 * sumDic * u * u : 0;
+    } else {
+      variances[key] = (value / ta) ** 2 * sumTa * u * u;
+    }
+  }
+  return variances;
+}
+
+function mergeContributions(
+  result: Record<string, OutputUncertainty>,
+  inputs: readonly UncertainInput[],
+  perInput: { inp: UncertainInput; variances: Record<string, number> }[],
+): Record<string, OutputUncertainty> {
+  for (const [key, entry] of Object.entries(result)) {
+    const contributions: Record<string, number> = {};
+    let total = 0;
+    let dominant = '';
+    let largest = -1;
+    for (const inp of inputs) {
+      const extra = perInput.find((x) => x.inp === inp);
+      const v = extra ? (extra.variances[key] ?? 0) : (entry.contributions[inp.name] ?? 0) ** 2;
+      contributions[inp.name] = Math.sqrt(v);
+      total += v;
+      if (v > largest) {
+        largest = v;
+        dominant = inp.name;
+      }
+    }
+    result[key] = {
+      standard_uncertainty: Math.sqrt(total),
+      dominant_input: total > 0 ? dominant : 'none',
+      contributions,
+    };
+  }
+  return result;
 }

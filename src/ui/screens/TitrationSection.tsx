@@ -3,7 +3,11 @@
 import type { Issue } from '../../chem/errors';
 import { ACID_HANDLING_CAUTION } from '../../chem/titration/acidCautions';
 import type { TitrateOutcome } from '../../chem/titration/titrate';
-import { TITRATION_METHODS, type TitrationMethod } from '../../chem/titration/types';
+import {
+  DEFAULT_TITRATION_METHOD,
+  TITRATION_METHODS,
+  type TitrationMethod,
+} from '../../chem/titration/types';
 import type { TitrationRecord } from '../../store/schema';
 import { useApp } from '../app-context';
 import { formatNumber, parseDecimal } from '../numbers';
@@ -22,7 +26,7 @@ export const EMPTY_TITRATION: TitrationForm = {
   sampleVolume: '',
   normality: '',
   correction: '',
-  method: 'gran',
+  method: DEFAULT_TITRATION_METHOD,
   endpoint: '',
   pointsText: '',
 };
@@ -122,6 +126,20 @@ export function TitrationSummary(props: { outcome: TitrateOutcome | undefined })
             <span class="unit"> ({o.fit.points_used.length} points)</span>
           </dd>
         </div>
+        {o.confidence.level !== 'not_estimated' && (
+          <div class="output" data-key="titration-confidence">
+            <dt>Confidence</dt>
+            <dd>
+              <span class="value">{o.confidence.level}</span>
+              {o.confidence.alkalinity_se_meq_l !== undefined && (
+                <span class="unit">
+                  {' '}
+                  (± {formatNumber(o.confidence.alkalinity_se_meq_l, locale, { digits: 2 })} meq/L)
+                </span>
+              )}
+            </dd>
+          </div>
+        )}
       </dl>
       {o.warnings.map((w, i) => (
         <p key={`${w.code}-${i}`} class="issue warn">

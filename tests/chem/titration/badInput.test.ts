@@ -105,7 +105,7 @@ describe('bad titrations get a code, never NaN', () => {
       ...base.points.filter((p) => p.ph <= 4.0).slice(0, 3),
     ];
     expect(three.filter((p) => p.ph <= 4.0)).toHaveLength(3);
-    expect(warningsOf({ ...base, points: three })).toContain('gran-few-points');
+    expect(warningsOf({ ...base, method: 'gran', points: three })).toContain('gran-few-points');
   });
 
   it('warns when few readings lie past the endpoint, and the curve fit when it must extrapolate', () => {

@@ -19,12 +19,14 @@ async function run(args: string[], stdin: string) {
 const spring = readFileSync(new URL('./kestrel-hollow-spring.json', import.meta.url), 'utf8');
 
 describe('tufa titrate', () => {
-  it('reduces a pretty-printed titration file with Gran by default', async () => {
+  it('reduces a pretty-printed titration file with the modified Gran by default', async () => {
     const { code, lines } = await run([], spring);
     expect(code).toBe(0);
     expect(lines).toHaveLength(1);
     const r = JSON.parse(lines[0]!);
-    expect(r.method).toBe('gran');
+    expect(r.method).toBe('modified_gran');
+    expect(r.confidence.level).toBe('high');
+    expect(r.dic_umol_kg).toBeGreaterThan(0);
     for (const key of [
       'alkalinity_meq_l',
       'alkalinity_mg_l_caco3',
@@ -52,7 +54,7 @@ describe('tufa titrate', () => {
     const one = JSON.parse(spring);
     const { code, lines } = await run([], JSON.stringify([one, { ...one, method: 'endpoint' }]));
     expect(code).toBe(0);
-    expect(lines.map((l) => JSON.parse(l).method)).toEqual(['gran', 'endpoint']);
+    expect(lines.map((l) => JSON.parse(l).method)).toEqual(['modified_gran', 'endpoint']);
   });
 
   it('--points-csv takes the readings from a spreadsheet export', async () => {
@@ -71,6 +73,7 @@ describe('tufa titrate', () => {
   it('--every-method writes one line per method', async () => {
     const { lines } = await run(['--every-method'], spring);
     expect(lines.map((l) => JSON.parse(l).method)).toEqual([
+      'modified_gran',
       'gran',
       'inflection',
       'endpoint',

@@ -4,13 +4,13 @@
  */
 
 import { readFileSync } from 'node:fs';
-import { createInterface } from 'node:readline';
 import { isSolveError, type SolveResult } from '../chem/api';
 import { KNOWN_INPUT_KEYS } from '../chem/input';
 import { solve } from '../chem/solve';
 import { splitRecords, stripBom } from '../io/csv-parse';
 import { csvRecord } from '../io/csv-write';
-import { type CliIo, EXIT_OK, EXIT_ROW_FAILED, EXIT_USAGE } from './io';
+import { type CliIo, EXIT_OK, EXIT_ROW_FAILED, EXIT_USAGE, type InputLine, inputLines, Output } from './io';
+import { keepFinite, lineError, parseFields, parseInputLine, pickFields } from './json-lines';
 
 export const SOLVE_HELP = `tufa solve — the carbonate system of each water, from any two measured parameters
 
@@ -118,43 +118,77 @@ const TEXT_KEYS = new Set([
 ]);
 
 export async function runSolve(args: string[], io: CliIo): Promise<number> {
-  if (args.includes('--help') || args.includes('-h')) {
-    io.stdout.write(SOLVE_HELP);
-    return EXIT_OK;
+  let file: string | undefined;
+  let fields: string[][] | undefined;
+  for (let i = 0; i < args.length; i++) {
+    const a = args[i]!;
+    let problem: string | undefined;
+    if (a === '--help' || a === '-h') {
+      io.stdout.write(SOLVE_HELP);
+      return EXIT_OK;
+    } else if (a === '--csv') {
+      file = args[++i];
+      if (file === undefined) problem = '--csv needs a file name';
+    } else if (a === '--fields') {
+      const f = parseFields(args[++i]);
+      if (typeof f === 'string') problem = f;
+      else fields = f;
+    } else problem = `unknown argument ${a}`;
+    if (problem !== undefined) {
+      io.stderr.write(`tufa solve: ${problem}\nRun "npx tufa solve --help" for usage.\n`);
+      return EXIT_USAGE;
+    }
   }
-  const csvAt = args.indexOf('--csv');
-  const unknown = args.filter((a, i) => a !== '--csv' && !(csvAt >= 0 && i === csvAt + 1));
-  if (unknown.length > 0 || (csvAt >= 0 && args[csvAt + 1] === undefined)) {
-    io.stderr.write(
-      unknown.length > 0
-        ? `tufa solve: unknown argument ${unknown[0]}\n`
-        : 'tufa solve: --csv needs a file name\n',
-    );
-    io.stderr.write('Run "npm run -s tufa -- solve --help" for usage.\n');
-    return EXIT_USAGE;
+  const seen = new Set<string>();
+  const code = file !== undefined ? await solveCsv(file, io, fields) : await solveJsonLines(io, fields, seen);
+  if (fields && file === undefined) {
+    const never = fields.map((f) => f.join('.')).filter((f) => !seen.has(f));
+    if (never.length > 0)
+      io.stderr.write(`tufa solve: no result had ${never.join(', ')} (see --help for the output names)\n`);
   }
-  if (csvAt >= 0) return solveCsv(args[csvAt + 1]!, io);
-  return solveJsonLines(io);
+  return code;
 }
 
-async function solveJsonLines(io: CliIo): Promise<number> {
-  let failed = false;
-  const lines = createInterface({ input: io.stdin, crlfDelay: Number.POSITIVE_INFINITY });
-  for await (const line of lines) {
-    if (line.trim() === '') continue;
-    let result: SolveResult;
-    try {
-      result = solve(JSON.parse(line));
-    } catch (e) {
-      result = { error: { code: 'invalid-json', message: `The line is not JSON: ${(e as Error).message}` } };
-    }
-    if (isSolveError(result)) failed = true;
-    io.stdout.write(`${JSON.stringify(result)}\n`);
+/** One input line's output line (without the line end): the result, narrowed to `fields` if given. */
+export function solveLine(
+  l: InputLine,
+  fields: readonly string[][] | undefined,
+  seen: Set<string>,
+): { text: string; failed: boolean } {
+  const parsed = parseInputLine(l);
+  if (!('value' in parsed)) return { text: JSON.stringify(parsed), failed: 'error' in parsed };
+  let result: SolveResult;
+  try {
+    result = solve(parsed.value);
+  } catch (e) {
+    return {
+      text: JSON.stringify(lineError('internal-error', String((e as Error).message ?? e), l.line)),
+      failed: true,
+    };
   }
+  if (isSolveError(result))
+    return { text: JSON.stringify({ error: { ...result.error, line: l.line } }), failed: true };
+  const finite = keepFinite(result as unknown as Record<string, unknown>);
+  return { text: JSON.stringify(fields ? pickFields(finite, fields, l.line, seen) : finite), failed: false };
+}
+
+async function solveJsonLines(
+  io: CliIo,
+  fields: readonly string[][] | undefined,
+  seen: Set<string>,
+): Promise<number> {
+  let failed = false;
+  const out = new Output(io.stdout);
+  for await (const l of inputLines(io.stdin)) {
+    const r = solveLine(l, fields, seen);
+    if (r.failed) failed = true;
+    if (out.add(`${r.text}\n`)) await out.flush();
+  }
+  await out.flush();
   return failed ? EXIT_ROW_FAILED : EXIT_OK;
 }
 
-function solveCsv(file: string, io: CliIo): number {
+async function solveCsv(file: string, io: CliIo, _fields: readonly string[][] | undefined): Promise<number> {
   let text: string;
   try {
     text = readFileSync(file, 'utf8');

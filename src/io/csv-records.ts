@@ -168,7 +168,7 @@ export class CsvSplitter {
       rowIssue(
         first,
         'csv-unterminated-quote',
-        `A quoted field that starts on this line is never closed (${why}); this line is skipped${rest.length > 0 ? ` and lines ${first + 1}–${first + rest.length} are read as rows` : ''}.`,
+        `A quoted field that starts on this line is never closed (${why}); this line is skipped${rest.length === 1 ? ` and line ${first + 1} is read as a row` : rest.length > 1 ? ` and lines ${first + 1}–${first + rest.length} are read as rows` : ''}.`,
       ),
     );
     rest.forEach((l, k) => {

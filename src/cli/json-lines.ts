@@ -25,6 +25,8 @@ export function lineError(code: string, message: string, line?: number): { error
 /** An input line as a JSON value, or the coded reason it is not one. */
 export function parseInputLine(
   l: InputLine,
+  /** Code of a line that is not JSON: solve and plan say invalid-json, titrate input-not-json (codes stay). */
+  notJson = 'invalid-json',
 ): { value: unknown } | { error: LineIssue } | { skipped: LineIssue } {
   if (l.tooLong) {
     return lineError('line-too-long', `Line ${l.line} is longer than ${MAX_LINE_CHARS} characters.`, l.line);
@@ -38,7 +40,7 @@ export function parseInputLine(
   try {
     value = JSON.parse(l.text);
   } catch (e) {
-    return lineError('invalid-json', `Line ${l.line} is not JSON: ${(e as Error).message}`, l.line);
+    return lineError(notJson, `Line ${l.line} is not JSON: ${(e as Error).message}`, l.line);
   }
   if (deeperThan(value, MAX_DEPTH)) {
     return lineError(

@@ -62,9 +62,10 @@ export const MAX_LINE_CHARS = 1 << 20;
  * Splits a stream into lines at LF only (a CR before the LF is dropped; a lone CR is part of the
  * line, so it never splits a record in two), strips a leading byte-order mark, and yields every
  * line including blank ones, so outputs can be matched to inputs one to one. A final line without
- * a line end counts; an empty remainder after the last LF does not.
+ * a line end counts; an empty remainder after the last LF does not. Lines come in batches, one
+ * per chunk read, so the cost of waiting for input is paid per chunk and not per line.
  */
-export async function* inputLines(stream: NodeJS.ReadableStream): AsyncGenerator<InputLine> {
+export async function* inputLines(stream: NodeJS.ReadableStream): AsyncGenerator<InputLine[]> {
   stream.setEncoding('utf8');
   let carry = '';
   let line = 0;
@@ -76,16 +77,17 @@ export async function* inputLines(stream: NodeJS.ReadableStream): AsyncGenerator
       first = false;
       if (chunk.charCodeAt(0) === 0xfeff) chunk = chunk.slice(1);
     }
+    const batch: InputLine[] = [];
     let start = 0;
     for (let nl = chunk.indexOf('\n'); nl >= 0; nl = chunk.indexOf('\n', start)) {
       line++;
       if (skipping) {
         skipping = false;
-        yield { line, tooLong: true };
+        batch.push({ line, tooLong: true });
       } else {
         let text = carry === '' ? chunk.slice(start, nl) : carry + chunk.slice(start, nl);
         if (text.endsWith('\r')) text = text.slice(0, -1);
-        yield text.length > MAX_LINE_CHARS ? { line, tooLong: true } : { line, text };
+        batch.push(text.length > MAX_LINE_CHARS ? { line, tooLong: true } : { line, text });
       }
       carry = '';
       start = nl + 1;
@@ -97,7 +99,8 @@ export async function* inputLines(stream: NodeJS.ReadableStream): AsyncGenerator
         skipping = true;
       }
     }
+    if (batch.length > 0) yield batch;
   }
-  if (skipping) yield { line: line + 1, tooLong: true };
-  else if (carry !== '') yield { line: line + 1, text: carry.endsWith('\r') ? carry.slice(0, -1) : carry };
+  if (skipping) yield [{ line: line + 1, tooLong: true }];
+  else if (carry !== '') yield [{ line: line + 1, text: carry.endsWith('\r') ? carry.slice(0, -1) : carry }];
 }

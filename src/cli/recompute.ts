@@ -100,38 +100,39 @@ export async function runRecompute(args: string[], io: CliIo): Promise<number> {
   out.add(`${csvRecord(header)}\r\n`);
   let computed = 0;
   let failed = 0;
-  for await (const r of table.rows) {
-    rows++;
-    if (r.errors.length > 0) {
-      problems += r.errors.length;
-      for (const e of r.errors) io.stderr.write(`${where(e)}: ${e.code}: ${e.message}\n`);
-      continue;
+  for await (const batch of table.rows)
+    for (const r of batch) {
+      rows++;
+      if (r.errors.length > 0) {
+        problems += r.errors.length;
+        for (const e of r.errors) io.stderr.write(`${where(e)}: ${e.code}: ${e.message}\n`);
+        continue;
+      }
+      const res = solve(r.input);
+      const row = [
+        String(r.line),
+        r.site,
+        r.takenAt !== undefined ? formatWithOffset(Date.parse(r.takenAt), r.zone) : '',
+        r.zone,
+        ...(table.hasPh ? [r.options.ph_scale ?? String(o.sets.ph_scale ?? '')] : []),
+        ...table.valueKeys.map((k) => formatNumber(r.values[k])),
+      ];
+      if (isSolveError(res)) {
+        failed++;
+        row.push(...COMPUTED_COLUMNS.map(() => ''), '', `${res.error.code}: ${res.error.message}`);
+        io.stderr.write(`line ${r.line}: ${res.error.code}: ${res.error.message}\n`);
+      } else {
+        computed++;
+        row.push(
+          ...COMPUTED_COLUMNS.map((c) =>
+            formatNumber(typeof res[c] === 'number' ? (res[c] as number) : undefined),
+          ),
+          res.model,
+          res.warnings.map((w) => `${w.code}: ${w.message}`).join(' | '),
+        );
+      }
+      if (out.add(`${csvRecord(row)}\r\n`)) await out.flush();
     }
-    const res = solve(r.input);
-    const row = [
-      String(r.line),
-      r.site,
-      r.takenAt !== undefined ? formatWithOffset(Date.parse(r.takenAt), r.zone) : '',
-      r.zone,
-      ...(table.hasPh ? [r.options.ph_scale ?? String(o.sets.ph_scale ?? '')] : []),
-      ...table.valueKeys.map((k) => formatNumber(r.values[k])),
-    ];
-    if (isSolveError(res)) {
-      failed++;
-      row.push(...COMPUTED_COLUMNS.map(() => ''), '', `${res.error.code}: ${res.error.message}`);
-      io.stderr.write(`line ${r.line}: ${res.error.code}: ${res.error.message}\n`);
-    } else {
-      computed++;
-      row.push(
-        ...COMPUTED_COLUMNS.map((c) =>
-          formatNumber(typeof res[c] === 'number' ? (res[c] as number) : undefined),
-        ),
-        res.model,
-        res.warnings.map((w) => `${w.code}: ${w.message}`).join(' | '),
-      );
-    }
-    if (out.add(`${csvRecord(row)}\r\n`)) await out.flush();
-  }
   await out.flush();
   const count = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
   io.stderr.write(

@@ -189,10 +189,12 @@ async function solveJsonLines(
 ): Promise<number> {
   let failed = false;
   const out = new Output(io.stdout);
-  for await (const l of inputLines(io.stdin)) {
-    const r = solveLine(l, fields, seen);
-    if (r.failed) failed = true;
-    if (out.add(`${r.text}\n`)) await out.flush();
+  for await (const batch of inputLines(io.stdin)) {
+    for (const l of batch) {
+      const r = solveLine(l, fields, seen);
+      if (r.failed) failed = true;
+      if (out.add(`${r.text}\n`)) await out.flush();
+    }
   }
   await out.flush();
   return failed ? EXIT_ROW_FAILED : EXIT_OK;
@@ -233,44 +235,45 @@ async function solveCsv(
   );
   const blank = columns.map(() => '');
   const seen = new Set<string>();
-  for await (const row of table.rows) {
-    const pass = PASSTHROUGH.map((k) => row.passthrough[k]);
-    const r: SolveResult =
-      row.errors.length > 0
-        ? { error: { code: row.errors[0]!.code, message: row.errors.map((e) => e.message).join(' ') } }
-        : solve(row.input);
-    let line: string;
-    if (isSolveError(r)) {
-      failed = true;
-      line = csvLine([
-        ...pass,
-        row.line,
-        ...blank,
-        ...(names ? [] : ['', '', '']),
-        r.error.code,
-        r.error.message,
-      ]);
-    } else {
-      const finite = keepFinite(r as unknown as Record<string, unknown>);
-      const picked = pickFields(
-        finite,
-        columns.map((c) => c.split('.')),
-        row.line,
-        seen,
-      );
-      line = csvLine([
-        ...pass,
-        row.line,
-        ...columns.map((c) => picked[c]),
-        ...(names
-          ? []
-          : [r.model, r.pair.join('+'), r.warnings.map((w) => `${w.code}: ${w.message}`).join(' | ')]),
-        '',
-        '',
-      ]);
+  for await (const batch of table.rows)
+    for (const row of batch) {
+      const pass = PASSTHROUGH.map((k) => row.passthrough[k]);
+      const r: SolveResult =
+        row.errors.length > 0
+          ? { error: { code: row.errors[0]!.code, message: row.errors.map((e) => e.message).join(' ') } }
+          : solve(row.input);
+      let line: string;
+      if (isSolveError(r)) {
+        failed = true;
+        line = csvLine([
+          ...pass,
+          row.line,
+          ...blank,
+          ...(names ? [] : ['', '', '']),
+          r.error.code,
+          r.error.message,
+        ]);
+      } else {
+        const finite = keepFinite(r as unknown as Record<string, unknown>);
+        const picked = pickFields(
+          finite,
+          columns.map((c) => c.split('.')),
+          row.line,
+          seen,
+        );
+        line = csvLine([
+          ...pass,
+          row.line,
+          ...columns.map((c) => picked[c]),
+          ...(names
+            ? []
+            : [r.model, r.pair.join('+'), r.warnings.map((w) => `${w.code}: ${w.message}`).join(' | ')]),
+          '',
+          '',
+        ]);
+      }
+      if (out.add(line)) await out.flush();
     }
-    if (out.add(line)) await out.flush();
-  }
   await out.flush();
   return failed ? EXIT_ROW_FAILED : EXIT_OK;
 }

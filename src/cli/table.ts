@@ -147,7 +147,8 @@ export interface Table {
   /** Engine keys of the mapped value columns, in catalogue order. */
   valueKeys: string[];
   hasPh: boolean;
-  rows: AsyncGenerator<TableRow>;
+  /** The rows, in batches as they are read. */
+  rows: AsyncGenerator<TableRow[]>;
 }
 
 /** Decoded text of a file in pieces: UTF-8, or Windows-1252 from the first piece that is not UTF-8. */
@@ -186,7 +187,7 @@ async function* records(
   forced: Delimiter | undefined,
   onIssue: (i: RowIssue) => void,
   found: (d: Delimiter) => void,
-): AsyncGenerator<[string[], number]> {
+): AsyncGenerator<[string[], number][]> {
   const queue: [string[], number][] = [];
   let splitter: CsvSplitter | undefined;
   let sample = '';
@@ -205,12 +206,11 @@ async function* records(
       start(sample);
       sample = '';
     }
-    yield* queue;
-    queue.length = 0;
+    if (queue.length > 0) yield queue.splice(0);
   }
   if (!splitter) start(sample);
   splitter!.end();
-  yield* queue;
+  if (queue.length > 0) yield queue.splice(0);
 }
 
 /**
@@ -233,9 +233,20 @@ export async function openTable(
   const it = records(file, o.delimiter, onIssue, (d) => {
     delimiter = d;
   });
-  const first = await it.next();
-  if (first.done) return `${file} has no header row`;
-  const header = first.value[0].map((h) => h.trim());
+  // Records in batches; `pending` holds what was read ahead for the header and the decimal mark.
+  const pending: [string[], number][] = [];
+  let ended = false;
+  const fill = async (n: number) => {
+    while (!ended && pending.length < n) {
+      const b = await it.next();
+      if (b.done) ended = true;
+      else pending.push(...b.value);
+    }
+  };
+  await fill(1);
+  const first = pending.shift();
+  if (!first) return `${file} has no header row`;
+  const header = first[0].map((h) => h.trim());
   const seen = new Set<string>();
   for (const h of header) {
     if (h !== '' && seen.has(h.toLowerCase()))
@@ -274,16 +285,14 @@ export async function openTable(
   }
 
   // The first data rows decide the decimal mark, then everything streams.
-  const head: [string[], number][] = [];
-  let next = await it.next();
-  while (!next.done && head.length < 200) {
-    head.push(next.value);
-    if (head.length < 200) next = await it.next();
-  }
+  await fill(200);
   const decimalComma =
     o.decimalComma ??
     detectDecimalComma(
-      head.filter(([r]) => r.length === header.length).map(([r]) => r),
+      pending
+        .slice(0, 200)
+        .filter(([r]) => r.length === header.length)
+        .map(([r]) => r),
       delimiter,
     );
   const read = rowReader(header, mapping, decimalComma, {
@@ -335,10 +344,10 @@ export async function openTable(
     return row;
   };
 
-  async function* rows(): AsyncGenerator<TableRow> {
-    for (const rec of head) yield toRow(rec);
-    if (head.length < 200 || next.done) return;
-    for await (const rec of it) yield toRow(rec);
+  async function* rows(): AsyncGenerator<TableRow[]> {
+    if (pending.length > 0) yield pending.map(toRow);
+    if (ended) return;
+    for await (const batch of it) yield batch.map(toRow);
   }
   return {
     header,

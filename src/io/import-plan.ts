@@ -181,12 +181,15 @@ export function rowReader(
     const q = quantityById(c.quantity)!;
     return [{ index: i, q, unit: q.units.find((x) => x.id === c.unit)! }];
   });
+  let knownZone: string | undefined;
   return (row, line) => {
     const errors: RowIssue[] = [];
     const cell = (i: number) => (i >= 0 ? (row[i] ?? '').trim() : '');
     // Time
     const zone = cZone >= 0 && cell(cZone) !== '' ? cell(cZone) : mapping.timeZone;
-    if (!isKnownTimeZone(zone)) {
+    // Rows of a file nearly always share one zone: check it once, not per row.
+    if (zone !== knownZone) knownZone = isKnownTimeZone(zone) ? zone : undefined;
+    if (knownZone === undefined) {
       errors.push(rowIssue(line, 'time-zone-unknown', `"${zone}" is not a time zone.`, header[cZone]));
     }
     const dateText = cTimestamp >= 0 ? cell(cTimestamp) : cell(cDate);
@@ -195,7 +198,7 @@ export function rowReader(
     if (dateText === '') {
       if (hasTime || options.timeRequired)
         errors.push(rowIssue(line, 'time-missing', 'The sampling time is empty.', timeColumn));
-    } else if (isKnownTimeZone(zone)) {
+    } else if (knownZone !== undefined) {
       const t = parseTimestamp(dateText, cTimestamp >= 0 ? undefined : cell(cTime), zone, mapping.dateOrder);
       if ('reason' in t) errors.push(rowIssue(line, 'time-unreadable', t.reason, timeColumn));
       else takenAt = new Date(t.epochMs).toISOString();

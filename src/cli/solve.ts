@@ -178,8 +178,12 @@ export function solveLine(
   }
   if (isSolveError(result))
     return { text: JSON.stringify({ error: { ...result.error, line: l.line } }), failed: true };
-  const finite = keepFinite(result as unknown as Record<string, unknown>);
-  return { text: JSON.stringify(fields ? pickFields(finite, fields, l.line, seen) : finite), failed: false };
+  // Narrowed first, so only what is written is checked (a left-out value is named in `warnings`).
+  const all = result as unknown as Record<string, unknown>;
+  return {
+    text: JSON.stringify(keepFinite(fields ? pickFields(all, fields, l.line, seen) : all)),
+    failed: false,
+  };
 }
 
 async function solveJsonLines(

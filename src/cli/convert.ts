@@ -101,6 +101,13 @@ function parseNumber(s: string | undefined, what: string): number {
   return v;
 }
 
+/** An option's number within the range where the formulations mean something, else a coded refusal. */
+function inRange(v: number, lo: number, hi: number, code: string, what: string, unit: string): number {
+  const u = unit === '' ? '' : ` ${unit}`;
+  if (v < lo || v > hi) throw new TufaError(code, `${what} ${v}${u} is outside ${lo}–${hi}${u}.`);
+  return v;
+}
+
 function parseArgs(args: string[]): { positional: string[]; opts: Options; help: boolean } {
   const opts: Options = {
     temp: 25,
@@ -121,19 +128,40 @@ function parseArgs(args: string[]): { positional: string[]; opts: Options; help:
         help = true;
         break;
       case '--temp':
-        opts.temp = parseNumber(next(), '--temp');
+        opts.temp = inRange(
+          parseNumber(next(), '--temp'),
+          -5,
+          100,
+          'temperature-out-of-range',
+          '--temp',
+          '°C',
+        );
         break;
       case '--sal':
-        opts.sal = parseNumber(next(), '--sal');
+        opts.sal = inRange(parseNumber(next(), '--sal'), 0, 70, 'salinity-out-of-range', '--sal', '');
         break;
       case '--density':
-        opts.density = parseNumber(next(), '--density');
+        opts.density = inRange(
+          parseNumber(next(), '--density'),
+          900,
+          1300,
+          'density-out-of-range',
+          '--density',
+          'kg/m3',
+        );
         break;
       case '--sg-ref':
-        opts.sgRef = parseNumber(next(), '--sg-ref');
+        opts.sgRef = inRange(
+          parseNumber(next(), '--sg-ref'),
+          -5,
+          100,
+          'temperature-out-of-range',
+          '--sg-ref',
+          '°C',
+        );
         break;
       case '--alpha':
-        opts.alpha = parseNumber(next(), '--alpha');
+        opts.alpha = inRange(parseNumber(next(), '--alpha'), 0, 0.1, 'alpha-out-of-range', '--alpha', '1/°C');
         break;
       case '--comp': {
         const m = next();
@@ -315,6 +343,8 @@ export async function runConvert(args: string[], io: ConvertIo): Promise<number>
   for (const s of inputs) {
     try {
       const c = convertOne(parseNumber(s, 'value'), from, to, opts);
+      if (!Number.isFinite(c.result))
+        throw new TufaError('result-not-finite', `${s} ${from} is too large to convert to ${to}.`);
       if (opts.json) {
         io.stdout.write(
           `${JSON.stringify({ value: c.value, from, to, result: c.result, note: c.note, warnings: c.warnings })}\n`,

@@ -1,8 +1,14 @@
 /** The streams a CLI command talks to, passed in so tests can run commands in-process. */
 export interface CliIo {
   stdin: NodeJS.ReadableStream;
-  stdout: { write(chunk: string): unknown };
-  stderr: { write(chunk: string): unknown };
+  stdout: Sink;
+  stderr: Sink;
+}
+
+/** A writable end: a Node stream (write returns false when full, then emits 'drain') or a test buffer. */
+export interface Sink {
+  write(chunk: string): unknown;
+  once?(event: 'drain', listener: () => void): unknown;
 }
 
 /** Exit status of every command: 0 all done, 1 some rows failed, 2 unusable arguments. */
@@ -15,4 +21,86 @@ export async function readAll(stream: NodeJS.ReadableStream): Promise<string> {
   stream.setEncoding('utf8');
   for await (const chunk of stream) text += chunk as string;
   return text;
+}
+
+/**
+ * Output with back-pressure: lines are gathered into chunks of about 64 KB, and when the sink
+ * says it is full the writer waits for 'drain' before the caller reads more input. Memory stays
+ * bounded however fast the input comes and however slow the reader of stdout is.
+ */
+export class Output {
+  private buffer = '';
+  constructor(
+    private readonly sink: Sink,
+    private readonly chunkSize = 64 * 1024,
+  ) {}
+
+  /** Adds text; true when the caller should `await flush()` before going on. */
+  add(text: string): boolean {
+    this.buffer += text;
+    return this.buffer.length >= this.chunkSize;
+  }
+
+  async flush(): Promise<void> {
+    if (this.buffer === '') return;
+    const text = this.buffer;
+    this.buffer = '';
+    const sink = this.sink;
+    if (sink.write(text) === false && sink.once) {
+      await new Promise<void>((resolve) => sink.once!('drain', resolve));
+    }
+  }
+}
+
+/** One input line: its 1-based number and text (without the line end), or that it was too long. */
+export type InputLine = { line: number; text: string; tooLong?: false } | { line: number; tooLong: true };
+
+/** Longest line read whole; a longer one is skipped to its end and reported, so memory stays bounded. */
+export const MAX_LINE_CHARS = 1 << 20;
+
+/**
+ * Splits a stream into lines at LF only (a CR before the LF is dropped; a lone CR is part of the
+ * line, so it never splits a record in two), strips a leading byte-order mark, and yields every
+ * line including blank ones, so outputs can be matched to inputs one to one. A final line without
+ * a line end counts; an empty remainder after the last LF does not. Lines come in batches, one
+ * per chunk read, so the cost of waiting for input is paid per chunk and not per line.
+ */
+export async function* inputLines(stream: NodeJS.ReadableStream): AsyncGenerator<InputLine[]> {
+  stream.setEncoding('utf8');
+  let carry = '';
+  let line = 0;
+  let skipping = false;
+  let first = true;
+  for await (const piece of stream) {
+    let chunk = piece as string;
+    if (first) {
+      first = false;
+      if (chunk.charCodeAt(0) === 0xfeff) chunk = chunk.slice(1);
+    }
+    const batch: InputLine[] = [];
+    let start = 0;
+    for (let nl = chunk.indexOf('\n'); nl >= 0; nl = chunk.indexOf('\n', start)) {
+      line++;
+      if (skipping) {
+        skipping = false;
+        batch.push({ line, tooLong: true });
+      } else {
+        let text = carry === '' ? chunk.slice(start, nl) : carry + chunk.slice(start, nl);
+        if (text.endsWith('\r')) text = text.slice(0, -1);
+        batch.push(text.length > MAX_LINE_CHARS ? { line, tooLong: true } : { line, text });
+      }
+      carry = '';
+      start = nl + 1;
+    }
+    if (!skipping) {
+      carry += chunk.slice(start);
+      if (carry.length > MAX_LINE_CHARS) {
+        carry = '';
+        skipping = true;
+      }
+    }
+    if (batch.length > 0) yield batch;
+  }
+  if (skipping) yield [{ line: line + 1, tooLong: true }];
+  else if (carry !== '') yield [{ line: line + 1, text: carry.endsWith('\r') ? carry.slice(0, -1) : carry }];
 }

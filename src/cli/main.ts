@@ -1,6 +1,7 @@
 /**
- * The `tufa` command line: `npm run -s tufa -- <command> [options]`. Run by tsx straight from the
- * TypeScript sources, so it works right after `npm ci`.
+ * The `tufa` command line: `npx tufa <command> [options]` or `npm run -s tufa -- <command>`.
+ * `bin/tufa.mjs` runs an esbuild bundle of `entry.ts` made at install time (see bin/build-cli.mjs).
+ * A new command is one import and one row of COMMANDS.
  */
 
 import { runConvert } from './convert';
@@ -10,9 +11,9 @@ import { runRecompute } from './recompute';
 import { runSolve } from './solve';
 import { runTitrate } from './titrate';
 
-type Command = (args: string[], io: CliIo) => Promise<number>;
+export type Command = (args: string[], io: CliIo) => Promise<number>;
 
-const COMMANDS: Record<string, { run: Command; summary: string }> = {
+export const COMMANDS: Record<string, { run: Command; summary: string }> = {
   solve: {
     run: runSolve,
     summary: 'carbonate system from two or more measured parameters (JSON Lines or CSV)',
@@ -37,7 +38,7 @@ const COMMANDS: Record<string, { run: Command; summary: string }> = {
 
 export const MAIN_HELP = `tufa — carbonate system of natural waters
 
-Usage: npm run -s tufa -- <command> [options]     (each command has --help)
+Usage: npx tufa <command> [options]     (or npm run -s tufa -- <command>; each command has --help)
 
 Commands:
 ${Object.entries(COMMANDS)
@@ -57,18 +58,4 @@ export async function main(argv: string[], io: CliIo): Promise<number> {
     return EXIT_USAGE;
   }
   return command.run(rest, io);
-}
-
-const isEntry =
-  process.argv[1] !== undefined && import.meta.url === new URL(`file://${process.argv[1]}`).href;
-if (isEntry) {
-  main(process.argv.slice(2), { stdin: process.stdin, stdout: process.stdout, stderr: process.stderr }).then(
-    (code) => {
-      process.exitCode = code;
-    },
-    (e: unknown) => {
-      process.stderr.write(`tufa: ${(e as Error).stack ?? String(e)}\n`);
-      process.exitCode = EXIT_USAGE;
-    },
-  );
 }

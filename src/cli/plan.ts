@@ -5,9 +5,11 @@
  */
 
 import { readFileSync } from 'node:fs';
+import { toIssue } from '../chem/errors';
 import { CHEMICAL_IDS, CHEMICALS } from '../chem/plan/chemicals';
 import { isPlanError, type PlanOutput, plan } from '../chem/plan/plan';
 import { type CliIo, EXIT_OK, EXIT_ROW_FAILED, EXIT_USAGE, readAll } from './io';
+import { deeperThan, keepFinite, lineError, MAX_DEPTH } from './json-lines';
 
 export const PLAN_HELP = `tufa plan — what a water will be after a dose, degassing or mixing, and the dose for a target
 
@@ -87,14 +89,28 @@ export async function runPlan(args: string[], io: CliIo): Promise<number> {
     );
     return EXIT_ROW_FAILED;
   }
-  const r = plan(request);
+  if (deeperThan(request, MAX_DEPTH)) {
+    io.stdout.write(
+      `${JSON.stringify(lineError('input-too-deep', `The plan nests values more than ${MAX_DEPTH} levels deep; no plan needs that.`))}\n`,
+    );
+    return EXIT_ROW_FAILED;
+  }
+  let r: ReturnType<typeof plan>;
+  try {
+    r = plan(request);
+  } catch (e) {
+    r = { error: toIssue(e) };
+  }
   if (isPlanError(r)) {
     if (args.includes('--text')) io.stderr.write(`tufa plan: ${r.error.code}: ${r.error.message}\n`);
     else io.stdout.write(`${JSON.stringify(r)}\n`);
     return EXIT_ROW_FAILED;
   }
   if (args.includes('--text')) io.stdout.write(planText(r));
-  else io.stdout.write(`${JSON.stringify(r, null, args.includes('--pretty') ? 2 : undefined)}\n`);
+  else
+    io.stdout.write(
+      `${JSON.stringify(keepFinite(r as unknown as Record<string, unknown>), null, args.includes('--pretty') ? 2 : undefined)}\n`,
+    );
   return EXIT_OK;
 }
 

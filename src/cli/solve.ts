@@ -3,22 +3,42 @@
  * out. A line that cannot be solved becomes `{"error": {...}}` and the batch goes on.
  */
 
-import { readFileSync } from 'node:fs';
-import { createInterface } from 'node:readline';
 import { isSolveError, type SolveResult } from '../chem/api';
-import { KNOWN_INPUT_KEYS } from '../chem/input';
 import { solve } from '../chem/solve';
-import { splitRecords, stripBom } from '../io/csv-parse';
 import { csvRecord } from '../io/csv-write';
-import { type CliIo, EXIT_OK, EXIT_ROW_FAILED, EXIT_USAGE } from './io';
+import { type CliIo, EXIT_OK, EXIT_ROW_FAILED, EXIT_USAGE, type InputLine, inputLines, Output } from './io';
+import { keepFinite, lineError, parseFields, parseInputLine, pickFields } from './json-lines';
+import {
+  openTable,
+  PASSTHROUGH,
+  TABLE_OPTIONS_HELP,
+  type TableOptions,
+  tableDefaults,
+  tableOption,
+} from './table';
 
 export const SOLVE_HELP = `tufa solve — the carbonate system of each water, from any two measured parameters
 
 Usage:
-  npm run -s tufa -- solve < waters.jsonl > results.jsonl
-  npm run -s tufa -- solve --csv waters.csv > results.csv
+  npx tufa solve [--fields LIST] < waters.jsonl > results.jsonl
+  npx tufa solve --csv FILE [--fields LIST] [table options] > results.csv
 
-Input: one JSON object per line (or a CSV whose header row uses the same names).
+Options:
+  --fields LIST           only these outputs, e.g. --fields line,ph_total,pco2_uatm,constants.pk1
+                          (names below; "line" is the input line; nested ones with a dot)
+  --csv FILE              read a table instead of JSON Lines: the same reader as recompute (BOM,
+                          delimiter, decimal comma and Windows-1252 detected; columns named as
+                          below or as recompute recognizes them, e.g. "Temp (°C)"; id and label
+                          are copied to the output; times and sites are not needed)
+${TABLE_OPTIONS_HELP}
+
+Batch contract (JSON Lines): one output line per input line, in order, streamed. A leading BOM
+is ignored, a line ends at LF only (CRLF too; a lone CR does not end a line), a blank line gives
+{"skipped": {"code": "blank-line", "line": N}}, and a failed line {"error": {"code", "message",
+"line"}} (codes include invalid-json, input-too-deep, line-too-long). Every number in the output
+is finite: one that overflowed is left out and named in warnings (value-not-finite).
+
+Input: one JSON object per line (or a table whose header row uses the same names).
   temperature_c          required, °C
   salinity               practical salinity (required for the saline model)
   pressure_dbar          applied pressure, default 0
@@ -54,13 +74,13 @@ Output (at output conditions): alkalinity_umol_kg dic_umol_kg ph_total ph_free p
     ccpp_mg_l_caco3 ph_after_ccpp charge_balance_error_percent pco2_excess_ratio air_pco2_uatm
     ph_air_equilibrium dic_air_equilibrium_umol_kg alkalinity_{mmol_kg,mmol_l,meq_l,mg_l_caco3,
     mg_l_hco3,ppm_caco3,dkh} treatment_caution (omega_* are null without calcium)
-  A failed line: {"error": {"code": "...", "message": "..."}}.
+  A failed line: {"error": {"code": "...", "message": "...", "line": N}}.
 
-Exit status: 0 every line solved, 1 some line failed, 2 unusable arguments.
+Exit status: 0 every line solved (blank lines skipped), 1 some line failed, 2 unusable arguments.
 
 Example:
   echo '{"temperature_c":25,"salinity":35,"alkalinity_umol_kg":2300,"dic_umol_kg":2000}' \\
-    | npm run -s tufa -- solve
+    | npx tufa solve --fields ph_total,pco2_uatm,omega_aragonite
 `;
 
 /** Scalar outputs written as CSV columns, in this order. */
@@ -100,139 +120,169 @@ const CSV_FRESH = [
   'alkalinity_dkh',
 ] as const;
 const CSV_CONSTANTS = ['pk0', 'pk1', 'pk2', 'pkw', 'pkb', 'pksp_calcite', 'pksp_aragonite'] as const;
-const CSV_PASSTHROUGH = ['id', 'label'] as const;
-/** Keys whose CSV cells are text; every other known key is a number. */
-const TEXT_KEYS = new Set([
-  'model',
-  'ph_scale',
-  'carbonic_constants',
-  'boron_total',
-  'fluoride_constant',
-  'pair',
-  'root',
-  'activity_model',
-  'conductance_factor',
-  'dolomite_form',
-  ...CSV_PASSTHROUGH,
-  'notes',
-]);
-
 export async function runSolve(args: string[], io: CliIo): Promise<number> {
-  if (args.includes('--help') || args.includes('-h')) {
-    io.stdout.write(SOLVE_HELP);
-    return EXIT_OK;
+  let file: string | undefined;
+  let fields: string[][] | undefined;
+  const table = tableDefaults();
+  for (let i = 0; i < args.length; i++) {
+    const a = args[i]!;
+    let problem: string | undefined;
+    if (a === '--help' || a === '-h') {
+      io.stdout.write(SOLVE_HELP);
+      return EXIT_OK;
+    } else if (a === '--csv') {
+      file = args[++i];
+      if (file === undefined) problem = '--csv needs a file name';
+    } else if (a === '--fields') {
+      const f = parseFields(args[++i]);
+      if (typeof f === 'string') problem = f;
+      else fields = f;
+    } else {
+      const used = tableOption(args, i, table);
+      if (typeof used === 'string') problem = used;
+      else if (used === 0) problem = `unknown argument ${a}`;
+      else i += used - 1;
+    }
+    if (problem !== undefined) {
+      io.stderr.write(`tufa solve: ${problem}\nRun "npx tufa solve --help" for usage.\n`);
+      return EXIT_USAGE;
+    }
   }
-  const csvAt = args.indexOf('--csv');
-  const unknown = args.filter((a, i) => a !== '--csv' && !(csvAt >= 0 && i === csvAt + 1));
-  if (unknown.length > 0 || (csvAt >= 0 && args[csvAt + 1] === undefined)) {
-    io.stderr.write(
-      unknown.length > 0
-        ? `tufa solve: unknown argument ${unknown[0]}\n`
-        : 'tufa solve: --csv needs a file name\n',
-    );
-    io.stderr.write('Run "npm run -s tufa -- solve --help" for usage.\n');
-    return EXIT_USAGE;
+  const seen = new Set<string>();
+  const code =
+    file !== undefined ? await solveCsv(file, table, io, fields) : await solveJsonLines(io, fields, seen);
+  if (fields && file === undefined) {
+    const never = fields.map((f) => f.join('.')).filter((f) => !seen.has(f));
+    if (never.length > 0)
+      io.stderr.write(`tufa solve: no result had ${never.join(', ')} (see --help for the output names)\n`);
   }
-  if (csvAt >= 0) return solveCsv(args[csvAt + 1]!, io);
-  return solveJsonLines(io);
+  return code;
 }
 
-async function solveJsonLines(io: CliIo): Promise<number> {
-  let failed = false;
-  const lines = createInterface({ input: io.stdin, crlfDelay: Number.POSITIVE_INFINITY });
-  for await (const line of lines) {
-    if (line.trim() === '') continue;
-    let result: SolveResult;
-    try {
-      result = solve(JSON.parse(line));
-    } catch (e) {
-      result = { error: { code: 'invalid-json', message: `The line is not JSON: ${(e as Error).message}` } };
-    }
-    if (isSolveError(result)) failed = true;
-    io.stdout.write(`${JSON.stringify(result)}\n`);
+/** One input line's output line (without the line end): the result, narrowed to `fields` if given. */
+export function solveLine(
+  l: InputLine,
+  fields: readonly string[][] | undefined,
+  seen: Set<string>,
+): { text: string; failed: boolean } {
+  const parsed = parseInputLine(l);
+  if (!('value' in parsed)) return { text: JSON.stringify(parsed), failed: 'error' in parsed };
+  let result: SolveResult;
+  try {
+    result = solve(parsed.value);
+  } catch (e) {
+    return {
+      text: JSON.stringify(lineError('internal-error', String((e as Error).message ?? e), l.line)),
+      failed: true,
+    };
   }
+  if (isSolveError(result))
+    return { text: JSON.stringify({ error: { ...result.error, line: l.line } }), failed: true };
+  // Narrowed first, so only what is written is checked (a left-out value is named in `warnings`).
+  const all = result as unknown as Record<string, unknown>;
+  return {
+    text: JSON.stringify(keepFinite(fields ? pickFields(all, fields, l.line, seen) : all)),
+    failed: false,
+  };
+}
+
+async function solveJsonLines(
+  io: CliIo,
+  fields: readonly string[][] | undefined,
+  seen: Set<string>,
+): Promise<number> {
+  let failed = false;
+  const out = new Output(io.stdout);
+  for await (const batch of inputLines(io.stdin)) {
+    for (const l of batch) {
+      const r = solveLine(l, fields, seen);
+      if (r.failed) failed = true;
+      if (out.add(`${r.text}\n`)) await out.flush();
+    }
+  }
+  await out.flush();
   return failed ? EXIT_ROW_FAILED : EXIT_OK;
 }
 
-function solveCsv(file: string, io: CliIo): number {
-  let text: string;
-  try {
-    text = readFileSync(file, 'utf8');
-  } catch (e) {
-    io.stderr.write(`tufa solve: cannot read ${file}: ${(e as Error).message}\n`);
+async function solveCsv(
+  file: string,
+  o: TableOptions,
+  io: CliIo,
+  fields: readonly string[][] | undefined,
+): Promise<number> {
+  let failed = false;
+  const table = await openTable(
+    file,
+    o,
+    (issue) => {
+      if (issue.code !== 'csv-not-utf8') failed = true;
+      io.stderr.write(`tufa solve: line ${issue.row}: ${issue.code}: ${issue.message}\n`);
+    },
+    { limits: false },
+  );
+  if (typeof table === 'string') {
+    io.stderr.write(`tufa solve: ${table}\n`);
     return EXIT_USAGE;
   }
-  // Plain RFC 4180 with the contract's own column names: comma-separated, BOM tolerated.
-  const [header, ...rows] = splitRecords(stripBom(text).text, ',').records;
-  if (!header) {
-    io.stderr.write(`tufa solve: ${file} has no header row\n`);
-    return EXIT_USAGE;
-  }
-  const names = header.map((h) => h.trim());
-  io.stdout.write(
+  const names = fields?.map((f) => f.join('.'));
+  const columns = names ?? [...CSV_OUTPUTS, ...CSV_CONSTANTS.map((k) => `constants.${k}`), ...CSV_FRESH];
+  const out = new Output(io.stdout);
+  out.add(
     csvLine([
-      ...CSV_PASSTHROUGH,
-      ...CSV_OUTPUTS,
-      ...CSV_CONSTANTS,
-      ...CSV_FRESH,
-      'model',
-      'pair',
-      'warnings',
+      ...PASSTHROUGH,
+      'line',
+      ...(names ?? [...CSV_OUTPUTS, ...CSV_CONSTANTS, ...CSV_FRESH]),
+      ...(names ? [] : ['model', 'pair', 'warnings']),
       'error_code',
       'error_message',
     ]),
   );
-  let failed = false;
-  for (const cells of rows) {
-    const input: Record<string, unknown> = {};
-    names.forEach((name, i) => {
-      const cell = (cells[i] ?? '').trim();
-      if (cell === '') return;
-      input[name] = TEXT_KEYS.has(name) || !KNOWN_INPUT_KEYS.has(name) ? cell : cellNumber(cell);
-    });
-    const r = solve(input);
-    const pass = CSV_PASSTHROUGH.map((k) => input[k]);
-    if (isSolveError(r)) {
-      failed = true;
-      io.stdout.write(
-        csvLine([
+  const blank = columns.map(() => '');
+  const seen = new Set<string>();
+  for await (const batch of table.rows)
+    for (const row of batch) {
+      const pass = PASSTHROUGH.map((k) => row.passthrough[k]);
+      const r: SolveResult =
+        row.errors.length > 0
+          ? { error: { code: row.errors[0]!.code, message: row.errors.map((e) => e.message).join(' ') } }
+          : solve(row.input);
+      let line: string;
+      if (isSolveError(r)) {
+        failed = true;
+        line = csvLine([
           ...pass,
-          ...CSV_OUTPUTS.map(() => ''),
-          ...CSV_CONSTANTS.map(() => ''),
-          ...CSV_FRESH.map(() => ''),
-          '',
-          '',
-          '',
+          row.line,
+          ...blank,
+          ...(names ? [] : ['', '', '']),
           r.error.code,
           r.error.message,
-        ]),
-      );
-      continue;
+        ]);
+      } else {
+        const finite = keepFinite(r as unknown as Record<string, unknown>);
+        const picked = pickFields(
+          finite,
+          columns.map((c) => c.split('.')),
+          row.line,
+          seen,
+        );
+        line = csvLine([
+          ...pass,
+          row.line,
+          ...columns.map((c) => picked[c]),
+          ...(names
+            ? []
+            : [r.model, r.pair.join('+'), r.warnings.map((w) => `${w.code}: ${w.message}`).join(' | ')]),
+          '',
+          '',
+        ]);
+      }
+      if (out.add(line)) await out.flush();
     }
-    io.stdout.write(
-      csvLine([
-        ...pass,
-        ...CSV_OUTPUTS.map((k) => r[k]),
-        ...CSV_CONSTANTS.map((k) => r.constants[k]),
-        ...CSV_FRESH.map((k) => r[k]),
-        r.model,
-        r.pair.join('+'),
-        r.warnings.map((w) => `${w.code}: ${w.message}`).join(' | '),
-        '',
-        '',
-      ]),
-    );
-  }
+  await out.flush();
   return failed ? EXIT_ROW_FAILED : EXIT_OK;
 }
 
 /** One CSV line; numbers in full precision, absent values as empty fields. */
 function csvLine(values: readonly unknown[]): string {
   return `${csvRecord(values.map((v) => (v === undefined || v === null ? '' : String(v))))}\r\n`;
-}
-
-/** A CSV cell as a number; text that is not one stays text so the solver reports `not-a-number`. */
-function cellNumber(cell: string): number | string {
-  const n = Number(cell);
-  return Number.isFinite(n) ? n : cell;
 }

@@ -17,6 +17,7 @@ import {
   type TitrationPoint,
 } from '../chem/titration/types';
 import { type CliIo, EXIT_OK, EXIT_ROW_FAILED, EXIT_USAGE, readAll } from './io';
+import { deeperThan, keepFinite, type LineIssue, lineError, MAX_DEPTH, parseInputLine } from './json-lines';
 
 /** Wraps text to 96 columns for the help screen. */
 function wrap(text: string): string {
@@ -35,6 +36,9 @@ export const TITRATE_HELP = `Usage: npm run -s tufa -- titrate [options] < titra
 
 Reduces acid titrations of a water sample to its alkalinity. Reads one JSON object, a JSON array
 of them, or one titration per line (JSON Lines), from stdin; writes one JSON line per titration.
+JSON Lines keep the batch contract of solve: one output line per input line, in order (blank
+lines give {"skipped": {"code": "blank-line", "line": N}}, errors carry "line"); --every-method
+writes one line per method.
 
 Input fields:
   sample_volume_ml            volume of sample titrated, mL
@@ -107,27 +111,36 @@ function parseArgs(args: string[]): Options | string {
   return o;
 }
 
-/** One JSON document (possibly spread over lines, possibly an array) or JSON Lines; each entry a record or a parse error. */
-function records(text: string): Array<{ value: unknown } | { error: { code: string; message: string } }> {
-  const trimmed = text.replace(/^\uFEFF/, '').trim();
-  if (trimmed === '') return [];
-  try {
-    const whole: unknown = JSON.parse(trimmed);
-    // A JSON array of titrations is read like JSON Lines.
-    return Array.isArray(whole) ? whole.map((value: unknown) => ({ value })) : [{ value: whole }];
-  } catch {
-    return trimmed
-      .split(/\r?\n/)
-      .map((line, i) => ({ line: line.trim(), i }))
-      .filter(({ line }) => line !== '')
-      .map(({ line, i }) => {
-        try {
-          return { value: JSON.parse(line) as unknown };
-        } catch {
-          return { error: { code: 'input-not-json', message: `Line ${i + 1} is not valid JSON.` } };
-        }
-      });
+type Entry = { value: unknown; line?: number } | { error: LineIssue } | { skipped: LineIssue };
+
+/**
+ * The titrations on stdin. One line (or a document spread over lines that is not JSON Lines):
+ * one object, or an array read like JSON Lines. Several lines that each hold JSON, or that do not
+ * form one document: JSON Lines under the batch contract of json-lines.ts (one entry per line,
+ * blank lines marked as skipped, every error with its line).
+ */
+function records(text: string): Entry[] {
+  const body = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
+  const lines = body.split('\n').map((l) => (l.endsWith('\r') ? l.slice(0, -1) : l));
+  if (lines.length > 0 && lines[lines.length - 1] === '') lines.pop();
+  const parsed = lines.map((t, i) => parseInputLine({ line: i + 1, text: t }, 'input-not-json'));
+  const filled = parsed.filter((p) => !('skipped' in p));
+  const whole = (): Entry[] | undefined => {
+    try {
+      const v: unknown = JSON.parse(body);
+      if (deeperThan(v, MAX_DEPTH + 1))
+        return [lineError('input-too-deep', `The input nests values more than ${MAX_DEPTH} levels deep.`)];
+      return Array.isArray(v) ? v.map((value: unknown) => ({ value })) : [{ value: v }];
+    } catch {
+      return undefined;
+    }
+  };
+  if (filled.length === 0) return [];
+  if (filled.length === 1 || filled.some((p) => 'error' in p)) {
+    const w = whole();
+    if (w) return w;
   }
+  return parsed.map((p, i) => ('value' in p ? { value: p.value, line: i + 1 } : p));
 }
 
 export async function runTitrate(args: string[], io: CliIo): Promise<number> {
@@ -165,18 +178,25 @@ export async function runTitrate(args: string[], io: CliIo): Promise<number> {
     io.stdout.write(`${JSON.stringify(obj, null, opts.pretty ? 2 : undefined)}\n`);
   let failed = false;
   for (const entry of entries) {
+    if ('skipped' in entry) {
+      write(entry);
+      continue;
+    }
     if ('error' in entry) {
-      write({ error: entry.error });
+      write(entry);
       failed = true;
       continue;
     }
+    const at = entry.line === undefined ? {} : { line: entry.line };
     if (typeof entry.value !== 'object' || entry.value === null || Array.isArray(entry.value)) {
-      write({ error: { code: 'titration-value-invalid', message: 'Each titration must be a JSON object.' } });
+      write({
+        error: { code: 'titration-value-invalid', message: 'Each titration must be a JSON object.', ...at },
+      });
       failed = true;
       continue;
     }
     if (tablePoints !== undefined && 'error' in tablePoints) {
-      write(tablePoints);
+      write({ error: { ...tablePoints.error, ...at } });
       failed = true;
       continue;
     }
@@ -190,9 +210,17 @@ export async function runTitrate(args: string[], io: CliIo): Promise<number> {
       const record: TitrationInput = { ...input };
       if (method !== undefined) record.method = method;
       if (opts.endpointPh !== undefined) record.endpoint_ph = opts.endpointPh;
-      const result = titrate(record, freshTitrationConstants);
-      if ('error' in result) failed = true;
-      write(opts.everyMethod && 'error' in result ? { method, ...result } : result);
+      let result: ReturnType<typeof titrate>;
+      try {
+        result = titrate(record, freshTitrationConstants);
+      } catch (e) {
+        result = { error: toIssue(e) };
+      }
+      if ('error' in result) {
+        failed = true;
+        const error = { ...result.error, ...at };
+        write(opts.everyMethod ? { method, error } : { error });
+      } else write(keepFinite(result as unknown as Record<string, unknown>));
     }
   }
   return failed ? EXIT_ROW_FAILED : EXIT_OK;

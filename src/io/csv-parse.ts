@@ -4,9 +4,11 @@
  * mark is a comma), CRLF or LF line ends, and a missing final line break.
  */
 
+import { CsvSplitter, type Delimiter } from './csv-records';
 import { type IoCode, type RowIssue, rowIssue } from './io-issues';
 
-export type Delimiter = ',' | ';' | '\t' | '|';
+export type { Delimiter };
+
 export const DELIMITERS: readonly Delimiter[] = [',', ';', '\t', '|'];
 
 export interface CsvTable {
@@ -28,11 +30,7 @@ export function stripBom(text: string): { text: string; hadBom: boolean } {
   return text.startsWith(BOM) ? { text: text.slice(1), hadBom: true } : { text, hadBom: false };
 }
 
-/**
- * Splits text into records of fields. Quotes follow RFC 4180: a field that starts with `"` runs
- * to the next lone `"`, and `""` inside it is one quote. Problems are collected per line so one
- * bad row does not hide the others.
- */
+/** Splits a whole text into records of fields (see `CsvSplitter` for the rules). */
 export function splitRecords(
   text: string,
   delimiter: Delimiter,
@@ -40,88 +38,17 @@ export function splitRecords(
   const records: string[][] = [];
   const lines: number[] = [];
   const issues: RowIssue[] = [];
-  let field = '';
-  let record: string[] = [];
-  let line = 1;
-  let recordLine = 1;
-  let i = 0;
-  const n = text.length;
-  let fieldStart = true;
-  const endRecord = () => {
-    record.push(field);
-    field = '';
-    // A blank line (one empty field) is no record: spreadsheets often leave them at the end.
-    if (!(record.length === 1 && record[0] === '')) {
-      records.push(record);
-      lines.push(recordLine);
-    }
-    record = [];
-    fieldStart = true;
-  };
-  while (i < n) {
-    const c = text[i]!;
-    if (fieldStart && c === '"') {
-      fieldStart = false;
-      const openLine = line;
-      i++;
-      let closed = false;
-      while (i < n) {
-        const q = text[i]!;
-        if (q === '"') {
-          if (text[i + 1] === '"') {
-            field += '"';
-            i += 2;
-            continue;
-          }
-          i++;
-          closed = true;
-          break;
-        }
-        if (q === '\n') line++;
-        field += q;
-        i++;
-      }
-      if (!closed) {
-        issues.push(
-          rowIssue(
-            openLine,
-            'csv-unterminated-quote',
-            'A quoted field is never closed: the file ends inside it.',
-          ),
-        );
-        break;
-      }
-      // After a closing quote only a delimiter or a line end may follow.
-      const after = text[i];
-      if (after !== undefined && after !== delimiter && after !== '\r' && after !== '\n') {
-        issues.push(
-          rowIssue(
-            line,
-            'csv-stray-quote',
-            'Text follows a closing quote; quote the whole field or double the quote.',
-          ),
-        );
-        while (i < n && text[i] !== delimiter && text[i] !== '\n' && text[i] !== '\r') field += text[i++];
-      }
-      continue;
-    }
-    fieldStart = false;
-    if (c === delimiter) {
-      record.push(field);
-      field = '';
-      fieldStart = true;
-      i++;
-    } else if (c === '\r' || c === '\n') {
-      endRecord();
-      i += c === '\r' && text[i + 1] === '\n' ? 2 : 1;
-      line++;
-      recordLine = line;
-    } else {
-      field += c;
-      i++;
-    }
-  }
-  if (!fieldStart || field !== '' || record.length > 0) endRecord();
+  const splitter = new CsvSplitter(delimiter, {
+    record(fields, line) {
+      records.push(fields);
+      lines.push(line);
+    },
+    issue(i) {
+      issues.push(i);
+    },
+  });
+  splitter.push(text);
+  splitter.end();
   return { records, lines, issues };
 }
 

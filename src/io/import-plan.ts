@@ -78,27 +78,14 @@ export async function planImport(
   const createdById = new Map<string, SiteDoc>();
   const updatedAt = now.toISOString();
   const col = (role: string) => mapping.columns.findIndex((c) => c.role === role);
-  const cTimestamp = col('timestamp');
-  const cDate = col('date');
-  const cTime = col('time');
-  const cZone = col('time-zone');
   const cSite = col('site');
-  const cNotes = col('notes');
-  const cScale = col('ph-scale');
   const cReadingId = col('reading-id');
   const cUpdatedAt = col('updated-at');
   const cSiteKind = col('site-kind');
   const cSiteId = col('site-id');
   const cSiteDefaults = col('site-defaults');
-  const valueCols = mapping.columns.flatMap((c, i) => {
-    if (c.role !== 'value' && c.role !== 'titration-value') return [];
-    const q = quantityById(c.quantity)!;
-    return [
-      { index: i, q, unit: q.units.find((x) => x.id === c.unit)!, titration: c.role === 'titration-value' },
-    ];
-  });
+  const readRow = rowReader(header, mapping, csv.sniff.decimalComma);
   const seenIds = new Map<string, number>();
-  const decimalComma = csv.sniff.decimalComma;
 
   for (let r = 0; r < rows.length; r++) {
     const row = rows[r]!;
@@ -147,85 +134,9 @@ export async function planImport(
       }
     }
 
-    // Time
-    const zone = cZone >= 0 && cell(cZone) !== '' ? cell(cZone) : mapping.timeZone;
-    if (!isKnownTimeZone(zone)) {
-      rowErrors.push(rowIssue(line, 'time-zone-unknown', `"${zone}" is not a time zone.`, header[cZone]));
-    }
-    const dateText = cTimestamp >= 0 ? cell(cTimestamp) : cell(cDate);
-    const timeColumn = header[cTimestamp >= 0 ? cTimestamp : cDate];
-    let takenAt: string | undefined;
-    if (dateText === '') {
-      rowErrors.push(rowIssue(line, 'time-missing', 'The sampling time is empty.', timeColumn));
-    } else if (isKnownTimeZone(zone)) {
-      const t = parseTimestamp(dateText, cTimestamp >= 0 ? undefined : cell(cTime), zone, mapping.dateOrder);
-      if ('reason' in t) rowErrors.push(rowIssue(line, 'time-unreadable', t.reason, timeColumn));
-      else takenAt = new Date(t.epochMs).toISOString();
-    }
-
-    // Values: kept as written (quantity, number, unit); the id uses the converted engine values.
-    const scaleText = cScale >= 0 ? cell(cScale).toLowerCase() : '';
-    let scale = mapping.phScale;
-    if (scaleText !== '') {
-      if ((['total', 'free', 'seawater', 'nbs'] as const).some((x) => x === scaleText))
-        scale = scaleText as typeof scale;
-      else
-        rowErrors.push(
-          rowIssue(
-            line,
-            'value-out-of-range',
-            `"${scaleText}" is not a pH scale (total, free, seawater, nbs).`,
-            header[cScale],
-          ),
-        );
-    }
-    const measured: MeasuredValue[] = [];
-    const values: Record<string, number> = {};
-    for (const { index, q, unit, titration } of valueCols) {
-      const raw = cell(index);
-      if (raw === '') continue;
-      const x = parseNumber(raw, decimalComma);
-      if (x === undefined) {
-        rowErrors.push(
-          rowIssue(
-            line,
-            'value-not-a-number',
-            `"${raw}" is not a number${decimalComma ? ' (this file uses a decimal comma)' : ''}.`,
-            header[index],
-          ),
-        );
-        continue;
-      }
-      const k = unit.toKey(x);
-      const [lo, hi] = q.limits;
-      if (k < lo || k > hi) {
-        rowErrors.push(
-          rowIssue(
-            line,
-            'value-out-of-range',
-            `${q.label} ${raw} ${unit.label} is outside ${lo}–${hi}.`,
-            header[index],
-          ),
-        );
-        continue;
-      }
-      const stored = storedForm(q, unit, x);
-      if (titration) {
-        // A titration's result: kept apart from typed values, and part of the content id as such.
-        measured.push({ quantity: q.id, value: stored.value, unit: stored.unit, source: 'titration' });
-        values[`titration_${unit.key}`] = k;
-        continue;
-      }
-      if (q.id === 'ph' && scale) stored.unit = scale;
-      measured.push({ quantity: q.id, value: stored.value, unit: stored.unit });
-      values[unit.key] = k;
-      // The pH scale is part of what the number means, so it is part of the content id.
-      if (q.id === 'ph')
-        values.ph_scale_code = ['ph', 'nbs', 'total', 'free', 'seawater'].indexOf(stored.unit);
-    }
-    if (valueCols.length > 0 && measured.length === 0 && rowErrors.length === 0) {
-      rowErrors.push(rowIssue(line, 'row-no-values', 'This row has no measured values.'));
-    }
+    const read = readRow(row, line);
+    rowErrors.push(...read.errors);
+    const { takenAt, zone, measured, values } = read;
 
     // Identity: the reading's own id when the file carries it (our export does), else its content.
     const givenId = cell(cReadingId);
@@ -268,7 +179,7 @@ export async function planImport(
       takenAt,
       timeZone: zone,
       values: measured,
-      notes: cell(cNotes),
+      notes: read.notes,
       updatedAt: changed !== undefined ? new Date(changed).toISOString() : updatedAt,
       deleted: false,
     };
@@ -278,4 +189,140 @@ export async function planImport(
   }
   plan.newSites = [...created.values(), ...createdById.values()];
   return plan;
+}
+
+/** What one row says apart from its site: time, measured values (as written and in engine keys), notes. */
+export interface RowRead {
+  /** ISO 8601 instant, when the row has a time. */
+  takenAt?: string;
+  zone: string;
+  measured: MeasuredValue[];
+  /** Engine keys and values (plus `ph_scale_code`), as the content id sees them. */
+  values: Record<string, number>;
+  notes: string;
+  errors: RowIssue[];
+}
+
+export interface RowReaderOptions {
+  /** A row without a time is an error (true for storing into a log; a lab sheet for computing needs none). */
+  timeRequired: boolean;
+  /** Refuse values outside the quantity's physical limits (false leaves them to the engine's own codes). */
+  limits: boolean;
+}
+
+/**
+ * Reads rows of one file under one mapping: the single home of how a cell becomes a time or a
+ * measured value, shared by the app's import (`planImport`) and the command line's table reader.
+ */
+export function rowReader(
+  header: readonly string[],
+  mapping: ColumnMapping,
+  decimalComma: boolean,
+  options: RowReaderOptions = { timeRequired: true, limits: true },
+): (row: readonly string[], line: number) => RowRead {
+  const col = (role: string) => mapping.columns.findIndex((c) => c.role === role);
+  const cTimestamp = col('timestamp');
+  const cDate = col('date');
+  const cTime = col('time');
+  const cZone = col('time-zone');
+  const cNotes = col('notes');
+  const cScale = col('ph-scale');
+  const hasTime = cTimestamp >= 0 || cDate >= 0;
+  const valueCols = mapping.columns.flatMap((c, i) => {
+    if (c.role !== 'value' && c.role !== 'titration-value') return [];
+    const q = quantityById(c.quantity)!;
+    return [
+      { index: i, q, unit: q.units.find((x) => x.id === c.unit)!, titration: c.role === 'titration-value' },
+    ];
+  });
+  let knownZone: string | undefined;
+  return (row, line) => {
+    const errors: RowIssue[] = [];
+    const cell = (i: number) => (i >= 0 ? (row[i] ?? '').trim() : '');
+    // Time
+    const zone = cZone >= 0 && cell(cZone) !== '' ? cell(cZone) : mapping.timeZone;
+    // Rows of a file nearly always share one zone: check it once, not per row.
+    if (zone !== knownZone) knownZone = isKnownTimeZone(zone) ? zone : undefined;
+    if (knownZone === undefined) {
+      errors.push(rowIssue(line, 'time-zone-unknown', `"${zone}" is not a time zone.`, header[cZone]));
+    }
+    const dateText = cTimestamp >= 0 ? cell(cTimestamp) : cell(cDate);
+    const timeColumn = header[cTimestamp >= 0 ? cTimestamp : cDate];
+    let takenAt: string | undefined;
+    if (dateText === '') {
+      if (hasTime || options.timeRequired)
+        errors.push(rowIssue(line, 'time-missing', 'The sampling time is empty.', timeColumn));
+    } else if (knownZone !== undefined) {
+      const t = parseTimestamp(dateText, cTimestamp >= 0 ? undefined : cell(cTime), zone, mapping.dateOrder);
+      if ('reason' in t) errors.push(rowIssue(line, 'time-unreadable', t.reason, timeColumn));
+      else takenAt = new Date(t.epochMs).toISOString();
+    }
+
+    // Values: kept as written (quantity, number, unit); the id uses the converted engine values.
+    const scaleText = cScale >= 0 ? cell(cScale).toLowerCase() : '';
+    let scale = mapping.phScale;
+    if (scaleText !== '') {
+      if ((['total', 'free', 'seawater', 'nbs'] as const).some((x) => x === scaleText))
+        scale = scaleText as typeof scale;
+      else
+        errors.push(
+          rowIssue(
+            line,
+            'value-out-of-range',
+            `"${scaleText}" is not a pH scale (total, free, seawater, nbs).`,
+            header[cScale],
+          ),
+        );
+    }
+    const measured: MeasuredValue[] = [];
+    const values: Record<string, number> = {};
+    for (const { index, q, unit, titration } of valueCols) {
+      const raw = cell(index);
+      if (raw === '') continue;
+      const x = parseNumber(raw, decimalComma);
+      if (x === undefined) {
+        errors.push(
+          rowIssue(
+            line,
+            'value-not-a-number',
+            `"${raw}" is not a number${decimalComma ? ' (this file uses a decimal comma)' : ''}.`,
+            header[index],
+          ),
+        );
+        continue;
+      }
+      const k = unit.toKey(x);
+      const [lo, hi] = q.limits;
+      if (options.limits && (k < lo || k > hi)) {
+        errors.push(
+          rowIssue(
+            line,
+            'value-out-of-range',
+            `${q.label} ${raw} ${unit.label} is outside ${lo}–${hi}.`,
+            header[index],
+          ),
+        );
+        continue;
+      }
+      const stored = storedForm(q, unit, x);
+      if (titration) {
+        // A titration's result: kept apart from typed values, and part of the content id as such.
+        measured.push({ quantity: q.id, value: stored.value, unit: stored.unit, source: 'titration' });
+        values[`titration_${unit.key}`] = k;
+        continue;
+      }
+      if (q.id === 'ph' && scale) stored.unit = scale;
+      measured.push({ quantity: q.id, value: stored.value, unit: stored.unit });
+      values[unit.key] = k;
+      // The pH scale is part of what the number means, so it is part of the content id.
+      if (q.id === 'ph')
+        values.ph_scale_code = ['ph', 'nbs', 'total', 'free', 'seawater'].indexOf(stored.unit);
+    }
+    if (valueCols.length > 0 && measured.length === 0 && errors.length === 0) {
+      errors.push(rowIssue(line, 'row-no-values', 'This row has no measured values.'));
+    }
+    const read: RowRead = { zone, measured, values, notes: cell(cNotes), errors };
+    if (takenAt !== undefined) read.takenAt = takenAt;
+    return read;
+  };
 }

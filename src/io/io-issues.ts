@@ -12,6 +12,7 @@ export type IoCode =
   | 'csv-stray-quote'
   | 'csv-ragged-row'
   | 'csv-duplicate-header'
+  | 'csv-not-utf8'
   | 'map-no-timestamp'
   | 'map-no-site'
   | 'map-column-twice'

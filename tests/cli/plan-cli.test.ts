@@ -1,14 +1,8 @@
-import { spawnSync } from 'node:child_process';
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-
-/** Runs the CLI exactly as a user does: through npm and tsx, from the sources. */
-function tufa(args: string[], stdin = ''): { status: number | null; stdout: string; stderr: string } {
-  const r = spawnSync('npm', ['run', '-s', 'tufa', '--', ...args], { input: stdin, encoding: 'utf8' });
-  return { status: r.status, stdout: r.stdout, stderr: r.stderr };
-}
+import { tufa } from './run-tufa';
 
 // An invented hatchery header tank.
 const request = {

@@ -13,6 +13,7 @@ import { commitImport, type ImportReport, type PreviewRow } from '../../io/impor
 import { mappingFromRecord, mappingToRecord, roleFromString, roleToString } from '../../io/layout-memory';
 import { QUANTITIES } from '../../io/quantities';
 import { formatWithOffset } from '../../io/timestamps';
+import { storeIssue } from '../../store/errors';
 import type { Repository } from '../../store/repository';
 import type { SiteDoc } from '../../store/schema';
 import { RepositoryStore } from '../../sync/repository-store';
@@ -403,10 +404,18 @@ export function DataPanel({ repo, onDataChanged }: { repo: Repository; onDataCha
                 setRestoreMsg(`${b.error.message} (${b.error.code})`);
                 return;
               }
-              const r = await restoreBackup(store, b);
-              setRestoreMsg(
-                `Restored: ${r.added} added, ${r.replaced} replaced by newer copies, ${r.unchanged} unchanged.`,
-              );
+              try {
+                const r = await restoreBackup(store, b);
+                const skipped = r.settingsRejected.length
+                  ? ` Settings not restored (store-invalid-setting): ${r.settingsRejected.map((x) => `${x.key} ${x.reason}`).join('; ')}.`
+                  : '';
+                setRestoreMsg(
+                  `Restored: ${r.added} added, ${r.replaced} replaced by newer copies, ${r.unchanged} unchanged.${skipped}`,
+                );
+              } catch (err) {
+                const i = storeIssue(err);
+                setRestoreMsg(`The backup could not be restored: ${i.message} (${i.code})`);
+              }
               setReport(undefined);
               onDataChanged?.();
             }}

@@ -1,6 +1,7 @@
 /** The page's side of the engine worker: promise per request, one worker for the app's life. */
 
 import type { SolveInput, SolveResult } from '../chem/api';
+import type { PlanResult } from '../chem/plan/plan';
 import type { TitrateOutcome } from '../chem/titration/titrate';
 import type { TitrationInput } from '../chem/titration/types';
 import type { EngineRequest, EngineResponse } from './engine.worker';
@@ -42,6 +43,13 @@ export async function solveColumns(inputs: SolveInput[], keys: string[]): Promis
   const r = await ask({ kind: 'columns', inputs, keys });
   if (r.kind !== 'columns') throw new Error('engine worker answered the wrong request');
   return r.columns;
+}
+
+/** A plan (`src/chem/plan/plan.ts`) computed in the worker: its dose searches never block the page. */
+export async function planInWorker(request: unknown): Promise<PlanResult> {
+  const r = await ask({ kind: 'plan', request });
+  if (r.kind !== 'plan') throw new Error('engine worker answered the wrong request');
+  return r.result;
 }
 
 export async function titrateInWorker(input: TitrationInput): Promise<TitrateOutcome> {

@@ -1,19 +1,21 @@
 /// <reference lib="webworker" />
 /**
  * Runs the engine off the main thread, so typing stays smooth while a reading (or a whole log for
- * a chart) is solved.
+ * a chart) is solved, and a plan's dose search never freezes the page.
  */
 
 import type { SolveInput, SolveResult } from '../chem/api';
 import { toIssue } from '../chem/errors';
+import type { PlanResult } from '../chem/plan/plan';
 import type { TitrateOutcome } from '../chem/titration/titrate';
 import type { TitrationInput } from '../chem/titration/types';
-import { solve, titrate, titrationConstants } from './engine-source';
+import { plan, solve, titrate, titrationConstants } from './engine-source';
 
 export type EngineRequest =
   | { id: number; kind: 'solve'; input: SolveInput }
   | { id: number; kind: 'columns'; inputs: SolveInput[]; keys: string[] }
   | { id: number; kind: 'titrate'; input: TitrationInput }
+  | { id: number; kind: 'plan'; request: unknown }
   /** Full results, or (with `keys`) only those outputs plus model and warnings: less to copy back. */
   | { id: number; kind: 'many'; inputs: SolveInput[]; keys?: string[] };
 
@@ -21,6 +23,7 @@ export type EngineResponse =
   | { id: number; kind: 'solve'; result: SolveResult }
   | { id: number; kind: 'columns'; columns: (number | null)[][] }
   | { id: number; kind: 'titrate'; result: TitrateOutcome }
+  | { id: number; kind: 'plan'; result: PlanResult }
   | { id: number; kind: 'many'; results: SolveResult[] };
 
 function safeSolve(input: SolveInput): SolveResult {
@@ -42,6 +45,16 @@ scope.onmessage = (ev: MessageEvent<EngineRequest>) => {
       result = { error: toIssue(e) };
     }
     scope.postMessage({ id: req.id, kind: 'titrate', result } satisfies EngineResponse);
+    return;
+  }
+  if (req.kind === 'plan') {
+    let result: PlanResult;
+    try {
+      result = plan(req.request);
+    } catch (e) {
+      result = { error: toIssue(e) };
+    }
+    scope.postMessage({ id: req.id, kind: 'plan', result } satisfies EngineResponse);
     return;
   }
   if (req.kind === 'solve') {

@@ -10,7 +10,8 @@ import { useState } from 'preact/hooks';
 import type { SolveOutput } from '../../chem/api';
 import { CHEMICAL_IDS, CHEMICALS, type ChemicalId } from '../../chem/plan/chemicals';
 import { TARGET_QUANTITIES, type TargetQuantity } from '../../chem/plan/inverse';
-import { isPlanError, type PlanOutput, type PlanResult, plan } from '../../chem/plan/plan';
+import { isPlanError, type PlanOutput, type PlanResult } from '../../chem/plan/plan';
+import { planInWorker } from '../engine-client';
 import {
   type AmountUnit,
   compareRows,
@@ -35,8 +36,8 @@ export interface PlanPanelProps {
   onSave: (plan: SavedPlan) => void;
   /** Water volume to start with, litres. */
   volumeL?: number;
-  /** The engine call; defaults to the in-page `plan()` (a plan takes milliseconds). */
-  engine?: (request: unknown) => PlanResult;
+  /** The engine call; defaults to `plan()` in the engine worker (a search never blocks the page). */
+  engine?: (request: unknown) => PlanResult | Promise<PlanResult>;
 }
 
 const v = (name: string, fallback: string) => `var(--${name}, ${fallback})`;
@@ -97,7 +98,7 @@ const TARGET_LABELS: Partial<Record<TargetQuantity, string>> = {
   calcium_umol_kg: 'calcium (µmol/kg)',
 };
 
-export function PlanPanel({ reading, onSave, volumeL, engine = plan }: PlanPanelProps) {
+export function PlanPanel({ reading, onSave, volumeL, engine = planInWorker }: PlanPanelProps) {
   const [form, setForm] = useState<PanelForm>({
     ...DEFAULT_FORM,
     volumeL: volumeL === undefined ? DEFAULT_FORM.volumeL : String(volumeL),
@@ -110,11 +111,11 @@ export function PlanPanel({ reading, onSave, volumeL, engine = plan }: PlanPanel
     setForm({ ...form, [k]: value });
     setSaved(false);
   };
-  const run = (e: Event) => {
+  const run = async (e: Event) => {
     e.preventDefault();
     try {
       const request = planRequest(reading, form);
-      const r = engine(request);
+      const r = await engine(request);
       if (isPlanError(r)) {
         setProblem({ text: `${r.error.message} (${r.error.code})` });
         setResult(undefined);

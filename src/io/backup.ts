@@ -14,6 +14,7 @@
 
 import type { Issue } from '../chem/errors';
 import { checkSetting, isSettingKey, type RejectedSetting } from '../store/settings';
+import { isTimeZone } from '../store/validate';
 import type { ReadingDoc, SiteDoc, TufaDoc } from './docs';
 import { type IoCode, ioIssue } from './io-issues';
 
@@ -115,6 +116,8 @@ function checkDoc(d: unknown, type: 'site' | 'reading', i: number): string | und
     if (typeof d.siteId !== 'string') return `reading ${d.id} has no siteId`;
     if (typeof d.takenAt !== 'string' || Number.isNaN(Date.parse(d.takenAt)))
       return `reading ${d.id} has no valid takenAt`;
+    if (!isTimeZone(d.timeZone))
+      return `reading ${d.id} has an unknown time zone (${String(d.timeZone).slice(0, 40)})`;
     if (
       !Array.isArray(d.values) ||
       d.values.some(

@@ -669,7 +669,8 @@ export class Repository {
       }
       const n = { ...edit(cur), id: cur.id, type: cur.type, updatedAt: laterThan(cur.updatedAt, now) } as D;
       if (cur.rev !== undefined) n.rev = cur.rev;
-      validateDoc(n);
+      if (n.type === 'reading') validateReading(n, (cur as ReadingDoc).timeZone);
+      else validateDoc(n);
       if (n.type === 'site') await tx.objectStore('sites').put(n);
       else await putReadings(tx, [n]);
       await queue(tx, [outboxOf(n)]);

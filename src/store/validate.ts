@@ -13,6 +13,26 @@ function bad(doc: { id?: unknown }, what: string, field: string): never {
   throw storeError('store-invalid-doc', `Document ${String(doc.id ?? '(no id)')}: ${what}.`, field);
 }
 
+const zones = new Map<string, boolean>();
+/**
+ * An IANA time zone name (or UTC offset) this device's Intl knows; checked once per name. A reading
+ * with any other zone could not be shown in its local time or exported (issue 15 §4).
+ */
+export function isTimeZone(s: unknown): boolean {
+  if (typeof s !== 'string' || s === '' || s.length > 64) return false;
+  let ok = zones.get(s);
+  if (ok === undefined) {
+    try {
+      new Intl.DateTimeFormat('en-US', { timeZone: s });
+      ok = true;
+    } catch {
+      ok = false;
+    }
+    zones.set(s, ok);
+  }
+  return ok;
+}
+
 export function isIsoUtc(s: unknown): s is string {
   return typeof s === 'string' && ISO_UTC.test(s) && !Number.isNaN(Date.parse(s));
 }
@@ -39,11 +59,21 @@ export function validateSite(doc: SiteDoc): void {
   }
 }
 
-export function validateReading(doc: ReadingDoc): void {
+/**
+ * `storedZone`: the zone the reading already has in the store. An edit that keeps it is allowed
+ * even if this device does not know it, so such a reading can still be corrected or deleted.
+ */
+export function validateReading(doc: ReadingDoc, storedZone?: string): void {
   checkBase(doc);
   if (typeof doc.siteId !== 'string' || doc.siteId === '') bad(doc, 'a reading needs a site', 'siteId');
   if (!isIsoUtc(doc.takenAt)) bad(doc, 'takenAt must be an ISO 8601 UTC time', 'takenAt');
   if (typeof doc.timeZone !== 'string' || doc.timeZone === '') bad(doc, 'timeZone missing', 'timeZone');
+  if (doc.timeZone !== storedZone && !isTimeZone(doc.timeZone))
+    bad(
+      doc,
+      `timeZone "${doc.timeZone.slice(0, 40)}" is not a time zone name such as Europe/Berlin`,
+      'timeZone',
+    );
   if (!Array.isArray(doc.values)) bad(doc, 'values must be a list', 'values');
   for (const v of doc.values) {
     if (typeof v.quantity !== 'string' || typeof v.unit !== 'string')

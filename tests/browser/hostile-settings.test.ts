@@ -120,4 +120,45 @@ describe('hostile settings', () => {
     expect(await page.getByLabel('Number and date format').inputValue()).toBe('de-DE');
     expect(await page.getByRole('alert').filter({ hasText: 'locale' }).count()).toBe(0);
   }, 90000);
+
+  it('downloads CSV for all although one stored reading has a time zone this device does not know', async () => {
+    // An older Tufa accepted any zone: patch the stored reading as it would have been left.
+    await page.evaluate(
+      () =>
+        new Promise<void>((resolve, reject) => {
+          const open = indexedDB.open('tufa');
+          open.onerror = () => reject(open.error);
+          open.onsuccess = () => {
+            const db = open.result;
+            const tx = db.transaction('readingPageData', 'readwrite');
+            const store = tx.objectStore('readingPageData');
+            const all = store.getAll();
+            all.onsuccess = () => {
+              for (const p of all.result as { readings: { timeZone: string }[] }[]) {
+                for (const r of p.readings) r.timeZone = 'Mars/Olympus';
+                store.put(p);
+              }
+            };
+            tx.oncomplete = () => {
+              db.close();
+              resolve();
+            };
+            tx.onerror = () => reject(tx.error);
+          };
+        }),
+    );
+    await page.goto(`${base}#/settings`);
+    await page.reload();
+    await page.waitForSelector('html[data-ready="true"]');
+    const [download] = await Promise.all([
+      page.waitForEvent('download'),
+      page.getByRole('button', { name: 'Download CSV' }).click(),
+    ]);
+    const text = await (await download.createReadStream())
+      .toArray()
+      .then((c) => Buffer.concat(c).toString('utf8'));
+    expect(text).toContain('reading-weir-1');
+    expect(text).toContain('2026-06-01T06:00:00+00:00');
+    await page.getByText(/time-zone-unknown: 1 reading has a time zone/).waitFor();
+  }, 90000);
 });

@@ -18,7 +18,7 @@ import type { Repository } from '../../store/repository';
 import type { SiteDoc } from '../../store/schema';
 import { RepositoryStore } from '../../sync/repository-store';
 import { showValue } from '../sync/conflict-fields';
-import { downloadText as download, readingsCsv } from './csv-download';
+import { downloadText as download, readingsCsvWithNote } from './csv-download';
 import type { FileSummary, PlanSummary } from './import.worker';
 import { ImportWorker } from './import-client';
 
@@ -105,6 +105,7 @@ export function DataPanel({ repo, onDataChanged }: { repo: Repository; onDataCha
   const [previewIssue, setPreviewIssue] = useState('');
   const [exportSite, setExportSite] = useState('');
   const [restoreMsg, setRestoreMsg] = useState('');
+  const [exportMsg, setExportMsg] = useState('');
   const [encoding, setEncoding] = useState('UTF-8');
 
   useEffect(() => {
@@ -370,11 +371,15 @@ export function DataPanel({ repo, onDataChanged }: { repo: Repository; onDataCha
           <button
             type="button"
             onClick={async () => {
-              download(
-                `tufa-readings-${new Date().toISOString().slice(0, 10)}.csv`,
-                await readingsCsv(repo, exportSite || undefined),
-                'text/csv',
-              );
+              try {
+                const { text, note } = await readingsCsvWithNote(repo, exportSite || undefined);
+                download(`tufa-readings-${new Date().toISOString().slice(0, 10)}.csv`, text, 'text/csv');
+                setExportMsg(note ?? '');
+              } catch (e) {
+                setExportMsg(
+                  failure('export-failed', 'The CSV file could not be made', e).replace('written', 'changed'),
+                );
+              }
             }}
           >
             Download CSV
@@ -389,6 +394,11 @@ export function DataPanel({ repo, onDataChanged }: { repo: Repository; onDataCha
             Download backup (JSON)
           </button>
         </div>
+        {exportMsg && (
+          <p class="issue warn" role="status">
+            {exportMsg}
+          </p>
+        )}
         <label class="field">
           <span>
             Restore a backup (merged: nothing already here is duplicated or replaced by older copies)

@@ -17,6 +17,7 @@ import { storeIssue } from '../../store/errors';
 import type { Repository } from '../../store/repository';
 import type { SiteDoc } from '../../store/schema';
 import { RepositoryStore } from '../../sync/repository-store';
+import { askPersistenceAfterSave } from '../storage-state';
 import { showValue } from '../sync/conflict-fields';
 import { downloadText as download, readingsCsvWithNote } from './csv-download';
 import type { FileSummary, PlanSummary } from './import.worker';
@@ -181,6 +182,7 @@ export function DataPanel({ repo, onDataChanged }: { repo: Repository; onDataCha
       setBusy('Importing…');
       const r = await commitImport(full, store, { warnings, sites });
       if (r.ok) {
+        void askPersistenceAfterSave();
         await repo.putLayout({
           name: fileName || 'CSV file',
           headerSignature: layoutKey(csv.header),

@@ -17,6 +17,7 @@ import { plainWords } from '../plain-words';
 import { QUANTITIES, quantity, quantityForKey } from '../quantities';
 import { go } from '../router';
 import { readingInput } from '../solve-context';
+import { askPersistenceAfterSave } from '../storage-state';
 import { titrationInput, withTitration } from '../titration';
 import { ResultsPanel } from './ResultsPanel';
 import {
@@ -211,6 +212,7 @@ export function ReadingEntryScreen(props: { siteId?: string; readingId?: string 
             ...(titration.record ? { titration: titration.record } : {}),
           });
       dataChanged();
+      void askPersistenceAfterSave();
       notify({ kind: 'info', text: existing ? 'Reading updated.' : 'Reading saved on this device.' });
       go({ name: 'reading', readingId: doc.id });
     } catch (e) {

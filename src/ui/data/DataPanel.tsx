@@ -7,9 +7,10 @@
 
 import { useEffect, useMemo, useState } from 'preact/hooks';
 import { isSolveError, type SolveResult } from '../../chem/api';
+import { TufaError } from '../../chem/errors';
 import { backupToJson, createBackup, parseBackup, restoreBackup } from '../../io/backup';
 import { type ColumnMapping, type ColumnRole, defaultMapping, layoutKey } from '../../io/column-mapping';
-import { commitImport, type ImportReport, type PreviewRow } from '../../io/import-commit';
+import type { ImportReport, PreviewRow } from '../../io/import-commit';
 import { mappingFromRecord, mappingToRecord, roleFromString, roleToString } from '../../io/layout-memory';
 import { QUANTITIES } from '../../io/quantities';
 import { formatWithOffset } from '../../io/timestamps';
@@ -176,11 +177,11 @@ export function DataPanel({ repo, onDataChanged }: { repo: Repository; onDataCha
     if (!plan || !csv || !mapping) return;
     setBusy('Computing…');
     try {
-      // Every row is solved in the worker only to report rows that cannot be computed; outputs are
-      // not stored, they are recomputed whenever a reading is shown.
-      const { plan: full, warnings } = await worker.take();
-      setBusy('Importing…');
-      const r = await commitImport(full, store, { warnings, sites });
+      // The worker solves every row (only to report rows that cannot be computed; outputs are not
+      // stored, they are recomputed whenever a reading is shown) and stores the documents itself.
+      const r = await worker.commit((p) =>
+        setBusy(p.phase === 'computing' ? `Computing ${p.done} of ${p.total}…` : 'Importing…'),
+      );
       if (r.ok) {
         void askPersistenceAfterSave();
         await repo.putLayout({
@@ -194,7 +195,11 @@ export function DataPanel({ repo, onDataChanged }: { repo: Repository; onDataCha
       }
       setReport(r);
     } catch (e) {
-      setPreviewIssue(failure('import-unavailable', 'The import could not be prepared', e));
+      setPreviewIssue(
+        e instanceof TufaError
+          ? `${e.code}: ${e.message} Nothing was written.`
+          : failure('import-unavailable', 'The import could not be prepared', e),
+      );
     } finally {
       setBusy('');
     }

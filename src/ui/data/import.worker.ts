@@ -1,20 +1,30 @@
 /// <reference lib="webworker" />
 /**
- * The heavy part of a CSV import, off the main thread: parse the file, plan it for a column
- * mapping (content ids, unit conversion, row errors), solve the preview rows and, on import,
- * every row. The worker keeps the parsed file and the last plan, so a mapping change or the
- * import sends only a mapping or a request, and only the import ships the documents back (the
- * page's repository writes them; IndexedDB stays in one place).
+ * A CSV import, all of it off the main thread: parse the file, plan it for a column mapping
+ * (content ids, unit conversion, row errors), solve the preview rows and, on import, solve every
+ * row and store the documents. The worker keeps the parsed file and the last plan, so a mapping
+ * change or the import sends only a mapping or a request. On import it opens its own connection
+ * to the database through the same repository (`src/store`: one schema, one all-or-nothing
+ * `bulkPut` transaction) and writes there itself; the page receives only progress and the report.
  */
 
 import { toIssue } from '../../chem/errors';
 import type { ColumnMapping } from '../../io/column-mapping';
 import { type CsvSniff, type ParsedCsv, parseCsv } from '../../io/csv-parse';
 import type { SiteDoc } from '../../io/docs';
-import { computeWarnings, type PreviewRow, previewImport } from '../../io/import-commit';
+import {
+  commitImport,
+  type ImportReport,
+  type PreviewRow,
+  previewImport,
+  warningsFromResults,
+} from '../../io/import-commit';
 import { type ImportPlan, planImport } from '../../io/import-plan';
 import type { RowIssue } from '../../io/io-issues';
-import type { Solver } from '../../io/solve-input';
+import { type Solver, solveInputOf } from '../../io/solve-input';
+import { asStoreError } from '../../store/errors';
+import { openRepository } from '../../store/repository';
+import { RepositoryStore } from '../../sync/repository-store';
 import { solve } from '../engine-source';
 
 export interface FileSummary {
@@ -35,13 +45,23 @@ export interface PlanSummary {
 export type ImportRequest =
   | { id: number; kind: 'open'; text: string }
   | { id: number; kind: 'plan'; mapping: ColumnMapping; sites: SiteDoc[]; previewRows: number }
-  | { id: number; kind: 'take' };
+  /** Solve every row (warnings), then store the plan in one transaction: all or nothing. */
+  | { id: number; kind: 'commit' };
+
+/** Sent while a commit runs (same id as the request); the answer follows as usual. */
+export interface ImportProgress {
+  id: number;
+  kind: 'progress';
+  phase: 'computing' | 'storing';
+  done: number;
+  total: number;
+}
 
 export type ImportResponse =
   | { id: number; kind: 'open'; file: FileSummary }
   | { id: number; kind: 'plan'; plan: PlanSummary }
-  | { id: number; kind: 'take'; plan: ImportPlan; warnings: RowIssue[] }
-  | { id: number; kind: 'failed'; message: string };
+  | { id: number; kind: 'commit'; report: ImportReport }
+  | { id: number; kind: 'failed'; message: string; code?: string };
 
 let csv: ParsedCsv | undefined;
 let last: { plan: ImportPlan; sites: SiteDoc[] } | undefined;
@@ -53,6 +73,50 @@ const safeSolve: Solver = (input) => {
     return { error: toIssue(e) };
   }
 };
+
+const scope = self as unknown as DedicatedWorkerGlobalScope;
+const CHUNK = 5000;
+
+/** Every planned row through the engine, in chunks with progress; failures become row warnings. */
+function solveAll(id: number, plan: ImportPlan, sites: readonly SiteDoc[]): RowIssue[] {
+  const byId = new Map([...sites, ...plan.newSites].map((s) => [s.id, s]));
+  const out: RowIssue[] = [];
+  const total = plan.readings.length;
+  for (let i = 0; i < total; i += CHUNK) {
+    const readings = plan.readings.slice(i, i + CHUNK);
+    const results = readings.map((r) => safeSolve(solveInputOf(r, byId.get(r.siteId))));
+    out.push(
+      ...warningsFromResults(
+        { ...plan, readings, readingLines: plan.readingLines.slice(i, i + CHUNK) },
+        results,
+      ),
+    );
+    scope.postMessage({
+      id,
+      kind: 'progress',
+      phase: 'computing',
+      done: Math.min(total, i + CHUNK),
+      total,
+    } satisfies ImportProgress);
+  }
+  return out;
+}
+
+async function commit(id: number, plan: ImportPlan, sites: readonly SiteDoc[]): Promise<ImportReport> {
+  // Rows the engine cannot compute are kept (they are data) and reported as warnings.
+  const warnings = plan.errors.length ? [] : solveAll(id, plan, sites);
+  const total = plan.readings.length;
+  scope.postMessage({ id, kind: 'progress', phase: 'storing', done: 0, total } satisfies ImportProgress);
+  // Our own connection, closed after the write and whenever a newer page wants to upgrade.
+  const repo = await openRepository({ onVersionChange: () => undefined });
+  try {
+    return await commitImport(plan, new RepositoryStore(repo), { warnings, sites });
+  } catch (e) {
+    throw asStoreError(e);
+  } finally {
+    repo.close();
+  }
+}
 
 async function answer(req: ImportRequest): Promise<ImportResponse> {
   switch (req.kind) {
@@ -81,24 +145,25 @@ async function answer(req: ImportRequest): Promise<ImportResponse> {
         },
       };
     }
-    case 'take': {
+    case 'commit': {
       if (!last) throw new Error('nothing is planned');
-      // Rows the engine cannot compute are kept (they are data) and reported as warnings.
-      const warnings = last.plan.errors.length ? [] : computeWarnings(last.plan, last.sites, safeSolve);
-      return { id: req.id, kind: 'take', plan: last.plan, warnings };
+      const report = await commit(req.id, last.plan, last.sites);
+      return { id: req.id, kind: 'commit', report };
     }
   }
 }
 
-const scope = self as unknown as DedicatedWorkerGlobalScope;
 scope.onmessage = (ev: MessageEvent<ImportRequest>) => {
   answer(ev.data).then(
     (r) => scope.postMessage(r),
-    (e: unknown) =>
+    (e: unknown) => {
+      const issue = toIssue(e);
       scope.postMessage({
         id: ev.data.id,
         kind: 'failed',
         message: e instanceof Error ? e.message : String(e),
-      } satisfies ImportResponse),
+        ...(issue.code !== 'internal-error' ? { code: issue.code } : {}),
+      } satisfies ImportResponse);
+    },
   );
 };

@@ -117,23 +117,14 @@ export function DataPanel({ repo, onDataChanged }: { repo: Repository; onDataCha
   const zone = Intl.DateTimeFormat().resolvedOptions().timeZone || 'UTC';
 
   const openFile = async (file: File) => {
-    const bytes = new Uint8Array(await file.arrayBuffer());
-    // Keep the BOM for parseCsv to see; files that are not UTF-8 come from older spreadsheets in
-    // Windows-1252, which is what the fallback reads.
-    let text: string;
-    try {
-      text = new TextDecoder('utf-8', { fatal: true, ignoreBOM: true }).decode(bytes);
-      setEncoding('UTF-8');
-    } catch {
-      text = new TextDecoder('windows-1252').decode(bytes);
-      setEncoding('Windows-1252 (not UTF-8)');
-    }
     setBusy('Reading the file…');
     setPlan(undefined);
     setReport(undefined);
     setPreviewIssue('');
     try {
-      const parsed = await worker.open(text);
+      // Decoding and parsing happen in the worker; the page hands over the bytes.
+      const parsed = await worker.open(await file.arrayBuffer());
+      setEncoding(parsed.encoding === 'UTF-8' ? 'UTF-8' : 'Windows-1252 (not UTF-8)');
       setFileName(file.name);
       setCsv(parsed);
       const [remembered] = await repo.findLayouts(layoutKey(parsed.header));

@@ -20,7 +20,11 @@ export class ImportWorker {
   private pending = new Map<number, (r: ImportResponse) => void>();
   private progress = new Map<number, (p: ImportProgress) => void>();
 
-  private ask(req: Req, onProgress?: (p: ImportProgress) => void): Promise<ImportResponse> {
+  private ask(
+    req: Req,
+    onProgress?: (p: ImportProgress) => void,
+    transfer: Transferable[] = [],
+  ): Promise<ImportResponse> {
     if (!this.worker) {
       this.worker = new Worker(new URL('./import.worker.ts', import.meta.url), { type: 'module' });
       this.worker.onmessage = (ev: MessageEvent<ImportResponse | ImportProgress>) => {
@@ -39,7 +43,7 @@ export class ImportWorker {
     if (onProgress) this.progress.set(id, onProgress);
     return new Promise((resolve) => {
       this.pending.set(id, resolve);
-      this.worker!.postMessage({ ...req, id } as ImportRequest);
+      this.worker!.postMessage({ ...req, id } as ImportRequest, transfer);
     });
   }
 
@@ -52,8 +56,9 @@ export class ImportWorker {
     return r as Extract<ImportResponse, { kind: K }>;
   }
 
-  async open(text: string): Promise<FileSummary> {
-    return ImportWorker.expect(await this.ask({ kind: 'open', text }), 'open').file;
+  /** Reads a file in the worker (decoding included); the bytes are handed over, not copied. */
+  async open(bytes: ArrayBuffer): Promise<FileSummary> {
+    return ImportWorker.expect(await this.ask({ kind: 'open', bytes }, undefined, [bytes]), 'open').file;
   }
 
   async plan(mapping: ColumnMapping, sites: SiteDoc[], previewRows: number): Promise<PlanSummary> {

@@ -28,6 +28,8 @@ import { RepositoryStore } from '../../sync/repository-store';
 import { solve } from '../engine-source';
 
 export interface FileSummary {
+  /** How the bytes were read: UTF-8, or the Windows-1252 fallback for older spreadsheets. */
+  encoding: 'UTF-8' | 'Windows-1252';
   header: string[];
   sniff: CsvSniff;
   rowCount: number;
@@ -43,7 +45,8 @@ export interface PlanSummary {
 }
 
 export type ImportRequest =
-  | { id: number; kind: 'open'; text: string }
+  /** The file's bytes (transferred, not copied); decoding happens here too. */
+  | { id: number; kind: 'open'; bytes: ArrayBuffer }
   | { id: number; kind: 'plan'; mapping: ColumnMapping; sites: SiteDoc[]; previewRows: number }
   /** Solve every row (warnings), then store the plan in one transaction: all or nothing. */
   | { id: number; kind: 'commit' };
@@ -121,12 +124,22 @@ async function commit(id: number, plan: ImportPlan, sites: readonly SiteDoc[]): 
 async function answer(req: ImportRequest): Promise<ImportResponse> {
   switch (req.kind) {
     case 'open': {
-      csv = parseCsv(req.text);
+      // Keep the BOM for parseCsv to see; files that are not UTF-8 come from older spreadsheets in
+      // Windows-1252, which is what the fallback reads.
+      let text: string;
+      let encoding: FileSummary['encoding'] = 'UTF-8';
+      try {
+        text = new TextDecoder('utf-8', { fatal: true, ignoreBOM: true }).decode(req.bytes);
+      } catch {
+        text = new TextDecoder('windows-1252').decode(req.bytes);
+        encoding = 'Windows-1252';
+      }
+      csv = parseCsv(text);
       last = undefined;
       return {
         id: req.id,
         kind: 'open',
-        file: { header: csv.table.header, sniff: csv.sniff, rowCount: csv.table.rows.length },
+        file: { encoding, header: csv.table.header, sniff: csv.sniff, rowCount: csv.table.rows.length },
       };
     }
     case 'plan': {

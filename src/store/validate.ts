@@ -51,6 +51,7 @@ export function validateSite(doc: SiteDoc): void {
   if (typeof doc.defaults !== 'object' || doc.defaults === null)
     bad(doc, 'defaults must be an object', 'defaults');
   if (doc.location) {
+    if (typeof doc.location !== 'object') bad(doc, 'location must be an object', 'location');
     const { latitude, longitude } = doc.location;
     if (!Number.isFinite(latitude) || latitude < -90 || latitude > 90)
       bad(doc, 'latitude out of range', 'location');
@@ -76,13 +77,18 @@ export function validateReading(doc: ReadingDoc, storedZone?: string): void {
     );
   if (!Array.isArray(doc.values)) bad(doc, 'values must be a list', 'values');
   for (const v of doc.values) {
+    if (typeof v !== 'object' || v === null) bad(doc, 'each value must be an object', 'values');
     if (typeof v.quantity !== 'string' || typeof v.unit !== 'string')
       bad(doc, 'each value needs quantity and unit', 'values');
     if (typeof v.value !== 'number' || !Number.isFinite(v.value))
       bad(doc, `value of ${v.quantity} is not a finite number`, v.quantity);
   }
-  if (doc.titration) {
+  if (doc.titration !== undefined && doc.titration !== null) {
+    const t = doc.titration as unknown;
+    if (typeof t !== 'object' || !Array.isArray((t as { points?: unknown }).points))
+      bad(doc, 'titration must hold a list of points', 'titration');
     for (const p of doc.titration.points) {
+      if (typeof p !== 'object' || p === null) bad(doc, 'titration point is not an object', 'titration');
       if (!Number.isFinite(p.volumeMl) || !Number.isFinite(p.ph))
         bad(doc, 'titration point is not a number', 'titration');
     }

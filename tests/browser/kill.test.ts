@@ -113,15 +113,13 @@ async function counts(page: Page): Promise<{ sites: number; readings: number; ou
 }
 
 // An invented logger file from one of our own demo sites: 15-minute rows.
-function loggerFile(rows: number): string {
+function loggerFile(rows: number, site = 'Harbour pontoon'): string {
   const lines = ['Site;Date/Time;Temp (°C);Salinity;pH;Alkalinity (µmol/kg)'];
   const t0 = Date.UTC(2026, 0, 1);
   for (let i = 0; i < rows; i++) {
     const d = new Date(t0 + i * 900_000);
     const stamp = `${String(d.getUTCDate()).padStart(2, '0')}.${String(d.getUTCMonth() + 1).padStart(2, '0')}.${d.getUTCFullYear()} ${String(d.getUTCHours()).padStart(2, '0')}:${String(d.getUTCMinutes()).padStart(2, '0')}`;
-    lines.push(
-      `Harbour pontoon;${stamp};${(14 + (i % 50) / 10).toFixed(1).replace('.', ',')};34;8,0${i % 10};2300`,
-    );
+    lines.push(`${site};${stamp};${(14 + (i % 50) / 10).toFixed(1).replace('.', ',')};34;8,0${i % 10};2300`);
   }
   return `${lines.join('\r\n')}\r\n`;
 }
@@ -129,29 +127,42 @@ function loggerFile(rows: number): string {
 const ROWS = 20_000;
 
 describe('killing the browser', () => {
-  it('keeps all or nothing of a large import killed while it is stored, and boots', async () => {
-    let page = await start();
-    await open(page, '#/settings');
-    await page
-      .getByLabel('File from a logger or spreadsheet')
-      .setInputFiles({ name: 'pontoon.csv', mimeType: 'text/csv', buffer: Buffer.from(loggerFile(ROWS)) });
-    await page.getByText(`${ROWS} readings ready`).waitFor({ timeout: 60_000 });
-    await page.getByRole('button', { name: `Import ${ROWS} readings` }).click();
-    await page.getByRole('button', { name: 'Importing…' }).waitFor({ timeout: 60_000 });
-    await new Promise((r) => setTimeout(r, 150));
-    await kill();
+  // Killed early and late in the storing phase (the worker's check for ids already present, then
+  // the one transaction and its commit); each round imports a file for a new site.
+  it.each([
+    [1, 150],
+    [2, 1500],
+  ])(
+    'keeps all or nothing of a large import killed while it is stored (round %i, %i ms), and boots',
+    async (round, delay) => {
+      let page = await start();
+      await open(page, '#/settings');
+      const before = await counts(page);
+      await page.getByLabel('File from a logger or spreadsheet').setInputFiles({
+        name: 'pontoon.csv',
+        mimeType: 'text/csv',
+        buffer: Buffer.from(loggerFile(ROWS, `Harbour pontoon ${round}`)),
+      });
+      await page.getByText(`${ROWS} readings ready`).waitFor({ timeout: 60_000 });
+      await page.getByRole('button', { name: `Import ${ROWS} readings` }).click();
+      await page.getByRole('button', { name: 'Importing…' }).waitFor({ timeout: 60_000 });
+      await new Promise((r) => setTimeout(r, delay));
+      await kill();
 
-    page = await start();
-    await open(page);
-    const c = await counts(page);
-    console.log('after the kill the store holds', c);
-    // All (sites and readings, each queued for sync) or nothing.
-    expect([0, ROWS]).toContain(c.readings);
-    expect(c.sites).toBe(c.readings === 0 ? 0 : 1);
-    expect(c.outbox).toBe(c.readings + c.sites);
-    expect(await page.getByRole('heading', { name: 'Sites' }).count()).toBe(1);
-    await kill();
-  }, 240_000);
+      page = await start();
+      await open(page);
+      const c = await counts(page);
+      console.log(`round ${round}: after the kill the store holds`, c);
+      // All (the site and its readings, each queued for sync) or nothing.
+      const added = c.readings - before.readings;
+      expect([0, ROWS]).toContain(added);
+      expect(c.sites - before.sites).toBe(added === 0 ? 0 : 1);
+      expect(c.outbox).toBe(c.readings + c.sites);
+      expect(await page.getByRole('heading', { name: 'Sites' }).count()).toBe(1);
+      await kill();
+    },
+    240_000,
+  );
 
   it('keeps a reading whole or not at all when killed during its save, and asks for persistence', async () => {
     let page = await start();

@@ -8,7 +8,7 @@ import type { EngineRequest, EngineResponse } from './engine.worker';
 
 let worker: Worker | undefined;
 let next = 1;
-const pending = new Map<number, (r: EngineResponse) => void>();
+const pending = new Map<number, { resolve: (r: EngineResponse) => void; reject: (e: Error) => void }>();
 
 function getWorker(): Worker {
   if (!worker) {
@@ -16,7 +16,17 @@ function getWorker(): Worker {
     worker.onmessage = (ev: MessageEvent<EngineResponse>) => {
       const done = pending.get(ev.data.id);
       pending.delete(ev.data.id);
-      done?.(ev.data);
+      done?.resolve(ev.data);
+    };
+    // A worker that dies fails its pending requests instead of leaving the screen waiting; the
+    // next request starts a new one.
+    worker.onerror = (ev) => {
+      ev.preventDefault();
+      worker?.terminate();
+      worker = undefined;
+      const e = new Error(`The engine worker stopped (${ev.message || 'no reason given'}).`);
+      for (const p of pending.values()) p.reject(e);
+      pending.clear();
     };
   }
   return worker;
@@ -26,8 +36,8 @@ type Req = EngineRequest extends infer R ? (R extends EngineRequest ? Omit<R, 'i
 
 function ask(req: Req): Promise<EngineResponse> {
   const id = next++;
-  return new Promise((resolve) => {
-    pending.set(id, resolve);
+  return new Promise((resolve, reject) => {
+    pending.set(id, { resolve, reject });
     getWorker().postMessage({ ...req, id } as EngineRequest);
   });
 }

@@ -38,6 +38,13 @@ export class ImportWorker {
         this.progress.delete(m.id);
         done?.(m);
       };
+      // A worker that dies (out of memory, a script error) must not leave the panel waiting.
+      this.worker.onerror = (ev) => {
+        ev.preventDefault();
+        this.failAll(`The import worker stopped (${ev.message || 'no reason given'}). Nothing was written.`);
+      };
+      this.worker.onmessageerror = () =>
+        this.failAll('The import worker sent a message that could not be read.');
     }
     const id = this.next++;
     if (onProgress) this.progress.set(id, onProgress);
@@ -73,11 +80,15 @@ export class ImportWorker {
     return ImportWorker.expect(await this.ask({ kind: 'commit' }, onProgress), 'commit').report;
   }
 
+  private failAll(message: string): void {
+    for (const done of this.pending.values()) done({ id: 0, kind: 'failed', message });
+    this.pending.clear();
+    this.progress.clear();
+  }
+
   close(): void {
     this.worker?.terminate();
     this.worker = undefined;
-    for (const done of this.pending.values()) done({ id: 0, kind: 'failed', message: 'closed' });
-    this.pending.clear();
-    this.progress.clear();
+    this.failAll('closed');
   }
 }

@@ -160,5 +160,7 @@ describe('hostile settings', () => {
     expect(text).toContain('reading-weir-1');
     expect(text).toContain('2026-06-01T06:00:00+00:00');
     await page.getByText(/time-zone-unknown: 1 reading has a time zone/).waitFor();
+    await page.getByText(/time-zone-unknown/).scrollIntoViewIfNeeded();
+    await screenshot(page, '42-export-unknown-zone', { fullPage: false });
   }, 90000);
 });

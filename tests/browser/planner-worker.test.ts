@@ -7,7 +7,7 @@
 import { readdirSync, readFileSync } from 'node:fs';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { launch, newContext, openApp } from './browser';
+import { launch, newContext, openApp, screenshot } from './browser';
 
 const base = inject('baseUrl');
 let browser: Browser;
@@ -85,6 +85,7 @@ describe('planner in the engine worker', () => {
     await page.getByRole('button', { name: 'Show the result' }).click();
     await page.getByText(/volume-out-of-range/).waitFor({ timeout: 10_000 });
     expect(Date.now() - t0).toBeLessThan(10_000);
+    await screenshot(page, '41-plan-volume-out-of-range');
     // The page answers script at once (not blocked by a search).
     expect(await page.evaluate(() => 1 + 1)).toBe(2);
     // A sensible volume plans in the worker and shows its steps.

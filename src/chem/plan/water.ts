@@ -102,7 +102,7 @@ export function readQuantity(
   if (x < WATER_AMOUNT_RANGE[0] || x > WATER_AMOUNT_RANGE[1]) {
     fail(
       'volume-out-of-range',
-      `${where}: ${key} must be between ${WATER_AMOUNT_RANGE[0]} and ${WATER_AMOUNT_RANGE[1]}, got ${x}.`,
+      `${where}: ${key} must be between 1e-6 and 1e10 ${key === 'volume_l' ? 'L (1 µL to 10 million m³)' : 'kg'}, got ${x}.`,
       key,
     );
   }

@@ -13,6 +13,8 @@
  */
 
 import type { Issue } from '../chem/errors';
+import { checkSetting, isSettingKey, type RejectedSetting } from '../store/settings';
+import { isTimeZone } from '../store/validate';
 import type { ReadingDoc, SiteDoc, TufaDoc } from './docs';
 import { type IoCode, ioIssue } from './io-issues';
 
@@ -114,6 +116,8 @@ function checkDoc(d: unknown, type: 'site' | 'reading', i: number): string | und
     if (typeof d.siteId !== 'string') return `reading ${d.id} has no siteId`;
     if (typeof d.takenAt !== 'string' || Number.isNaN(Date.parse(d.takenAt)))
       return `reading ${d.id} has no valid takenAt`;
+    if (!isTimeZone(d.timeZone))
+      return `reading ${d.id} has an unknown time zone (${String(d.timeZone).slice(0, 40)})`;
     if (
       !Array.isArray(d.values) ||
       d.values.some(
@@ -177,6 +181,8 @@ export interface RestoreReport {
   replaced: number;
   unchanged: number;
   settings: number;
+  /** Settings in the backup that failed their check (the current value or default is kept). */
+  settingsRejected: RejectedSetting[];
   layouts: number;
 }
 
@@ -198,7 +204,15 @@ export async function restoreBackup(store: BackupStore, backup: Backup): Promise
     }
   }
   if (toWrite.length > 0) await store.bulkPut(toWrite);
-  const settings = backup.settings.filter((s) => !SECRET.test(s.key));
+  // Every setting is checked before it is stored: an unusable value (a locale of "en_US", say)
+  // would otherwise reach Intl on every screen after the next start.
+  const settingsRejected: RejectedSetting[] = [];
+  const settings = backup.settings.filter((s) => {
+    if (SECRET.test(s.key) || !isSettingKey(s.key)) return false;
+    const why = checkSetting(s.key, s.value);
+    if (why) settingsRejected.push({ key: s.key, reason: why });
+    return !why;
+  });
   await store.putSettings(settings);
   await store.putLayouts(backup.layouts);
   return {
@@ -206,6 +220,7 @@ export async function restoreBackup(store: BackupStore, backup: Backup): Promise
     replaced,
     unchanged: incoming.length - added - replaced,
     settings: settings.length,
+    settingsRejected,
     layouts: backup.layouts.length,
   };
 }

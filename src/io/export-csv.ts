@@ -13,7 +13,26 @@ import { formatNumber } from './numbers';
 import { KEY_ORDER } from './quantities';
 import { siteDefaultsText } from './site-defaults-text';
 import { engineValues, type Solver } from './solve-input';
-import { formatWithOffset } from './timestamps';
+import { formatWithOffset, isKnownTimeZone } from './timestamps';
+
+/**
+ * The sampling time as written to the file: local time with offset in the reading's zone, or in
+ * UTC (+00:00) when this device does not know that zone (a reading stored by an older Tufa or
+ * another tool), so one odd reading never stops the export of all (issue 15 §4).
+ */
+export function takenAtCell(r: Pick<ReadingDoc, 'takenAt' | 'timeZone'>): string {
+  const ms = Date.parse(r.takenAt);
+  if (Number.isNaN(ms)) return r.takenAt;
+  return formatWithOffset(
+    ms,
+    typeof r.timeZone === 'string' && isKnownTimeZone(r.timeZone) ? r.timeZone : 'UTC',
+  );
+}
+
+/** Readings whose time zone this device does not know: their times are exported in UTC. */
+export function unknownZoneReadings(readings: readonly ReadingDoc[]): ReadingDoc[] {
+  return readings.filter((r) => typeof r.timeZone !== 'string' || !isKnownTimeZone(r.timeZone));
+}
 
 /** Outputs written when a solver is given, with our column names. */
 export const COMPUTED_COLUMNS = [
@@ -105,7 +124,7 @@ export function exportReadingsCsv(
       r.siteId,
       site?.kind ?? '',
       site ? siteDefaultsText(site.defaults) : '',
-      formatWithOffset(Date.parse(r.takenAt), r.timeZone),
+      takenAtCell(r),
       r.timeZone,
       r.updatedAt,
       // Only a scale the reading names: a re-import must store the very same values (same reading).

@@ -6,6 +6,7 @@
 
 import { isSolveError, type SolveResult } from '../chem/api';
 import { type RequestSettings, readingRequest } from '../reading/request';
+import { isQuotaError } from '../store/errors';
 import type { ReadingDoc, SiteDoc, TufaDoc } from './docs';
 import type { ImportPlan } from './import-plan';
 import { type RowIssue, rowIssue } from './io-issues';
@@ -153,7 +154,11 @@ export async function commitImport(
   } catch (e) {
     const reason = e instanceof Error ? e.message : String(e);
     report.errors.push(
-      rowIssue(0, 'store-write-failed', `Nothing was imported: the database refused the write (${reason}).`),
+      rowIssue(
+        0,
+        isQuotaError(e) ? 'store-quota-exceeded' : 'store-write-failed',
+        `Nothing was imported: the database refused the write (${reason}).`,
+      ),
     );
     return report;
   }

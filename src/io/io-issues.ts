@@ -32,7 +32,8 @@ export type IoCode =
   | 'backup-wrong-format'
   | 'backup-newer-version'
   | 'backup-bad-doc'
-  | 'store-write-failed';
+  | 'store-write-failed'
+  | 'store-quota-exceeded';
 
 export function ioIssue(code: IoCode, message: string, field?: string): Issue {
   return field === undefined ? { code, message } : { code, message, field };

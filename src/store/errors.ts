@@ -13,6 +13,7 @@ export const STORE_ERROR_CODES = [
   'store-unavailable',
   'store-not-found',
   'store-invalid-doc',
+  'store-invalid-setting',
   'store-write-failed',
 ] as const;
 export type StoreErrorCode = (typeof STORE_ERROR_CODES)[number];
@@ -41,12 +42,37 @@ const MESSAGES: Record<string, [StoreErrorCode, string]> = {
   ],
 };
 
+function nameOf(e: unknown): string {
+  return typeof e === 'object' && e !== null && 'name' in e ? String((e as { name: unknown }).name) : '';
+}
+
+/**
+ * The DOMException name that says what went wrong. A quota failure often reaches the caller as the
+ * transaction's `AbortError` (idb rejects `tx.done` with it) while the cause sits in
+ * `transaction.error` or `cause`; look there before calling it a plain write failure.
+ */
+function causeName(e: unknown): string {
+  const name = nameOf(e);
+  if (name !== 'AbortError' && name !== 'Error') return name;
+  const o = e as { target?: { transaction?: { error?: unknown }; error?: unknown }; cause?: unknown };
+  for (const inner of [o?.cause, o?.target?.transaction?.error, o?.target?.error]) {
+    const n = nameOf(inner);
+    if (n && n !== 'AbortError' && MESSAGES[n]) return n;
+  }
+  return name;
+}
+
+/** True for a QuotaExceededError, also when it arrives wrapped in a transaction's AbortError. */
+export function isQuotaError(e: unknown): boolean {
+  return (
+    causeName(e) === 'QuotaExceededError' || (e instanceof TufaError && e.code === 'store-quota-exceeded')
+  );
+}
+
 /** Any failure of a store call as an Issue; TufaErrors keep their code. */
 export function storeIssue(e: unknown): Issue {
   if (e instanceof TufaError) return e.toIssue();
-  const name =
-    typeof e === 'object' && e !== null && 'name' in e ? String((e as { name: unknown }).name) : '';
-  const known = MESSAGES[name];
+  const known = MESSAGES[causeName(e)];
   if (known) return { code: known[0], message: known[1] };
   const text = e instanceof Error ? e.message : String(e);
   return { code: 'store-write-failed', message: `The on-device database refused the change: ${text}` };

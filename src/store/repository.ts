@@ -32,7 +32,7 @@ import type {
   TufaDB,
   TufaDoc,
 } from './schema';
-import { DEFAULT_SETTINGS, SETTING_KEYS, type Settings } from './settings';
+import { checkSetting, isSettingKey, type RejectedSetting, readSettings, type Settings } from './settings';
 import { validateDoc, validateReading, validateSite } from './validate';
 
 const STRICT = { durability: 'strict' } as const;
@@ -517,7 +517,7 @@ export class Repository {
   }
 
   async setSyncMeta(key: string, value: unknown): Promise<void> {
-    await this.run(() => this.db.put('syncMeta', { key, value }));
+    await this.strictWrite('syncMeta', (store) => store.put({ key, value }));
   }
 
   async keepConflicts(records: ConflictRecord[]): Promise<void> {
@@ -537,26 +537,32 @@ export class Repository {
   }
 
   async dropConflict(id: string): Promise<void> {
-    await this.run(() => this.db.delete('conflicts', id));
+    await this.strictWrite('conflicts', (store) => store.delete(id));
   }
 
   // ---- settings -------------------------------------------------------------------------------
 
+  /** Settings over their defaults; a stored value that fails its check is not used. */
   async getSettings(): Promise<Settings> {
-    const rows = await this.run(() => this.db.getAll('settings'));
-    const out: Settings = structuredClone(DEFAULT_SETTINGS);
-    const target = out as unknown as Record<string, unknown>;
-    for (const row of rows) if ((SETTING_KEYS as string[]).includes(row.key)) target[row.key] = row.value;
-    return out;
+    return (await this.readSettings()).settings;
   }
 
+  /** Settings, and the stored values that failed their check (defaults apply to those). */
+  async readSettings(): Promise<{ settings: Settings; rejected: RejectedSetting[] }> {
+    return readSettings(await this.run(() => this.db.getAll('settings')));
+  }
+
+  /** Checks every value first (store-invalid-setting: nothing is written), then writes all. */
   async putSettings(patch: Partial<Settings>): Promise<Settings> {
+    // Keys that are not settings (an older Tufa's, say) are ignored as before.
+    const entries = Object.entries(patch).filter(([k, v]) => v !== undefined && isSettingKey(k));
+    for (const [k, v] of entries) {
+      const why = checkSetting(k, v);
+      if (why) throw storeError('store-invalid-setting', `Setting ${k} ${why}; nothing was changed.`, k);
+    }
     await this.run(async () => {
       const tx = this.db.transaction('settings', 'readwrite', STRICT);
-      const puts = Object.entries(patch)
-        .filter(([k, v]) => (SETTING_KEYS as string[]).includes(k) && v !== undefined)
-        .map(([key, value]) => tx.store.put({ key, value }));
-      await Promise.all([...puts, tx.done]);
+      await this.settle(tx, Promise.all(entries.map(([key, value]) => tx.store.put({ key, value }))));
     });
     return this.getSettings();
   }
@@ -573,12 +579,12 @@ export class Repository {
 
   async putLayout(layout: Omit<CsvLayout, 'id' | 'updatedAt'> & { id?: string }): Promise<CsvLayout> {
     const doc: CsvLayout = { ...layout, id: layout.id ?? this.newId(), updatedAt: this.now().toISOString() };
-    await this.run(() => this.db.put('layouts', doc));
+    await this.strictWrite('layouts', (store) => store.put(doc));
     return doc;
   }
 
   async deleteLayout(id: string): Promise<void> {
-    await this.run(() => this.db.delete('layouts', id));
+    await this.strictWrite('layouts', (store) => store.delete(id));
   }
 
   // ---- internals ------------------------------------------------------------------------------
@@ -589,6 +595,34 @@ export class Repository {
     } catch (e) {
       throw asStoreError(e);
     }
+  }
+
+  /**
+   * Waits for `work` and the commit of `tx`. An aborted transaction rejects with a bare AbortError
+   * whose cause (a QuotaExceededError, say) is only in `tx.error`; that cause is what is thrown.
+   */
+  private async settle(
+    tx: { error: DOMException | null; done: Promise<void> },
+    work: Promise<unknown>,
+  ): Promise<void> {
+    try {
+      await Promise.all([work, tx.done]);
+    } catch (e) {
+      tx.done.catch(() => undefined);
+      const cause = tx.error;
+      throw cause && (e as { name?: string })?.name === 'AbortError' ? cause : e;
+    }
+  }
+
+  /** One strict read-write transaction on one store (every write is durable, see the class comment). */
+  private async strictWrite<S extends 'syncMeta' | 'conflicts' | 'layouts'>(
+    name: S,
+    write: (store: IDBPTransaction<TufaDB, [S], 'readwrite'>['store']) => Promise<unknown>,
+  ): Promise<void> {
+    await this.run(async () => {
+      const tx = this.db.transaction(name, 'readwrite', STRICT);
+      await this.settle(tx, write(tx.store));
+    });
   }
 
   /** Runs `work` in one strict read-write transaction over the document stores; any throw aborts it all. */
@@ -607,7 +641,7 @@ export class Repository {
         }
         throw e;
       }
-      await tx.done;
+      await this.settle(tx, Promise.resolve());
     });
   }
 
@@ -646,7 +680,8 @@ export class Repository {
       }
       const n = { ...edit(cur), id: cur.id, type: cur.type, updatedAt: laterThan(cur.updatedAt, now) } as D;
       if (cur.rev !== undefined) n.rev = cur.rev;
-      validateDoc(n);
+      if (n.type === 'reading') validateReading(n, (cur as ReadingDoc).timeZone);
+      else validateDoc(n);
       if (n.type === 'site') await tx.objectStore('sites').put(n);
       else await putReadings(tx, [n]);
       await queue(tx, [outboxOf(n)]);

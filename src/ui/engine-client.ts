@@ -1,13 +1,14 @@
 /** The page's side of the engine worker: promise per request, one worker for the app's life. */
 
 import type { SolveResult } from '../chem/api';
+import type { PlanResult } from '../chem/plan/plan';
 import type { ReadingFacts, ReadingRequest, RequestSettings } from '../reading/request';
 import type { SiteDoc } from '../store/schema';
 import type { EngineRequest, EngineResponse, ReadingJob, RequestSummary } from './engine.worker';
 
 let worker: Worker | undefined;
 let next = 1;
-const pending = new Map<number, (r: EngineResponse) => void>();
+const pending = new Map<number, { resolve: (r: EngineResponse) => void; reject: (e: Error) => void }>();
 
 function getWorker(): Worker {
   if (!worker) {
@@ -15,7 +16,17 @@ function getWorker(): Worker {
     worker.onmessage = (ev: MessageEvent<EngineResponse>) => {
       const done = pending.get(ev.data.id);
       pending.delete(ev.data.id);
-      done?.(ev.data);
+      done?.resolve(ev.data);
+    };
+    // A worker that dies fails its pending requests instead of leaving the screen waiting; the
+    // next request starts a new one.
+    worker.onerror = (ev) => {
+      ev.preventDefault();
+      worker?.terminate();
+      worker = undefined;
+      const e = new Error(`The engine worker stopped (${ev.message || 'no reason given'}).`);
+      for (const p of pending.values()) p.reject(e);
+      pending.clear();
     };
   }
   return worker;
@@ -25,8 +36,8 @@ type Req = EngineRequest extends infer R ? (R extends EngineRequest ? Omit<R, 'i
 
 function ask(req: Req): Promise<EngineResponse> {
   const id = next++;
-  return new Promise((resolve) => {
-    pending.set(id, resolve);
+  return new Promise((resolve, reject) => {
+    pending.set(id, { resolve, reject });
     getWorker().postMessage({ ...req, id } as EngineRequest);
   });
 }
@@ -64,6 +75,13 @@ export async function solveReadingInWorker(
   });
   if (r.kind !== 'reading') throw new Error('engine worker answered the wrong request');
   return { request: r.request, result: r.result };
+}
+
+/** A plan (`src/chem/plan/plan.ts`) computed in the worker: its dose searches never block the page. */
+export async function planInWorker(request: unknown): Promise<PlanResult> {
+  const r = await ask({ kind: 'plan', request });
+  if (r.kind !== 'plan') throw new Error('engine worker answered the wrong request');
+  return r.result;
 }
 
 /** Many readings through the one request function: slim results (with `keys`) and request summaries. */

@@ -1,11 +1,12 @@
 /// <reference lib="webworker" />
 /**
  * Runs the engine off the main thread, so typing stays smooth while a reading (or a whole log for
- * a chart) is solved.
+ * a chart) is solved, and a plan's dose search never freezes the page.
  */
 
 import type { SolveInput, SolveResult } from '../chem/api';
 import { toIssue } from '../chem/errors';
+import type { PlanResult } from '../chem/plan/plan';
 import {
   type ReadingFacts,
   type ReadingRequest,
@@ -14,7 +15,7 @@ import {
   withUncertainty,
 } from '../reading/request';
 import type { SiteDefaults } from '../store/schema';
-import { solve } from './engine-source';
+import { plan, solve } from './engine-source';
 
 /** A reading as the worker needs it: its facts and the defaults of its site. */
 export interface ReadingJob {
@@ -29,11 +30,14 @@ export type EngineRequest =
   /** One stored (or draft) reading through `readingRequest`, solved; with its uncertainties when asked. */
   | { id: number; kind: 'reading'; job: ReadingJob; settings: RequestSettings; uncertainty: boolean }
   /** Many readings through `readingRequest`: slim results (with `keys`) and each request's summary. */
-  | { id: number; kind: 'readings'; jobs: ReadingJob[]; settings: RequestSettings; keys?: string[] };
+  | { id: number; kind: 'readings'; jobs: ReadingJob[]; settings: RequestSettings; keys?: string[] }
+  /** A plan (`src/chem/plan/plan.ts`): its dose searches never block the page. */
+  | { id: number; kind: 'plan'; request: unknown };
 
 export type EngineResponse =
   | { id: number; kind: 'reading'; request: ReadingRequest; result: SolveResult }
-  | { id: number; kind: 'readings'; requests: RequestSummary[]; results: SolveResult[] };
+  | { id: number; kind: 'readings'; requests: RequestSummary[]; results: SolveResult[] }
+  | { id: number; kind: 'plan'; result: PlanResult };
 
 function slim(r: SolveResult, keys: readonly string[] | undefined): SolveResult {
   if (!keys || 'error' in r) return r;
@@ -68,6 +72,16 @@ scope.onmessage = (ev: MessageEvent<EngineRequest>) => {
       results.push(slim(safeSolve(input), req.keys));
     }
     scope.postMessage({ id: req.id, kind: 'readings', requests, results } satisfies EngineResponse);
+    return;
+  }
+  if (req.kind === 'plan') {
+    let result: PlanResult;
+    try {
+      result = plan(req.request);
+    } catch (e) {
+      result = { error: toIssue(e) };
+    }
+    scope.postMessage({ id: req.id, kind: 'plan', result } satisfies EngineResponse);
     return;
   }
 };

@@ -4,7 +4,7 @@ import { render } from 'preact';
 import type { Issue } from '../chem/errors';
 import { storeIssue } from '../store/errors';
 import { openRepository } from '../store/repository';
-import { DEFAULT_SETTINGS } from '../store/settings';
+import { DEFAULT_SETTINGS, rejectedSettingsMessage } from '../store/settings';
 import type { SyncService } from '../sync/sync-service';
 import { App } from './app';
 import { registerServiceWorker } from './sw-register';
@@ -37,7 +37,21 @@ async function boot() {
           message: 'A newer Tufa opened in another tab. Reload this page to continue.',
         }),
     });
-    const settings = await repo.getSettings().catch(() => DEFAULT_SETTINGS);
+    // The app always starts: a stored setting that cannot be used falls back to its default, and
+    // the user is told which one (store-invalid-setting) so Settings can put it right.
+    let settingsIssue: Issue | undefined;
+    const { settings } = await repo.readSettings().then(
+      ({ settings, rejected }) => {
+        if (rejected.length > 0)
+          settingsIssue = { code: 'store-invalid-setting', message: rejectedSettingsMessage(rejected) };
+        return { settings };
+      },
+      (e: unknown) => {
+        const i = storeIssue(e);
+        settingsIssue = { code: i.code, message: `Settings could not be read; defaults apply. ${i.message}` };
+        return { settings: DEFAULT_SETTINGS };
+      },
+    );
     // Sync is an extra, loaded after the first screen (it is not part of the shell's budget): if it
     // cannot start, the app still works and keeps everything on the device.
     let sync: SyncService | undefined;
@@ -49,7 +63,7 @@ async function boot() {
           repo={repo}
           initialSettings={settings}
           updateReady={updateReady}
-          bootIssue={blocked}
+          bootIssue={blocked ?? settingsIssue}
           sync={sync}
           syncState={syncState}
         />,

@@ -19,6 +19,23 @@ export async function askPersistence(): Promise<boolean> {
   return navigator.storage?.persist ? navigator.storage.persist().catch(() => false) : false;
 }
 
+let askedAfterSave = false;
+
+/**
+ * Asks once per session for persistent storage after readings are saved (a first reading, an
+ * import, a restore), not only from the button in Settings: data on a device that is not
+ * persistent may be evicted. Browsers that ask the user show their own prompt; others decide from
+ * how the site is used. Answers whether storage is persistent (undefined: not asked again).
+ */
+export async function askPersistenceAfterSave(): Promise<boolean | undefined> {
+  if (askedAfterSave) return undefined;
+  askedAfterSave = true;
+  const sm = navigator.storage;
+  if (!sm?.persist) return undefined;
+  if (sm.persisted && (await sm.persisted().catch(() => false))) return true;
+  return sm.persist().catch(() => false);
+}
+
 /** The warning a user should read, or undefined when storage is persistent and roomy. */
 export function evictionWarning(s: StorageState): string | undefined {
   if (s.quota !== undefined && s.usage !== undefined && s.quota > 0 && s.usage / s.quota > 0.8) {

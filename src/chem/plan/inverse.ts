@@ -7,6 +7,8 @@
  * per kg of water until the miss changes sign (the smallest dose that reaches the target), then
  * Illinois regula falsi in that bracket with bisection fallback until the miss is within
  * 1e-9·max(1, |target|) in the target's units, or 200 iterations; the miss reached is reported.
+ * Every loop here has a fixed bound and ends in a result or a coded error (`plan-search-gave-up`,
+ * `target-unreachable`, `too-many-steps`), never a hang, whatever the input.
  */
 
 import { fail, type Issue, warning } from '../errors';
@@ -128,6 +130,16 @@ export interface TargetSolution {
 const SCAN_START_MOL_KG = 1e-8;
 const SCAN_MAX_MOL_KG = 2;
 const MAX_ITERATIONS = 200;
+/** Doublings from the start to the end of the scan, plus slack: the scan's hard bound. */
+const MAX_SCAN = Math.ceil(Math.log2(SCAN_MAX_MOL_KG / SCAN_START_MOL_KG)) + 2;
+
+function gaveUp(what: string): never {
+  fail(
+    'plan-search-gave-up',
+    `The dose search ${what} and stopped. Check the amount of water and the target; nothing was planned.`,
+    'target',
+  );
+}
 
 export function doseToTarget(
   w: PlanWater,
@@ -154,8 +166,13 @@ export function doseToTarget(
   let lo = 0;
   let glo = g0;
   let hi = SCAN_START_MOL_KG * w.basisKg;
+  const end = SCAN_MAX_MOL_KG * w.basisKg;
+  // A water too small for the scan's steps to grow (5e-324 L underflows them to 0) cannot be searched.
+  if (!(hi > 0 && Number.isFinite(end) && end > hi)) gaveUp(`cannot scan doses for ${w.basisKg} kg of water`);
   let probe = safeAt(at, hi);
-  while (probe !== undefined && Math.sign(probe.g) === Math.sign(g0) && hi < SCAN_MAX_MOL_KG * w.basisKg) {
+  let scans = 0;
+  while (probe !== undefined && Math.sign(probe.g) === Math.sign(g0) && hi < end) {
+    if (++scans > MAX_SCAN) gaveUp(`found no bracket after ${MAX_SCAN} steps`);
     lo = hi;
     glo = probe.g;
     hi *= 2;
@@ -178,7 +195,8 @@ export function doseToTarget(
     // Illinois: halve the stale end's weight so regula falsi does not stall on one side.
     let n = (lo * ghi - hi * glo) / (ghi - glo);
     if (!(n > lo && n < hi)) n = 0.5 * (lo + hi);
-    const r = at(n);
+    const r = safeAt(at, n);
+    if (r === undefined) gaveUp(`met a dose the model cannot compute (${n.toPrecision(3)} mol)`);
     if (Math.abs(r.g) < Math.abs(best.g)) {
       best = r;
       bestN = n;
@@ -208,9 +226,11 @@ export function doseToTarget(
   return { moles: bestN, dose: best.d, achieved: best.g + target, miss: best.g, iterations: i, warnings };
 }
 
-function safeAt<T>(f: (n: number) => T, n: number): T | undefined {
+/** The forward model at dose n, or undefined where it fails or misses by a non-number. */
+function safeAt<T extends { g: number }>(f: (n: number) => T, n: number): T | undefined {
   try {
-    return f(n);
+    const r = f(n);
+    return Number.isFinite(r.g) ? r : undefined;
   } catch {
     return undefined;
   }

@@ -73,6 +73,12 @@ export function kgPerLitre(input: WaterInput, solved: SolveOutput): { solution: 
   return { solution: rho, basis: tds === undefined ? rho : rho - tds * 1e-6 };
 }
 
+/**
+ * The amounts of water a plan accepts, in L or kg: from a drop (1 µL) to a large reservoir
+ * (10 million m³). Outside, the arithmetic of doses leaves the range of doubles (issue 15 §3).
+ */
+export const WATER_AMOUNT_RANGE = [1e-6, 1e10] as const;
+
 /** How much water: exactly one of volume_l or mass_kg (of solution). */
 export function readQuantity(
   raw: Readonly<Record<string, unknown>>,
@@ -92,6 +98,13 @@ export function readQuantity(
   const x = key === 'volume_l' ? v : m;
   if (typeof x !== 'number' || !Number.isFinite(x) || !(x > 0)) {
     fail('bad-volume', `${where}: ${key} must be a number greater than zero, got ${JSON.stringify(x)}.`, key);
+  }
+  if (x < WATER_AMOUNT_RANGE[0] || x > WATER_AMOUNT_RANGE[1]) {
+    fail(
+      'volume-out-of-range',
+      `${where}: ${key} must be between 1e-6 and 1e10 ${key === 'volume_l' ? 'L (1 µL to 10 million m³)' : 'kg'}, got ${x}.`,
+      key,
+    );
   }
   return key === 'volume_l' ? { volumeL: x } : { massKg: x };
 }

@@ -7,19 +7,22 @@
 
 import { useEffect, useMemo, useState } from 'preact/hooks';
 import { isSolveError, type SolveResult } from '../../chem/api';
+import { TufaError } from '../../chem/errors';
 import { backupToJson, createBackup, parseBackup, restoreBackup } from '../../io/backup';
 import { type ColumnMapping, type ColumnRole, defaultMapping, layoutKey } from '../../io/column-mapping';
-import { commitImport, type ImportReport, type PreviewRow } from '../../io/import-commit';
+import type { ImportReport, PreviewRow } from '../../io/import-commit';
 import { mappingFromRecord, mappingToRecord, roleFromString, roleToString } from '../../io/layout-memory';
 import { QUANTITIES } from '../../io/quantities';
 import { formatWithOffset } from '../../io/timestamps';
 import type { RequestSettings } from '../../reading/request';
+import { storeIssue } from '../../store/errors';
 import type { Repository } from '../../store/repository';
 import type { SiteDoc } from '../../store/schema';
 import { DEFAULT_SETTINGS } from '../../store/settings';
 import { RepositoryStore } from '../../sync/repository-store';
+import { askPersistenceAfterSave } from '../storage-state';
 import { showValue } from '../sync/conflict-fields';
-import { downloadText as download, readingsCsv } from './csv-download';
+import { downloadText as download, readingsCsvWithNote } from './csv-download';
 import type { FileSummary, PlanSummary } from './import.worker';
 import { ImportWorker } from './import-client';
 
@@ -122,6 +125,7 @@ export function DataPanel({
   const [previewIssue, setPreviewIssue] = useState('');
   const [exportSite, setExportSite] = useState('');
   const [restoreMsg, setRestoreMsg] = useState('');
+  const [exportMsg, setExportMsg] = useState('');
   const [encoding, setEncoding] = useState('UTF-8');
 
   useEffect(() => {
@@ -131,23 +135,14 @@ export function DataPanel({
   const zone = Intl.DateTimeFormat().resolvedOptions().timeZone || 'UTC';
 
   const openFile = async (file: File) => {
-    const bytes = new Uint8Array(await file.arrayBuffer());
-    // Keep the BOM for parseCsv to see; files that are not UTF-8 come from older spreadsheets in
-    // Windows-1252, which is what the fallback reads.
-    let text: string;
-    try {
-      text = new TextDecoder('utf-8', { fatal: true, ignoreBOM: true }).decode(bytes);
-      setEncoding('UTF-8');
-    } catch {
-      text = new TextDecoder('windows-1252').decode(bytes);
-      setEncoding('Windows-1252 (not UTF-8)');
-    }
     setBusy('Reading the file…');
     setPlan(undefined);
     setReport(undefined);
     setPreviewIssue('');
     try {
-      const parsed = await worker.open(text);
+      // Decoding and parsing happen in the worker; the page hands over the bytes.
+      const parsed = await worker.open(await file.arrayBuffer());
+      setEncoding(parsed.encoding === 'UTF-8' ? 'UTF-8' : 'Windows-1252 (not UTF-8)');
       setFileName(file.name);
       setCsv(parsed);
       const [remembered] = await repo.findLayouts(layoutKey(parsed.header));
@@ -191,12 +186,13 @@ export function DataPanel({
     if (!plan || !csv || !mapping) return;
     setBusy('Computing…');
     try {
-      // Every row is solved in the worker only to report rows that cannot be computed; outputs are
-      // not stored, they are recomputed whenever a reading is shown.
-      const { plan: full, warnings } = await worker.take();
-      setBusy('Importing…');
-      const r = await commitImport(full, store, { warnings, sites });
+      // The worker solves every row (only to report rows that cannot be computed; outputs are not
+      // stored, they are recomputed whenever a reading is shown) and stores the documents itself.
+      const r = await worker.commit((p) =>
+        setBusy(p.phase === 'computing' ? `Computing ${p.done} of ${p.total}…` : 'Importing…'),
+      );
       if (r.ok) {
+        void askPersistenceAfterSave();
         await repo.putLayout({
           name: fileName || 'CSV file',
           headerSignature: layoutKey(csv.header),
@@ -208,7 +204,11 @@ export function DataPanel({
       }
       setReport(r);
     } catch (e) {
-      setPreviewIssue(failure('import-unavailable', 'The import could not be prepared', e));
+      setPreviewIssue(
+        e instanceof TufaError
+          ? `${e.code}: ${e.message} Nothing was written.`
+          : failure('import-unavailable', 'The import could not be prepared', e),
+      );
     } finally {
       setBusy('');
     }
@@ -388,11 +388,15 @@ export function DataPanel({
           <button
             type="button"
             onClick={async () => {
-              download(
-                `tufa-readings-${new Date().toISOString().slice(0, 10)}.csv`,
-                await readingsCsv(repo, settings, exportSite || undefined),
-                'text/csv',
-              );
+              try {
+                const { text, note } = await readingsCsvWithNote(repo, settings, exportSite || undefined);
+                download(`tufa-readings-${new Date().toISOString().slice(0, 10)}.csv`, text, 'text/csv');
+                setExportMsg(note ?? '');
+              } catch (e) {
+                setExportMsg(
+                  failure('export-failed', 'The CSV file could not be made', e).replace('written', 'changed'),
+                );
+              }
             }}
           >
             Download CSV
@@ -407,6 +411,11 @@ export function DataPanel({
             Download backup (JSON)
           </button>
         </div>
+        {exportMsg && (
+          <p class="issue warn" role="status">
+            {exportMsg}
+          </p>
+        )}
         <label class="field">
           <span>
             Restore a backup (merged: nothing already here is duplicated or replaced by older copies)
@@ -422,10 +431,18 @@ export function DataPanel({
                 setRestoreMsg(`${b.error.message} (${b.error.code})`);
                 return;
               }
-              const r = await restoreBackup(store, b);
-              setRestoreMsg(
-                `Restored: ${r.added} added, ${r.replaced} replaced by newer copies, ${r.unchanged} unchanged.`,
-              );
+              try {
+                const r = await restoreBackup(store, b);
+                const skipped = r.settingsRejected.length
+                  ? ` Settings not restored (store-invalid-setting): ${r.settingsRejected.map((x) => `${x.key} ${x.reason}`).join('; ')}.`
+                  : '';
+                setRestoreMsg(
+                  `Restored: ${r.added} added, ${r.replaced} replaced by newer copies, ${r.unchanged} unchanged.${skipped}`,
+                );
+              } catch (err) {
+                const i = storeIssue(err);
+                setRestoreMsg(`The backup could not be restored: ${i.message} (${i.code})`);
+              }
               setReport(undefined);
               onDataChanged?.();
             }}

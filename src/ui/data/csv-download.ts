@@ -3,7 +3,7 @@
  * computed columns solved in the engine worker, and the browser download of a text file.
  */
 
-import { COMPUTED_COLUMNS, exportReadingsCsv } from '../../io/export-csv';
+import { COMPUTED_COLUMNS, exportReadingsCsv, unknownZoneReadings } from '../../io/export-csv';
 import type { RequestSettings } from '../../reading/request';
 import type { Repository } from '../../store/repository';
 import type { ReadingDoc, SiteDoc } from '../../store/schema';
@@ -35,6 +35,15 @@ export async function readingsCsv(
   settings: RequestSettings,
   siteId?: string,
 ): Promise<string> {
+  return (await readingsCsvWithNote(repo, settings, siteId)).text;
+}
+
+/** The CSV text and, when some readings' time zones are unknown here, a note saying so in words. */
+export async function readingsCsvWithNote(
+  repo: Repository,
+  settings: RequestSettings,
+  siteId?: string,
+): Promise<{ text: string; note?: string }> {
   const sites = await repo.listSites({ includeDeleted: true });
   const readings: ReadingDoc[] = siteId ? await repo.listReadings(siteId) : await repo.listAllReadings();
   const byId = new Map<string, SiteDoc>(sites.map((s) => [s.id, s]));
@@ -43,5 +52,12 @@ export async function readingsCsv(
   const solved = await solveReadingsInWorker(live, byId, settings, COMPUTED_COLUMNS);
   const results = new Map(live.map((r, i) => [r.id, solved.results[i]!]));
   const requests = new Map(live.map((r, i) => [r.id, solved.requests[i]!]));
-  return exportReadingsCsv(live, sites, siteId ? { siteId, results, requests } : { results, requests });
+  const text = exportReadingsCsv(live, sites, siteId ? { siteId, results, requests } : { results, requests });
+  const odd = unknownZoneReadings(live);
+  if (odd.length === 0) return { text };
+  const zones = [...new Set(odd.map((r) => String(r.timeZone).slice(0, 40)))].slice(0, 5).join('", "');
+  return {
+    text,
+    note: `time-zone-unknown: ${odd.length} ${odd.length === 1 ? 'reading has' : 'readings have'} a time zone this device does not know ("${zones}"); their times are written in UTC (+00:00). Everything else is exported as usual.`,
+  };
 }

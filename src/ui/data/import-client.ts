@@ -1,11 +1,17 @@
 /** The page's side of the import worker (`import.worker.ts`): one worker per open data panel. */
 
+import { TufaError } from '../../chem/errors';
 import type { ColumnMapping } from '../../io/column-mapping';
 import type { SiteDoc } from '../../io/docs';
-import type { ImportPlan } from '../../io/import-plan';
-import type { RowIssue } from '../../io/io-issues';
+import type { ImportReport } from '../../io/import-commit';
 import type { RequestSettings } from '../../reading/request';
-import type { FileSummary, ImportRequest, ImportResponse, PlanSummary } from './import.worker';
+import type {
+  FileSummary,
+  ImportProgress,
+  ImportRequest,
+  ImportResponse,
+  PlanSummary,
+} from './import.worker';
 
 type Req = ImportRequest extends infer R ? (R extends ImportRequest ? Omit<R, 'id'> : never) : never;
 
@@ -13,20 +19,39 @@ export class ImportWorker {
   private worker: Worker | undefined;
   private next = 1;
   private pending = new Map<number, (r: ImportResponse) => void>();
+  private progress = new Map<number, (p: ImportProgress) => void>();
 
-  private ask(req: Req): Promise<ImportResponse> {
+  private ask(
+    req: Req,
+    onProgress?: (p: ImportProgress) => void,
+    transfer: Transferable[] = [],
+  ): Promise<ImportResponse> {
     if (!this.worker) {
       this.worker = new Worker(new URL('./import.worker.ts', import.meta.url), { type: 'module' });
-      this.worker.onmessage = (ev: MessageEvent<ImportResponse>) => {
-        const done = this.pending.get(ev.data.id);
-        this.pending.delete(ev.data.id);
-        done?.(ev.data);
+      this.worker.onmessage = (ev: MessageEvent<ImportResponse | ImportProgress>) => {
+        const m = ev.data;
+        if (m.kind === 'progress') {
+          this.progress.get(m.id)?.(m);
+          return;
+        }
+        const done = this.pending.get(m.id);
+        this.pending.delete(m.id);
+        this.progress.delete(m.id);
+        done?.(m);
       };
+      // A worker that dies (out of memory, a script error) must not leave the panel waiting.
+      this.worker.onerror = (ev) => {
+        ev.preventDefault();
+        this.failAll(`The import worker stopped (${ev.message || 'no reason given'}). Nothing was written.`);
+      };
+      this.worker.onmessageerror = () =>
+        this.failAll('The import worker sent a message that could not be read.');
     }
     const id = this.next++;
+    if (onProgress) this.progress.set(id, onProgress);
     return new Promise((resolve) => {
       this.pending.set(id, resolve);
-      this.worker!.postMessage({ ...req, id } as ImportRequest);
+      this.worker!.postMessage({ ...req, id } as ImportRequest, transfer);
     });
   }
 
@@ -34,13 +59,14 @@ export class ImportWorker {
     r: ImportResponse,
     kind: K,
   ): Extract<ImportResponse, { kind: K }> {
-    if (r.kind === 'failed') throw new Error(r.message);
+    if (r.kind === 'failed') throw r.code ? new TufaError(r.code, r.message) : new Error(r.message);
     if (r.kind !== kind) throw new Error('import worker answered the wrong request');
     return r as Extract<ImportResponse, { kind: K }>;
   }
 
-  async open(text: string): Promise<FileSummary> {
-    return ImportWorker.expect(await this.ask({ kind: 'open', text }), 'open').file;
+  /** Reads a file in the worker (decoding included); the bytes are handed over, not copied. */
+  async open(bytes: ArrayBuffer): Promise<FileSummary> {
+    return ImportWorker.expect(await this.ask({ kind: 'open', bytes }, undefined, [bytes]), 'open').file;
   }
 
   async plan(
@@ -54,16 +80,23 @@ export class ImportWorker {
       .plan;
   }
 
-  /** The full plan of the last mapping, with the rows the engine could not compute. */
-  async take(): Promise<{ plan: ImportPlan; warnings: RowIssue[] }> {
-    const r = ImportWorker.expect(await this.ask({ kind: 'take' }), 'take');
-    return { plan: r.plan, warnings: r.warnings };
+  /**
+   * Imports the last plan: the worker solves every row and writes the documents to IndexedDB
+   * itself (one transaction, all or nothing); the page gets progress and the report only.
+   */
+  async commit(onProgress?: (p: ImportProgress) => void): Promise<ImportReport> {
+    return ImportWorker.expect(await this.ask({ kind: 'commit' }, onProgress), 'commit').report;
+  }
+
+  private failAll(message: string): void {
+    for (const done of this.pending.values()) done({ id: 0, kind: 'failed', message });
+    this.pending.clear();
+    this.progress.clear();
   }
 
   close(): void {
     this.worker?.terminate();
     this.worker = undefined;
-    for (const done of this.pending.values()) done({ id: 0, kind: 'failed', message: 'closed' });
-    this.pending.clear();
+    this.failAll('closed');
   }
 }

@@ -6,11 +6,12 @@
  * app's theme when mounted inside it.
  */
 
-import { useState } from 'preact/hooks';
+import { useEffect, useState } from 'preact/hooks';
 import type { SolveOutput } from '../../chem/api';
 import { CHEMICAL_IDS, CHEMICALS, type ChemicalId } from '../../chem/plan/chemicals';
 import { TARGET_QUANTITIES, type TargetQuantity } from '../../chem/plan/inverse';
-import { isPlanError, type PlanOutput, type PlanResult, plan } from '../../chem/plan/plan';
+import { isPlanError, type PlanOutput, type PlanResult } from '../../chem/plan/plan';
+import { planInWorker } from '../engine-client';
 import {
   type AmountUnit,
   compareRows,
@@ -34,8 +35,8 @@ export interface PlanPanelProps {
   volumeL?: number;
   /** A plan saved with the reading: the panel opens with its fields and shows it again. */
   saved?: SavedPlan;
-  /** The engine call; defaults to the in-page `plan()` (a plan takes milliseconds). */
-  engine?: (request: unknown) => PlanResult;
+  /** The engine call; defaults to `plan()` in the engine worker (a search never blocks the page). */
+  engine?: (request: unknown) => PlanResult | Promise<PlanResult>;
 }
 
 const v = (name: string, fallback: string) => `var(--${name}, ${fallback})`;
@@ -97,16 +98,17 @@ const TARGET_LABELS: Partial<Record<TargetQuantity, string>> = {
 };
 
 /** Runs the planner for the form; a field that cannot be read or an engine refusal becomes a problem. */
-function runPlan(
+async function runPlan(
   reading: Readonly<Record<string, unknown>>,
   form: PanelForm,
-  engine: (request: unknown) => PlanResult,
-):
+  engine: (request: unknown) => PlanResult | Promise<PlanResult>,
+): Promise<
   | { result: { request: Record<string, unknown>; out: PlanOutput } }
-  | { problem: { field?: string; text: string } } {
+  | { problem: { field?: string; text: string } }
+> {
   try {
     const request = planRequest(reading, form);
-    const r = engine(request);
+    const r = await engine(request);
     if (isPlanError(r)) return { problem: { text: `${r.error.message} (${r.error.code})` } };
     return { result: { request, out: r } };
   } catch (err) {
@@ -115,31 +117,38 @@ function runPlan(
   }
 }
 
-export function PlanPanel({ reading, onSave, volumeL, saved: savedPlan, engine = plan }: PlanPanelProps) {
+export function PlanPanel({
+  reading,
+  onSave,
+  volumeL,
+  saved: savedPlan,
+  engine = planInWorker,
+}: PlanPanelProps) {
   const [form, setForm] = useState<PanelForm>(() =>
     savedPlan
       ? formOfSavedPlan(savedPlan)
       : { ...DEFAULT_FORM, volumeL: volumeL === undefined ? DEFAULT_FORM.volumeL : String(volumeL) },
   );
-  // A saved plan is shown again, computed now from this reading's request (its "before" is today's truth).
-  const [first] = useState(() => (savedPlan ? runPlan(reading, form, engine) : undefined));
-  const [result, setResult] = useState<{ request: Record<string, unknown>; out: PlanOutput } | undefined>(
-    first && 'result' in first ? first.result : undefined,
-  );
-  const [problem, setProblem] = useState<{ field?: string; text: string } | undefined>(
-    first && 'problem' in first ? first.problem : undefined,
-  );
+  const [result, setResult] = useState<{ request: Record<string, unknown>; out: PlanOutput } | undefined>();
+  const [problem, setProblem] = useState<{ field?: string; text: string } | undefined>();
   const [saved, setSaved] = useState(savedPlan !== undefined);
+  const show = (r: Awaited<ReturnType<typeof runPlan>>) => {
+    setResult('result' in r ? r.result : undefined);
+    setProblem('problem' in r ? r.problem : undefined);
+  };
+  // A saved plan is shown again, computed now from this reading's request (its "before" is today's truth).
+  // biome-ignore lint/correctness/useExhaustiveDependencies: once, for the plan the panel opened with
+  useEffect(() => {
+    if (savedPlan) void runPlan(reading, form, engine).then(show);
+  }, []);
 
   const set = <K extends keyof PanelForm>(k: K, value: PanelForm[K]) => {
     setForm({ ...form, [k]: value });
     setSaved(false);
   };
-  const run = (e: Event) => {
+  const run = async (e: Event) => {
     e.preventDefault();
-    const r = runPlan(reading, form, engine);
-    setResult('result' in r ? r.result : undefined);
-    setProblem('problem' in r ? r.problem : undefined);
+    show(await runPlan(reading, form, engine));
   };
 
   const field = (k: keyof PanelForm, label: string, hint?: string) => (

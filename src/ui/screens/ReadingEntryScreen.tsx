@@ -16,6 +16,7 @@ import { formatNumber, parseDecimal } from '../numbers';
 import { plainWords } from '../plain-words';
 import { QUANTITIES, quantity, quantityForKey } from '../quantities';
 import { go } from '../router';
+import { askPersistenceAfterSave } from '../storage-state';
 import { ResultsPanel } from './ResultsPanel';
 import {
   EMPTY_TITRATION,
@@ -215,6 +216,7 @@ export function ReadingEntryScreen(props: { siteId?: string; readingId?: string 
             ...(titration.record ? { titration: titration.record } : {}),
           });
       dataChanged();
+      void askPersistenceAfterSave();
       notify({ kind: 'info', text: existing ? 'Reading updated.' : 'Reading saved on this device.' });
       go({ name: 'reading', readingId: doc.id });
     } catch (e) {

@@ -226,7 +226,15 @@ export class CouchClient {
     return r.body;
   }
 
-  async changes(since: string | number, limit: number): Promise<ChangesPage> {
+  /**
+   * One page of `_changes`. With a Mango `selector`: `filter=_selector`, the selector in the body
+   * (CouchDB 2+) and also in the query (pouchdb-server reads it only there).
+   */
+  async changes(
+    since: string | number,
+    limit: number,
+    selector?: Record<string, unknown>,
+  ): Promise<ChangesPage> {
     const q = new URLSearchParams({
       since: String(since),
       limit: String(limit),
@@ -234,7 +242,13 @@ export class CouchClient {
       conflicts: 'true',
       style: 'all_docs',
     });
-    const r = await this.request<ChangesPage>('GET', `_changes?${q}`);
+    if (selector) {
+      q.set('filter', '_selector');
+      q.set('selector', JSON.stringify(selector));
+    }
+    const r = selector
+      ? await this.request<ChangesPage>('POST', `_changes?${q}`, { selector })
+      : await this.request<ChangesPage>('GET', `_changes?${q}`);
     if (r.status === 404)
       throw new SyncError(
         'sync-db-missing',

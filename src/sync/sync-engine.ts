@@ -49,6 +49,13 @@ export interface SyncOptions {
   sleep?: (ms: number) => Promise<void>;
   now?: () => Date;
   random?: () => number;
+  /** Team servers: the signed-in user, stamped as `changed_by` (and `created_by` on new docs). */
+  author?: string;
+  /**
+   * Partial sync: pull only the docs this Mango selector matches (filtered `_changes`), e.g.
+   * `pullSelector(siteIds)` from `./partial-sync.ts`. A new selector starts a new checkpoint.
+   */
+  pullSelector?: Record<string, unknown> | null;
 }
 
 export interface SyncRunResult {
@@ -89,6 +96,8 @@ export class SyncEngine {
       sleep: (ms) => new Promise((r) => setTimeout(r, ms)),
       now: () => new Date(),
       random: Math.random,
+      author: '',
+      pullSelector: null,
       ...options,
     };
   }
@@ -181,7 +190,7 @@ export class SyncEngine {
    * database was recreated or restored: everything local is queued again (pushes are idempotent).
    */
   private async startSeq(): Promise<string | number> {
-    const local = await this.store.getMeta<string | number>(CHECKPOINT);
+    const local = await this.store.getMeta<string | number>(this.checkpointKey());
     if (local === undefined) return 0;
     const remote = await this.client.getLocal<{ last_seq?: string | number }>(this.checkpointName());
     if (!remote) {
@@ -191,16 +200,21 @@ export class SyncEngine {
     return String(remote.last_seq) === String(local) ? local : 0;
   }
 
+  private checkpointKey(): string {
+    const sel = this.o.pullSelector;
+    return sel ? `${CHECKPOINT}:${JSON.stringify(sel)}` : CHECKPOINT;
+  }
+
   private async pull(total: SyncRunResult): Promise<void> {
     let since = await this.startSeq();
     for (;;) {
-      const page = await this.client.changes(since, this.o.pullLimit);
+      const page = await this.client.changes(since, this.o.pullLimit, this.o.pullSelector ?? undefined);
       const docs = page.results.flatMap((r) => (r.doc && !r.id.startsWith('_design/') ? [r.doc] : []));
       if (docs.length > 0) await this.applyPulled(docs, total);
       since = page.last_seq;
       // Server copy first: a device checkpoint without one would look like a server reset.
       await this.client.putLocal(this.checkpointName(), { last_seq: since, device: this.o.deviceId });
-      await this.store.setMeta(CHECKPOINT, since);
+      await this.store.setMeta(this.checkpointKey(), since);
       if (page.results.length < this.o.pullLimit) return;
     }
   }
@@ -307,7 +321,7 @@ export class SyncEngine {
       if (gone.length) await this.store.dropOutbox(gone);
       const sent = [...docs.values()];
       if (sent.length === 0) continue;
-      const rows = await this.client.bulkDocs(sent.map(toCouch));
+      const rows = await this.client.bulkDocs(sent.map((d) => toCouch(d, this.o.author)));
       const byId = new Map(rows.map((r) => [r.id, r]));
       const ok: { docId: string; rev: string; updatedAt: string }[] = [];
       const missing: string[] = [];
@@ -320,7 +334,7 @@ export class SyncEngine {
           ok.push({ docId: d.id, rev: row.rev, updatedAt: d.updatedAt });
         } else if (row.error === 'conflict') {
           const server = await this.client.getDoc(d.id);
-          if (server && sameContent(server, toCouch(d))) {
+          if (server && sameContent(server, toCouch(d, this.o.author))) {
             ok.push({ docId: d.id, rev: server._rev!, updatedAt: d.updatedAt }); // our earlier write, answer lost
           } else if (!server) {
             // Not readable: deleted on the server (a tombstone leaf) or never there (database recreated).
@@ -366,7 +380,7 @@ export class SyncEngine {
       if (fresh.length) {
         // The server has no trace of these: send them as new documents.
         const again = await this.client.bulkDocs(
-          fresh.map((d) => toCouch({ ...d, rev: undefined } as TufaDoc)),
+          fresh.map((d) => toCouch({ ...d, rev: undefined } as TufaDoc, this.o.author)),
         );
         for (const r of again) {
           const d = fresh.find((x) => x.id === r.id);

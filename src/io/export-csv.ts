@@ -6,7 +6,7 @@
  */
 
 import { isSolveError, type SolveResult } from '../chem/api';
-import { writeCsv } from './csv-write';
+import { safeTextCell, writeCsv } from './csv-write';
 import type { ReadingDoc, SiteDoc } from './docs';
 import { formatNumber } from './numbers';
 import { KEY_ORDER } from './quantities';
@@ -77,26 +77,30 @@ export function exportReadingsCsv(
     const site = byId.get(r.siteId);
     const { values, options: opts } = converted[i]!;
     const out = [
-      r.id,
-      site?.name ?? '',
-      r.siteId,
+      safeTextCell(r.id),
+      safeTextCell(site?.name ?? ''),
+      safeTextCell(r.siteId),
       formatWithOffset(Date.parse(r.takenAt), r.timeZone),
-      r.timeZone,
+      safeTextCell(r.timeZone),
       ...(hasScale ? [opts.ph_scale ?? site?.defaults.ph_scale ?? ''] : []),
       ...valueKeys.map((k) => formatNumber(values[k])),
-      r.notes,
+      safeTextCell(r.notes),
     ];
     if (computing) {
       const res = resultOf(r, site);
       if (isSolveError(res)) {
-        out.push(...COMPUTED_COLUMNS.map(() => ''), '', `${res.error.code}: ${res.error.message}`);
+        out.push(
+          ...COMPUTED_COLUMNS.map(() => ''),
+          '',
+          safeTextCell(`${res.error.code}: ${res.error.message}`),
+        );
       } else {
         out.push(
           ...COMPUTED_COLUMNS.map((c) =>
             formatNumber(typeof res[c] === 'number' ? (res[c] as number) : undefined),
           ),
           res.model,
-          res.warnings.map((w) => `${w.code}: ${w.message}`).join(' | '),
+          safeTextCell(res.warnings.map((w) => `${w.code}: ${w.message}`).join(' | ')),
         );
       }
     }

@@ -20,7 +20,7 @@ import type { Issue } from '../chem/errors';
 import type { TufaDoc } from '../io/docs';
 import type { CouchClient, CouchDoc } from './couch-client';
 import { fromCouch, sameContent, toCouch } from './doc-codec';
-import { SyncError, syncIssue } from './sync-issues';
+import { rejectedDocIssue, SyncError } from './sync-issues';
 import type { OtherVersion, SyncStore } from './sync-store';
 
 export type SyncState = 'idle' | 'syncing' | 'waiting-to-retry' | 'error';
@@ -369,12 +369,7 @@ export class SyncEngine {
             }
           }
         } else {
-          rejected.push(
-            syncIssue(
-              'sync-doc-rejected',
-              `The server refused ${d.type} ${d.id}: ${row.error ?? 'no revision in the answer'}${row.reason ? ` (${row.reason})` : ''}.`,
-            ),
-          );
+          rejected.push(rejectedDocIssue(d.type, d.id, row.error, row.reason));
         }
       }
       if (fresh.length) {

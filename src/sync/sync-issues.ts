@@ -17,7 +17,8 @@ export type SyncCode =
   | 'sync-db-missing'
   | 'sync-server-error'
   | 'sync-bad-response'
-  | 'sync-doc-rejected';
+  | 'sync-doc-rejected'
+  | 'sync-doc-forbidden';
 
 export class SyncError extends Error {
   readonly code: SyncCode;
@@ -37,4 +38,26 @@ export class SyncError extends Error {
 
 export function syncIssue(code: SyncCode, message: string, field?: string): Issue {
   return field === undefined ? { code, message } : { code, message, field };
+}
+
+/**
+ * A document the server refused in a `_bulk_docs` row. `forbidden` is a team server's rule (role,
+ * authorship or document shape: `src/team/validate-source.ts`), said plainly with the server's
+ * reason; the change stays on this device and in the outbox, so nothing typed is lost.
+ */
+export function rejectedDocIssue(
+  type: string,
+  id: string,
+  error: string | undefined,
+  reason?: string,
+): Issue {
+  if (error === 'forbidden' || error === 'unauthorized')
+    return syncIssue(
+      'sync-doc-forbidden',
+      `The server did not accept your change to this ${type}: ${reason ?? 'your role does not allow it'}. Your change is kept on this device; ask a lead of your team, or undo it.`,
+    );
+  return syncIssue(
+    'sync-doc-rejected',
+    `The server refused ${type} ${id}: ${error ?? 'no revision in the answer'}${reason ? ` (${reason})` : ''}.`,
+  );
 }

@@ -8,14 +8,12 @@
 import type { BoronTotal, CarbonicConstants, ModelChoice, PhScaleName } from '../chem/api';
 import { QUANTITIES } from '../io/quantities';
 import { SITE_KINDS } from '../store/schema';
+import { ROLES } from './roles';
 import { validateSource } from './validate-source';
 
 export const DESIGN_ID = '_design/tufa-team';
 
-/** Role names as stored in `_users` docs and `_security`; the same words the CLI takes. */
-export const ROLES = { viewer: 'viewer', member: 'member', lead: 'lead' } as const;
-export type Role = keyof typeof ROLES;
-export const ROLE_NAMES = Object.keys(ROLES) as Role[];
+export { ROLE_NAMES, ROLES, type Role } from './roles';
 
 /** ISO 8601 instant with a zone (`Z` or an offset), as `Date.prototype.toISOString` writes it. */
 export const ISO_INSTANT = /^\d{4}-\d\d-\d\dT\d\d:\d\d(:\d\d(\.\d{1,9})?)?(Z|[+-]\d\d:\d\d)$/;

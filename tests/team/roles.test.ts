@@ -6,6 +6,7 @@
 
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { main } from '../../src/cli/main';
+import { whoAmI } from '../../src/team/roles';
 import { CouchServer } from '../sync/couch-server';
 import { readingInput, siteInput } from '../sync/devices';
 import { basic, teamDevice } from './team-devices';
@@ -110,6 +111,19 @@ function roleChecks(label: string, target: () => { url: string; db: string }) {
       expect(gone.status).toBe(200);
     });
 
+    it('the app learns the signed-in role from _session', async () => {
+      const { url } = target();
+      expect(await whoAmI(url, { kind: 'basic', user: 'vera', password: 'vera-pw' })).toEqual({
+        name: 'vera',
+        role: 'viewer',
+      });
+      expect(await whoAmI(url, { kind: 'basic', user: 'lea', password: 'lea-pw' })).toEqual({
+        name: 'lea',
+        role: 'lead',
+      });
+      expect(await whoAmI(url, { kind: 'basic', user: 'lea', password: 'wrong' })).toBeUndefined();
+    });
+
     it('a string where a number belongs is refused with a message naming the field', async () => {
       const bad = doc('bad-1', 'anna', { values: [{ quantity: 'ph', value: '7.9', unit: 'nbs' }] });
       const r = await put('anna', bad);
@@ -134,7 +148,9 @@ function roleChecks(label: string, target: () => { url: string; db: string }) {
       await b.engine.sync();
       const rejected: string[] = [];
       b.engine.subscribe((s) => rejected.push(...s.rejected.map((x) => `${x.code} ${x.message}`)));
-      expect(rejected.join('\n')).toMatch(/created by anna/);
+      expect(rejected.join('\n')).toMatch(
+        /^sync-doc-forbidden The server did not accept your change to this reading: .*created by anna/m,
+      );
       expect(await b.repo.outboxSize()).toBe(1); // kept, not lost
       expect((await b.repo.getReading(reading.id))?.notes).toBe('ben was here');
 

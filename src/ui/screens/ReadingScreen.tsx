@@ -137,6 +137,14 @@ export function ReadingScreen(props: { readingId: string }) {
             <a href={`#/site/${reading.siteId}`}>{site?.name ?? 'Site'}</a> ·{' '}
             {formatDateTime(reading.takenAt, reading.timeZone, locale)} ({reading.timeZone})
           </p>
+          {reading.created_by && (
+            <p class="muted small">
+              Entered by {reading.created_by}
+              {reading.changed_by && reading.changed_by !== reading.created_by
+                ? ` · last changed by ${reading.changed_by}`
+                : ''}
+            </p>
+          )}
         </div>
         <a class="button" href={`#/reading/${reading.id}/edit`}>
           Edit

@@ -11,6 +11,7 @@ import { type ConnectionSettings, checkConnection, type SyncService } from '../.
 import type { ConflictRecord } from '../../sync/sync-store';
 import { differingFields, fieldLabel, mergeVersions, showValue } from './conflict-fields';
 import { SYNC_PANEL_HASH } from './SyncBadge';
+import { TeamRole } from './TeamRole';
 
 const EMPTY: ConnectionSettings = { url: '', db: 'tufa', auth: 'session', user: '', password: '' };
 
@@ -150,10 +151,14 @@ export function SyncPanel({
   const [status, setStatus] = useState<SyncStatus>();
   const [conflicts, setConflicts] = useState<ConflictRecord[]>([]);
   const [busy, setBusy] = useState(false);
+  const [connected, setConnected] = useState<ConnectionSettings>();
 
   const reloadConflicts = () => service.conflicts().then(setConflicts);
   useEffect(() => {
-    service.connection().then((c) => c && setForm({ ...c, password: c.password }));
+    service.connection().then((c) => {
+      if (c) setForm({ ...c, password: c.password });
+      setConnected(c);
+    });
     const stop = service.subscribe((s) => {
       setStatus(s);
       if (s.state === 'idle' || s.state === 'error') reloadConflicts();
@@ -187,6 +192,7 @@ export function SyncPanel({
     setFormIssue('error' in r ? r.error : undefined);
     if (!('error' in r)) {
       setWarnings(r.warnings);
+      setConnected(form);
       await service.syncNow();
       onDataChanged?.();
     }
@@ -234,6 +240,7 @@ export function SyncPanel({
             kind={status.state === 'error' && status.error.code !== 'sync-not-configured' ? 'error' : 'warn'}
           />
         )}
+        <TeamRole connection={connected} status={status} />
         {status?.rejected.map((r) => (
           <IssueLine key={r.message} issue={r} kind="error" />
         ))}

@@ -57,3 +57,23 @@ export async function whoAmI(
     return undefined;
   }
 }
+
+/**
+ * Why the team server would refuse this user's change, in words, or `undefined` when it would
+ * accept it (the same rules as the server's `validate_doc_update`; the server still decides).
+ * `doc` absent: creating a new site or reading. A doc with a server revision and no `created_by`
+ * was stored before the team rules; only a lead changes it.
+ */
+export function teamRefusal(
+  who: TeamIdentity | undefined,
+  doc?: { type: 'site' | 'reading'; created_by?: string; rev?: string },
+): string | undefined {
+  if (!who || who.role === 'admin' || who.role === 'lead') return undefined;
+  if (who.role === undefined)
+    return `${who.name} has no role on this team server, so changes stay on this device.`;
+  if (who.role === 'viewer')
+    return 'You are a viewer on this team server: you can read, but changes you make would stay on this device.';
+  if (!doc) return undefined;
+  if (doc.created_by === undefined ? !doc.rev : doc.created_by === who.name) return undefined;
+  return `Only ${doc.created_by ?? 'a lead'}${doc.created_by ? ' or a lead' : ''} can change or delete this ${doc.type}: as a member you change what you entered.`;
+}

@@ -6,6 +6,7 @@
 import { describe, expect, it } from 'vitest';
 import { toCouch } from '../../src/sync/doc-codec';
 import { designDoc, quantityLimits, securityObject } from '../../src/team/doc-rules';
+import { roleOf, teamRefusal } from '../../src/team/roles';
 import { QUANTITIES as FORM_QUANTITIES } from '../../src/ui/quantities';
 
 type Validate = (n: unknown, o: unknown, u: unknown, s: unknown) => void;
@@ -172,5 +173,32 @@ describe('shape', () => {
     );
     expect(doc).toMatchObject({ created_by: 'anna', changed_by: 'anna' });
     expect(outcome(doc, null, a)).toBe('ok');
+  });
+});
+
+describe('what the app says before trying agrees with the server', () => {
+  it('teamRefusal is undefined exactly when validate_doc_update accepts the change', () => {
+    const people: [string, string][] = [
+      ['anna', 'member'],
+      ['ben', 'member'],
+      ['vera', 'viewer'],
+      ['lea', 'lead'],
+      ['olga', ''],
+    ];
+    for (const [name, role] of people) {
+      const who = { name, role: roleOf(role ? [role] : []) };
+      // Creating: a new reading by this user.
+      const created = outcome(reading(name), null, user(name, ...(role ? [role] : [])));
+      expect(teamRefusal(who) === undefined, `${name} creates`).toBe(created === 'ok');
+      // Changing anna's stored reading.
+      const old = { ...reading('anna'), _rev: '1-a' };
+      const changed = outcome(
+        { ...old, notes: 'x', changed_by: name },
+        old,
+        user(name, ...(role ? [role] : [])),
+      );
+      const local = { type: 'reading' as const, created_by: 'anna', rev: '1-a' };
+      expect(teamRefusal(who, local) === undefined, `${name} changes anna's`).toBe(changed === 'ok');
+    }
   });
 });

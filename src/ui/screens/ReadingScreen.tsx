@@ -6,6 +6,7 @@ import { isSolveError } from '../../chem/api';
 import type { TitrateOutcome } from '../../chem/titration/titrate';
 import { storeIssue } from '../../store/errors';
 import type { ReadingDoc, SiteDoc } from '../../store/schema';
+import { teamRefusal } from '../../team/roles';
 import { useApp } from '../app-context';
 import { drawSpeciation, fractionsAt } from '../charts/speciation';
 import { solveInWorker, titrateInWorker } from '../engine-client';
@@ -13,6 +14,7 @@ import { formatDateTime, formatNumber } from '../numbers';
 import { quantity } from '../quantities';
 import { go } from '../router';
 import { readingInput } from '../solve-context';
+import { useTeamIdentity } from '../sync/TeamRole';
 import { METHOD_LABELS, titrationInput, withTitration } from '../titration';
 import { ResultsPanel } from './ResultsPanel';
 import { TitrationSummary } from './TitrationSection';
@@ -71,7 +73,8 @@ function Speciation(props: { result: SolveOutput }) {
 type PlanPanelType = typeof import('../plan/PlanPanel').PlanPanel;
 
 export function ReadingScreen(props: { readingId: string }) {
-  const { repo, settings, locale, notify, dataChanged, reportError } = useApp();
+  const { repo, settings, locale, notify, dataChanged, reportError, sync } = useApp();
+  const who = useTeamIdentity(sync);
   const [reading, setReading] = useState<ReadingDoc | null>();
   const [site, setSite] = useState<SiteDoc>();
   const [result, setResult] = useState<SolveResult>();
@@ -128,6 +131,7 @@ export function ReadingScreen(props: { readingId: string }) {
   }
 
   const ok = result && !isSolveError(result) ? result : undefined;
+  const refusal = teamRefusal(who, reading);
   return (
     <article aria-labelledby="reading-h">
       <div class="titlebar">
@@ -146,9 +150,13 @@ export function ReadingScreen(props: { readingId: string }) {
             </p>
           )}
         </div>
-        <a class="button" href={`#/reading/${reading.id}/edit`}>
-          Edit
-        </a>
+        {refusal ? (
+          <p class="muted small team-refusal">{refusal}</p>
+        ) : (
+          <a class="button" href={`#/reading/${reading.id}/edit`}>
+            Edit
+          </a>
+        )}
       </div>
       <section class="panel" aria-labelledby="measured-h">
         <h2 id="measured-h">Measured</h2>

@@ -5,7 +5,7 @@
 
 import { useEffect, useState } from 'preact/hooks';
 import type { SyncStatus } from '../../sync/sync-engine';
-import type { ConnectionSettings } from '../../sync/sync-service';
+import type { ConnectionSettings, SyncService } from '../../sync/sync-service';
 import { ROLE_WORDS, type TeamIdentity, whoAmI } from '../../team/roles';
 
 export function TeamRole({
@@ -45,4 +45,28 @@ export function TeamRole({
       )}
     </p>
   );
+}
+
+let cached: { key: string; who: TeamIdentity | undefined } | undefined;
+
+/** Who this device is signed in as on its team server (asked once per connection, then cached). */
+export function useTeamIdentity(sync: SyncService | undefined): TeamIdentity | undefined {
+  const [who, setWho] = useState<TeamIdentity | undefined>(cached?.who);
+  useEffect(() => {
+    if (!sync) return;
+    let live = true;
+    sync.connection().then(async (c) => {
+      if (!c?.url || c.auth === 'none') return live && setWho(undefined);
+      const key = `${c.url}|${c.user}`;
+      if (cached?.key !== key) {
+        const url = c.url.endsWith('/') ? c.url : `${c.url}/`;
+        cached = { key, who: await whoAmI(url, { kind: c.auth, user: c.user, password: c.password }) };
+      }
+      if (live) setWho(cached.who);
+    });
+    return () => {
+      live = false;
+    };
+  }, [sync]);
+  return who;
 }

@@ -54,7 +54,7 @@ export function rejectedDocIssue(
   if (error === 'forbidden' || error === 'unauthorized')
     return syncIssue(
       'sync-doc-forbidden',
-      `The server did not accept your change to this ${type}: ${reason ?? 'your role does not allow it'}. Your change is kept on this device; ask a lead of your team, or undo it.`,
+      `The server did not accept your change to this ${type}: ${(reason ?? 'your role does not allow it').replace(/\.$/, '')}. Your change is kept on this device; ask a lead of your team, or undo it.`,
     );
   return syncIssue(
     'sync-doc-rejected',

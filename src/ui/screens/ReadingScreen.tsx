@@ -296,12 +296,16 @@ export function ReadingScreen(props: { readingId: string }) {
         )}
       </section>
       <div class="actions">
-        <a class="button primary" href={`#/site/${reading.siteId}/new-reading`}>
-          Another reading here
-        </a>
-        <button type="button" class="danger" onClick={remove}>
-          Delete reading
-        </button>
+        {!teamRefusal(who) && (
+          <a class="button primary" href={`#/site/${reading.siteId}/new-reading`}>
+            Another reading here
+          </a>
+        )}
+        {!refusal && (
+          <button type="button" class="danger" onClick={remove}>
+            Delete reading
+          </button>
+        )}
       </div>
     </article>
   );

@@ -149,6 +149,15 @@ export class SyncService {
     return checked;
   }
 
+  /** Partial sync: the sites this device pulls (`undefined`: all). Applies from the next sync. */
+  async setKeepSites(ids: string[] | undefined): Promise<void> {
+    const c = await this.store.getMeta<ConnectionSettings>(CONNECTION);
+    if (!c) return;
+    const { keepSites: _, ...rest } = c;
+    await this.store.setMeta(CONNECTION, ids ? { ...rest, keepSites: ids } : rest);
+    await this.start();
+  }
+
   async disconnect(): Promise<void> {
     this.sessionPassword = '';
     await this.store.setMeta(CONNECTION, undefined);

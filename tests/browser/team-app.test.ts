@@ -126,4 +126,50 @@ describe('a member of a team in the app', () => {
     };
     expect(onServer.notes).toBe('reading 2');
   });
+
+  it('a new phone fetches only the sites it chooses', async () => {
+    const by = { updatedAt: T, deleted: false, created_by: 'lea', changed_by: 'lea' };
+    const docs: Record<string, unknown>[] = [];
+    for (const n of [1, 2, 3]) {
+      docs.push({ _id: `pond-${n}`, type: 'site', ...siteInput(`Carp pond ${n}`), ...by });
+      for (let i = 0; i < 5; i++)
+        docs.push({ _id: `pond-${n}-r${i}`, type: 'reading', ...readingInput(`pond-${n}`, i), ...by });
+    }
+    const r = await fetch(`${server.url}team/_bulk_docs`, {
+      method: 'POST',
+      headers: basic('lea', 'lea-pw'),
+      body: JSON.stringify({ docs }),
+    });
+    expect(r.status).toBe(201);
+
+    const phone = await (await newContext(browser)).newPage();
+    await openApp(phone, base);
+    await phone.getByRole('link', { name: 'Settings' }).click();
+    const sync = phone.locator('section[aria-labelledby="sync-h"]');
+    await phone.getByLabel('Server address').fill(server.url);
+    await phone.getByLabel('Database name').fill('team');
+    await phone.getByLabel('Sign-in').selectOption('basic');
+    await phone.getByLabel('User name').fill('anna');
+    await phone.getByLabel('Password', { exact: true }).fill('anna-pw');
+    await phone.getByLabel(/Fetch only the sites I choose/).check();
+    await phone.getByRole('button', { name: 'Check and save' }).click();
+    await expect.poll(() => sync.textContent(), { timeout: 20_000 }).toContain('Up to date.');
+    const keep = phone.locator('form[aria-labelledby="keep-h"]');
+    await keep.getByLabel('Carp pond 2').check();
+    await keep.getByRole('button', { name: 'Keep 1 site' }).click();
+    await expect.poll(() => sync.textContent(), { timeout: 20_000 }).toContain('Up to date.');
+    await screenshot(phone, 'team-keep-sites');
+    await injectAppModules(phone);
+    const held = async () =>
+      phone.evaluate(async () => {
+        type M = typeof import('../bench/browser-entry');
+        const repo = await (window as unknown as { TufaModules: M }).TufaModules.openRepository();
+        const readings = (await repo.listAllReadings()).map((x) => x.siteId);
+        const sites = (await repo.listSites()).length;
+        repo.close();
+        return { readings: [...new Set(readings)], count: readings.length, sites };
+      });
+    await expect.poll(async () => (await held()).count, { timeout: 20_000 }).toBe(5);
+    expect(await held()).toEqual({ readings: ['pond-2'], count: 5, sites: 4 });
+  });
 });

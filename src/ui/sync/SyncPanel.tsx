@@ -10,6 +10,7 @@ import type { SyncStatus } from '../../sync/sync-engine';
 import { type ConnectionSettings, checkConnection, type SyncService } from '../../sync/sync-service';
 import type { ConflictRecord } from '../../sync/sync-store';
 import { differingFields, fieldLabel, mergeVersions, showValue } from './conflict-fields';
+import { KeepSites } from './KeepSites';
 import { SYNC_PANEL_HASH } from './SyncBadge';
 import { TeamRole } from './TeamRole';
 
@@ -256,6 +257,15 @@ export function SyncPanel({
         </div>
       </div>
 
+      {connected && (
+        <KeepSites
+          key={`${connected.url}|${connected.db}`}
+          service={service}
+          connection={connected}
+          onSaved={(keepSites) => setForm((f) => ({ ...f, keepSites }))}
+        />
+      )}
+
       {conflicts.length > 0 && (
         <section aria-labelledby="conflicts-h">
           <h3 id="conflicts-h">Conflicts to decide ({conflicts.length})</h3>
@@ -337,6 +347,14 @@ export function SyncPanel({
             </p>
           </>
         )}
+        <label class="check">
+          <input
+            type="checkbox"
+            checked={form.keepSites !== undefined}
+            onChange={(e) => set({ keepSites: e.currentTarget.checked ? (form.keepSites ?? []) : undefined })}
+          />
+          <span>Fetch only the sites I choose (a large team database: choose them below once connected)</span>
+        </label>
         {formIssue && <IssueLine issue={formIssue} kind="error" />}
         <div class="actions">
           <button type="submit" class="primary" disabled={busy}>

@@ -4,10 +4,10 @@
  * device stay; what the device changes is always sent.
  */
 
-import { useEffect, useState } from 'preact/hooks';
+import { useContext, useEffect, useState } from 'preact/hooks';
 import type { SiteDoc } from '../../store/schema';
 import type { ConnectionSettings, SyncService } from '../../sync/sync-service';
-import { useApp } from '../app-context';
+import { AppContext } from '../app-context';
 
 export function KeepSites({
   service,
@@ -18,13 +18,16 @@ export function KeepSites({
   connection: ConnectionSettings;
   onSaved: (keepSites: string[] | undefined) => void;
 }) {
-  const { repo, dataVersion } = useApp();
+  // Outside the app (a panel shown on its own) there is no site list to choose from.
+  const app = useContext(AppContext);
+  const repo = app?.repo;
+  const dataVersion = app?.dataVersion;
   const [sites, setSites] = useState<SiteDoc[]>([]);
   const [some, setSome] = useState(connection.keepSites !== undefined);
   const [chosen, setChosen] = useState(new Set(connection.keepSites ?? []));
   const [saved, setSaved] = useState(false);
   useEffect(() => {
-    repo.listSites().then((s) => setSites([...s].sort((a, b) => a.name.localeCompare(b.name))));
+    repo?.listSites().then((s) => setSites([...s].sort((a, b) => a.name.localeCompare(b.name))));
   }, [repo, dataVersion]);
   const save = async (e: Event) => {
     e.preventDefault();
@@ -45,6 +48,7 @@ export function KeepSites({
     setChosen(next);
     setSaved(false);
   };
+  if (!repo) return null;
   return (
     <form class="panel" onSubmit={save} aria-labelledby="keep-h">
       <h3 id="keep-h">Sites on this device</h3>

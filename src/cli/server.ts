@@ -6,7 +6,7 @@
 import { parseArgs } from 'node:util';
 import { isLoopback, startTeamServer } from '../server/team-server';
 import { checkDbName, parseAdmin, TeamError } from '../team/team-admin';
-import { type CliIo, EXIT_OK, EXIT_USAGE } from './io';
+import { type CliIo, EXIT_ROW_FAILED as EXIT_FAILED, EXIT_OK, EXIT_USAGE } from './io';
 
 export const SERVER_HELP = `tufa server — a team server on this computer, in one command
 
@@ -78,7 +78,8 @@ export async function runServer(args: string[], io: CliIo): Promise<number> {
   } catch (e) {
     if (e instanceof TeamError) {
       io.stderr.write(`error [${e.code}]: ${e.message}\n`);
-      return EXIT_USAGE;
+      // 2: the arguments cannot work; 1: the server could not do it.
+      return e.code.startsWith('team-bad-') ? EXIT_USAGE : EXIT_FAILED;
     }
     throw e;
   }

@@ -18,7 +18,7 @@ import {
   setupTeam,
   TeamError,
 } from '../team/team-admin';
-import { type CliIo, EXIT_OK, EXIT_USAGE } from './io';
+import { type CliIo, EXIT_ROW_FAILED as EXIT_FAILED, EXIT_OK, EXIT_USAGE } from './io';
 
 export const TEAM_HELP = `tufa team — a team database and its people on a CouchDB server (Apache CouchDB or tufa server)
 
@@ -117,7 +117,8 @@ export async function runTeam(args: string[], io: CliIo): Promise<number> {
   } catch (e) {
     if (e instanceof TeamError) {
       io.stderr.write(`error [${e.code}]: ${e.message}\n`);
-      return EXIT_USAGE;
+      // 2: the arguments cannot work; 1: the server could not do it.
+      return e.code.startsWith('team-bad-') ? EXIT_USAGE : EXIT_FAILED;
     }
     throw e;
   }

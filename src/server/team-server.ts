@@ -9,6 +9,7 @@
  * pouchdb-server hashes it (PBKDF2) when it starts, as CouchDB does with its ini files.
  */
 
+import { randomBytes } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { networkInterfaces } from 'node:os';
@@ -46,6 +47,10 @@ export function prepareDir(dir: string, admin: { name: string; password: string 
   config.log = { ...config.log, file: join(root, 'log.txt') };
   // Its request log goes to the file only (the command line flag for this is not read back).
   config.pouchdb_server = { ...config.pouchdb_server, 'no-stdout-logs': true };
+  // A fixed cookie secret, so sign-in sessions survive a restart (the default is new every start).
+  const auth = config.couch_httpd_auth ?? {};
+  if (typeof auth.secret !== 'string') auth.secret = randomBytes(16).toString('hex');
+  config.couch_httpd_auth = auth;
   config.admins = config.admins ?? {};
   if (!(admin.name in config.admins)) config.admins[admin.name] = admin.password;
   writeFileSync(configPath, `${JSON.stringify(config, null, 2)}\n`);

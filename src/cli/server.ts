@@ -61,7 +61,16 @@ export async function runServer(args: string[], io: CliIo): Promise<number> {
       io.stderr.write(
         `warning [server-plain-http]: listening on ${host} over plain http: passwords and readings cross the network readable. Use it only on a network you trust, or put https in front.\n`,
       );
-    const s = await startTeamServer({ dir, port, host, admin, db });
+    let s: Awaited<ReturnType<typeof startTeamServer>>;
+    try {
+      s = await startTeamServer({ dir, port, host, admin, db });
+    } catch (e) {
+      // The HTTP server may already listen in this process: end the process, not just the command.
+      io.stderr.write(
+        `error [${e instanceof TeamError ? e.code : 'team-server-error'}]: ${(e as Error).message}\n`,
+      );
+      process.exit(EXIT_FAILED);
+    }
     for (const x of s.report.created) io.stdout.write(`set up: ${x}\n`);
     for (const x of s.report.hints) io.stdout.write(`note: ${x}\n`);
     io.stdout.write(`Tufa team server running, data in ${dir}\n`);

@@ -106,6 +106,16 @@ export async function startTeamServer(o: ServerOptions): Promise<StartedServer> 
   createRequire(import.meta.url)('pouchdb-server/lib/index.js');
   await waitUp(probe);
   const target: AdminTarget = { url: probe, admin: o.admin };
-  const report = await setupTeam(target, o.db);
-  return { local, network: networkAddresses(o.host, o.port), report };
+  let report: SetupReport;
+  try {
+    report = await setupTeam(target, o.db);
+  } catch (e) {
+    if (e instanceof TeamError && e.code === 'team-auth-failed')
+      throw new TeamError(
+        e.code,
+        `${e.message} This folder's server already has its admins (config.json): use the password it was first started with.`,
+      );
+    throw e;
+  }
+  return { local: o.host === '0.0.0.0' ? probe : local, network: networkAddresses(o.host, o.port), report };
 }

@@ -121,5 +121,19 @@ describe('tufa server on disk', () => {
     await lead.engine.sync();
     await phone.engine.sync();
     expect((await phone.repo.listAllReadings()).length).toBe(61);
+    // A reading deleted through the CouchDB API leaves a stub without siteId: it still arrives.
+    const gone = local[0]!;
+    const head = (await (
+      await fetch(`${server.url}team/${gone.id}`, { headers: basic('lea', 'lea-pw') })
+    ).json()) as {
+      _rev: string;
+    };
+    const del = await fetch(`${server.url}team/${gone.id}?rev=${head._rev}`, {
+      method: 'DELETE',
+      headers: basic('lea', 'lea-pw'),
+    });
+    expect(del.status).toBe(200);
+    await phone.engine.sync();
+    expect((await phone.repo.getReading(gone.id))?.deleted).toBe(true);
   }, 120000);
 });

@@ -1,9 +1,58 @@
 import { fileURLToPath } from 'node:url';
 import preact from '@preact/preset-vite';
+import type { Plugin } from 'vite';
 import { VitePWA } from 'vite-plugin-pwa';
 import { defineConfig } from 'vitest/config';
 
 const here = (p: string) => fileURLToPath(new URL(p, import.meta.url));
+
+/**
+ * The Content-Security-Policy of the built app, set as a `<meta http-equiv>` tag by a build-only
+ * Vite plugin (the dev server injects inline styles and scripts for hot reload, so it has none).
+ * A meta tag works on any static host, including ones that cannot set headers.
+ *
+ * No inline script, no eval, no plugins; scripts, styles, workers, images and the manifest come
+ * from the app's own origin only. `connect-src` is the one open directive: the sync server is
+ * typed in by the user at run time, while a page's policy is fixed when it loads (a later meta
+ * tag can only narrow it). So it allows the app's origin, any https server, and plain http only
+ * on this device's loopback (a server on the same computer, and the tests); plain http elsewhere
+ * is refused, as a browser would refuse it from an https page anyway (mixed content).
+ * `frame-ancestors` cannot be set from a meta tag; a host that sends headers should add it.
+ */
+const CSP_DIRECTIVES: Record<string, string> = {
+  'default-src': "'self'",
+  'script-src': "'self'",
+  'style-src': "'self'",
+  'img-src': "'self' data: blob:",
+  'font-src': "'self'",
+  'worker-src': "'self'",
+  'manifest-src': "'self'",
+  'connect-src': "'self' https: http://localhost:* http://127.0.0.1:*",
+  'object-src': "'none'",
+  'base-uri': "'self'",
+  'form-action': "'self'",
+};
+
+const CSP = Object.entries(CSP_DIRECTIVES)
+  .map(([k, v]) => `${k} ${v}`)
+  .join('; ');
+
+function cspPlugin(): Plugin {
+  return {
+    name: 'tufa-csp',
+    apply: 'build',
+    transformIndexHtml: {
+      order: 'post',
+      handler: () => [
+        {
+          tag: 'meta',
+          attrs: { 'http-equiv': 'Content-Security-Policy', content: CSP },
+          injectTo: 'head-prepend',
+        },
+      ],
+    },
+  };
+}
 
 // The page lives in src/ (index.html there); static assets in public/; the build goes to dist/.
 export default defineConfig({
@@ -14,6 +63,7 @@ export default defineConfig({
   worker: { format: 'es' },
   plugins: [
     preact(),
+    cspPlugin(),
     VitePWA({
       strategies: 'injectManifest',
       srcDir: here('./sw'),

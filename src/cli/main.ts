@@ -8,7 +8,9 @@ import { runConvert } from './convert';
 import { type CliIo, EXIT_OK, EXIT_USAGE } from './io';
 import { runPlan } from './plan';
 import { runRecompute } from './recompute';
+import { runServer } from './server';
 import { runSolve } from './solve';
+import { runTeam } from './team';
 import { runTitrate } from './titrate';
 
 export type Command = (args: string[], io: CliIo) => Promise<number>;
@@ -34,6 +36,8 @@ export const COMMANDS: Record<string, { run: Command; summary: string }> = {
     run: runPlan,
     summary: 'what a water will be after a dose, CO2 exchange or mixing; the dose for a target',
   },
+  server: { run: runServer, summary: 'a team server on this computer (CouchDB API), set up in one command' },
+  team: { run: runTeam, summary: 'set up a team database, add and remove people, on any CouchDB server' },
 };
 
 export const MAIN_HELP = `tufa — carbonate system of natural waters

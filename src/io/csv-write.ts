@@ -11,6 +11,18 @@ export function csvField(value: string, delimiter = ','): string {
   return value;
 }
 
+const FORMULA_START = /^[=+\-@\t\r]/;
+const PLAIN_NUMBER = /^[+-]?(\d+([.,]\d*)?|[.,]\d+)([eE][+-]?\d+)?$/;
+
+/**
+ * A text cell a spreadsheet would run as a formula (starting with =, +, -, @, tab or carriage
+ * return; OWASP "CSV Injection") gets a leading apostrophe, which spreadsheets show as text.
+ * Plain numbers such as `-1.5` or `+3e-2` are left as they are.
+ */
+export function safeTextCell(value: string): string {
+  return FORMULA_START.test(value) && !PLAIN_NUMBER.test(value) ? `'${value}` : value;
+}
+
 export function csvRecord(fields: readonly string[], delimiter = ','): string {
   return fields.map((f) => csvField(f, delimiter)).join(delimiter);
 }

@@ -7,7 +7,7 @@
 
 import { isSolveError, type SolveResult } from '../chem/api';
 import { type ReadingRequest, type RequestSettings, readingRequest, sourcesText } from '../reading/request';
-import { writeCsv } from './csv-write';
+import { safeTextCell, writeCsv } from './csv-write';
 import type { ReadingDoc, SiteDoc } from './docs';
 import { formatNumber } from './numbers';
 import { KEY_ORDER } from './quantities';
@@ -119,13 +119,13 @@ export function exportReadingsCsv(
     const site = byId.get(r.siteId);
     const { values, options: opts } = converted[i]!;
     const out = [
-      r.id,
-      site?.name ?? '',
-      r.siteId,
+      safeTextCell(r.id),
+      safeTextCell(site?.name ?? ''),
+      safeTextCell(r.siteId),
       site?.kind ?? '',
-      site ? siteDefaultsText(site.defaults) : '',
+      site ? safeTextCell(siteDefaultsText(site.defaults)) : '',
       takenAtCell(r),
-      r.timeZone,
+      safeTextCell(r.timeZone),
       r.updatedAt,
       // Only a scale the reading names: a re-import must store the very same values (same reading).
       ...(hasScale ? [opts.ph_scale ?? ''] : []),
@@ -133,19 +133,23 @@ export function exportReadingsCsv(
       formatNumber(fromTitration(i, 'alkalinity_meq_l')),
       formatNumber(fromTitration(i, 'dic_umol_kg')),
       sourcesText(requests[i]!),
-      r.notes,
+      safeTextCell(r.notes),
     ];
     if (computing) {
       const res = resultOf(r, i);
       if (isSolveError(res)) {
-        out.push(...COMPUTED_COLUMNS.map(() => ''), '', `${res.error.code}: ${res.error.message}`);
+        out.push(
+          ...COMPUTED_COLUMNS.map(() => ''),
+          '',
+          safeTextCell(`${res.error.code}: ${res.error.message}`),
+        );
       } else {
         out.push(
           ...COMPUTED_COLUMNS.map((c) =>
             formatNumber(typeof res[c] === 'number' ? (res[c] as number) : undefined),
           ),
           res.model,
-          res.warnings.map((w) => `${w.code}: ${w.message}`).join(' | '),
+          safeTextCell(res.warnings.map((w) => `${w.code}: ${w.message}`).join(' | ')),
         );
       }
     }

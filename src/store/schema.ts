@@ -27,6 +27,9 @@ export interface DocBase {
   deleted: boolean;
   /** Server revision, set only by sync. */
   rev?: string;
+  /** Team servers: the user who created the doc and who changed it last (set when pushed). */
+  created_by?: string;
+  changed_by?: string;
 }
 
 export interface SiteLocation {

@@ -243,8 +243,12 @@ export class CouchClient {
   }
 
   /** One page of changes (ids and leaf revisions), as built by {@link changesRequest}. */
-  async changes(since: string | number, limit: number): Promise<ChangesPage> {
-    const req = changesRequest(since, limit);
+  async changes(
+    since: string | number,
+    limit: number,
+    selector?: Record<string, unknown>,
+  ): Promise<ChangesPage> {
+    const req = changesRequest(since, limit, selector);
     const r = await this.request<unknown>(req.method, req.path, req.body);
     if (r.status === 404)
       throw new SyncError(

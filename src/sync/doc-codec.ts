@@ -7,9 +7,21 @@
 import type { TufaDoc } from '../io/docs';
 import type { CouchDoc } from './couch-client';
 
-export function toCouch(doc: TufaDoc): CouchDoc {
+export function toCouch(doc: TufaDoc, author?: string): CouchDoc {
   const { id, rev, ...rest } = doc;
-  return rev === undefined || rev === null ? { _id: id, ...rest } : { _id: id, _rev: rev, ...rest };
+  const c: CouchDoc =
+    rev === undefined || rev === null ? { _id: id, ...rest } : { _id: id, _rev: rev, ...rest };
+  return author ? stampAuthor(c, author) : c;
+}
+
+/**
+ * Who made a doc and who changed it last, for a team server whose rules check both against the
+ * signed-in user (`src/team/validate-source.ts`): `created_by` stays as the server first recorded
+ * it (set to the author on a doc that has none), `changed_by` is the author of this push.
+ */
+export function stampAuthor(c: CouchDoc, author: string): CouchDoc {
+  const created = typeof c.created_by === 'string' && c.created_by ? c.created_by : author;
+  return { ...c, created_by: created, changed_by: author };
 }
 
 /** Our doc from a server doc, or `undefined` for a CouchDB deletion of a doc we never had. */

@@ -15,7 +15,18 @@ export interface PullRequest {
   body?: unknown;
 }
 
-export function changesRequest(since: string | number, limit: number): PullRequest {
+/**
+ * With a Mango `selector` (partial sync: only the sites this device keeps): `filter=_selector`,
+ * the selector in the body (CouchDB 2+) and also in the query (pouchdb-server reads it only there).
+ */
+export function changesRequest(
+  since: string | number,
+  limit: number,
+  selector?: Record<string, unknown>,
+): PullRequest {
   const q = new URLSearchParams({ since: String(since), limit: String(limit), style: 'all_docs' });
-  return { method: 'GET', path: `_changes?${q}` };
+  if (!selector) return { method: 'GET', path: `_changes?${q}` };
+  q.set('filter', '_selector');
+  q.set('selector', JSON.stringify(selector));
+  return { method: 'POST', path: `_changes?${q}`, body: { selector } };
 }

@@ -10,7 +10,7 @@ import type { CouchClient, CouchDoc } from './couch-client';
 import { fromCouch, sameContent, toCouch } from './doc-codec';
 import type { SetAsideDoc } from './quarantine';
 import type { SyncRunResult, SyncStatus } from './sync-engine';
-import { SyncError, syncIssue } from './sync-issues';
+import { rejectedDocIssue, SyncError, syncIssue } from './sync-issues';
 import type { SyncStore } from './sync-store';
 
 export interface PushContext {
@@ -18,6 +18,8 @@ export interface PushContext {
   client: CouchClient;
   pushBatch: number;
   now: () => Date;
+  /** The signed-in user, stamped as `created_by` / `changed_by` (team servers check them). */
+  author?: string | undefined;
   /** Revisions pushed in this session, so the next pull can skip them without a store read. */
   pushedRevs: Map<string, string>;
   putAside(docs: SetAsideDoc[]): Promise<void>;
@@ -90,7 +92,7 @@ async function pushBatch(
   total: SyncRunResult,
   rejected: Issue[],
 ): Promise<Pushed[]> {
-  const rows = await ctx.client.bulkDocs(sent.map(toCouch));
+  const rows = await ctx.client.bulkDocs(sent.map((d) => toCouch(d, ctx.author)));
   const byId = new Map(rows.map((r) => [r.id, r]));
   const ok: Pushed[] = [];
   const missing: string[] = [];
@@ -106,7 +108,7 @@ async function pushBatch(
     } else if (row.error === 'conflict') {
       const got = onServer.get(d.id);
       const server = got && !got._deleted ? got : undefined;
-      if (server && sameContent(server, toCouch(d))) {
+      if (server && sameContent(server, toCouch(d, ctx.author))) {
         ok.push({ docId: d.id, rev: server._rev!, updatedAt: d.updatedAt, type: d.type }); // our earlier write, answer lost
       } else if (!server) {
         // Not readable: deleted on the server (a tombstone leaf) or never there (database recreated).
@@ -150,17 +152,14 @@ async function pushBatch(
         }
       }
     } else {
-      rejected.push(
-        syncIssue(
-          'sync-doc-rejected',
-          `The server refused ${d.type} ${d.id}: ${row.error ?? 'no revision in the answer'}${row.reason ? ` (${row.reason})` : ''}.`,
-        ),
-      );
+      rejected.push(rejectedDocIssue(d.type, d.id, row.error, row.reason));
     }
   }
   if (fresh.length) {
     // The server has no trace of these: send them as new documents.
-    const again = await ctx.client.bulkDocs(fresh.map((d) => toCouch({ ...d, rev: undefined } as TufaDoc)));
+    const again = await ctx.client.bulkDocs(
+      fresh.map((d) => toCouch({ ...d, rev: undefined } as TufaDoc, ctx.author)),
+    );
     for (const r of again) {
       const d = fresh.find((x) => x.id === r.id);
       if (d && r.rev && r.error === undefined)

@@ -61,6 +61,13 @@ export interface SyncOptions {
   sleep?: (ms: number) => Promise<void>;
   now?: () => Date;
   random?: () => number;
+  /** Team servers: the signed-in user, stamped as `changed_by` (and `created_by` on new docs). */
+  author?: string;
+  /**
+   * Partial sync: pull only the docs this Mango selector matches (filtered `_changes`), e.g.
+   * `pullSelector(siteIds)` from `./partial-sync.ts`. A new selector starts a new checkpoint.
+   */
+  pullSelector?: Record<string, unknown> | null;
 }
 
 export interface SyncRunResult {
@@ -116,6 +123,8 @@ export class SyncEngine {
       sleep: (ms) => new Promise((r) => setTimeout(r, ms)),
       now: () => new Date(),
       random: Math.random,
+      author: '',
+      pullSelector: null,
       ...options,
     };
   }
@@ -180,6 +189,7 @@ export class SyncEngine {
             client: this.client,
             pushBatch: this.o.pushBatch,
             now: this.o.now,
+            author: this.o.author,
             pushedRevs: this.pushedRevs,
             putAside: (d) => this.putAside(d),
             unusableOther: (a, b, c) => this.unusableOther(a, b, c),
@@ -222,7 +232,7 @@ export class SyncEngine {
    * database was recreated or restored: everything local is queued again (pushes are idempotent).
    */
   private async startSeq(): Promise<string | number> {
-    const local = await this.store.getMeta<string | number>(CHECKPOINT);
+    const local = await this.store.getMeta<string | number>(this.checkpointKey());
     if (local === undefined) return 0;
     const remote = await this.client.getLocal<{ last_seq?: string | number }>(this.checkpointName());
     if (!remote) {
@@ -232,11 +242,16 @@ export class SyncEngine {
     return String(remote.last_seq) === String(local) ? local : 0;
   }
 
+  private checkpointKey(): string {
+    const sel = this.o.pullSelector;
+    return sel ? `${CHECKPOINT}:${JSON.stringify(sel)}` : CHECKPOINT;
+  }
+
   private async pull(total: SyncRunResult): Promise<void> {
     let since = await this.startSeq();
     const visited = new Set([String(since)]);
     for (let pages = 1; ; pages++) {
-      const page = await this.client.changes(since, this.o.pullLimit);
+      const page = await this.client.changes(since, this.o.pullLimit, this.o.pullSelector ?? undefined);
       if (page.badRows.length) {
         await this.putAside(
           page.badRows.map((reason, i) => ({
@@ -266,7 +281,7 @@ export class SyncEngine {
       if (fetched > 0 || !full || pages % 10 === 0) {
         // Server copy first: a device checkpoint without one would look like a server reset.
         await this.client.putLocal(this.checkpointName(), { last_seq: since, device: this.o.deviceId });
-        await this.store.setMeta(CHECKPOINT, since);
+        await this.store.setMeta(this.checkpointKey(), since);
       }
       if (!full) return;
       if (pages >= this.o.maxPullPages) {

@@ -25,7 +25,9 @@ export type SyncCode =
   /** The server keeps answering without moving on (same or earlier `last_seq` on full pages). */
   | 'sync-no-progress'
   /** Something failed inside Tufa itself during sync; the data on this device is untouched. */
-  | 'sync-internal';
+  | 'sync-internal'
+  /** The server refused a change for this user's role (HTTP 403); it stays on the device. */
+  | 'sync-doc-forbidden';
 
 export class SyncError extends Error {
   readonly code: SyncCode;
@@ -45,4 +47,26 @@ export class SyncError extends Error {
 
 export function syncIssue(code: SyncCode, message: string, field?: string): Issue {
   return field === undefined ? { code, message } : { code, message, field };
+}
+
+/**
+ * A document the server refused in a `_bulk_docs` row. `forbidden` is a team server's rule (role,
+ * authorship or document shape: `src/team/validate-source.ts`), said plainly with the server's
+ * reason; the change stays on this device and in the outbox, so nothing typed is lost.
+ */
+export function rejectedDocIssue(
+  type: string,
+  id: string,
+  error: string | undefined,
+  reason?: string,
+): Issue {
+  if (error === 'forbidden' || error === 'unauthorized')
+    return syncIssue(
+      'sync-doc-forbidden',
+      `The server did not accept your change to this ${type}: ${(reason ?? 'your role does not allow it').replace(/\.$/, '')}. Your change is kept on this device; ask a lead of your team, or undo it.`,
+    );
+  return syncIssue(
+    'sync-doc-rejected',
+    `The server refused ${type} ${id}: ${error ?? 'no revision in the answer'}${reason ? ` (${reason})` : ''}.`,
+  );
 }

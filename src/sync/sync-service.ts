@@ -12,6 +12,7 @@
 import type { Issue } from '../chem/errors';
 import type { TufaDoc } from '../io/docs';
 import { type Auth, CouchClient, type Fetch } from './couch-client';
+import { pullSelector } from './partial-sync';
 import { checkDbName, checkServerUrl } from './server-url';
 import { SyncEngine, type SyncStatus } from './sync-engine';
 import { syncIssue } from './sync-issues';
@@ -25,6 +26,8 @@ export interface ConnectionSettings {
   password: string;
   /** Keep the password in this device's database (default: only in memory for this session). */
   remember?: boolean;
+  /** Partial sync: the ids of the sites this device keeps (absent: every site). */
+  keepSites?: string[];
 }
 
 const CONNECTION = 'connection';
@@ -108,7 +111,11 @@ export class SyncService {
     }
     const client = new CouchClient({ url: url.url.href, db: c.db, auth: authOf(c) }, this.fetchImpl);
     this.unsubscribe?.();
-    this.engine = new SyncEngine(this.store, client, { deviceId: await this.deviceId() });
+    this.engine = new SyncEngine(this.store, client, {
+      deviceId: await this.deviceId(),
+      author: c.auth === 'none' ? undefined : c.user,
+      pullSelector: c.keepSites ? pullSelector(c.keepSites) : null,
+    });
     // Counts first, then listen: the engine's initial status (nothing pending) is not the truth yet.
     await this.engine.refreshStatus();
     this.unsubscribe = this.engine.subscribe((s) => this.emit(s));
@@ -148,6 +155,15 @@ export class SyncService {
     });
     await this.start();
     return checked;
+  }
+
+  /** Partial sync: the sites this device pulls (`undefined`: all). Applies from the next sync. */
+  async setKeepSites(ids: string[] | undefined): Promise<void> {
+    const c = await this.store.getMeta<ConnectionSettings>(CONNECTION);
+    if (!c) return;
+    const { keepSites: _, ...rest } = c;
+    await this.store.setMeta(CONNECTION, ids ? { ...rest, keepSites: ids } : rest);
+    await this.start();
   }
 
   async disconnect(): Promise<void> {

@@ -44,7 +44,7 @@ async function rawPost(serverUrl: string, db: string, docs: ReadingDoc[]): Promi
     const res = await fetch(`${serverUrl}${db}/_bulk_docs`, {
       method: 'POST',
       headers: { 'content-type': 'application/json', accept: 'application/json' },
-      body: JSON.stringify({ docs: docs.slice(i, i + RAW_BATCH).map(toCouch) }),
+      body: JSON.stringify({ docs: docs.slice(i, i + RAW_BATCH).map((d) => toCouch(d)) }),
     });
     await res.json();
   }

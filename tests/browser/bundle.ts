@@ -31,5 +31,7 @@ export async function appModulesBundle(): Promise<string> {
 /** Makes `window.TufaModules` (openRepository, createTimeChart, mergeSeries, decimate) available. */
 export async function injectAppModules(page: Page): Promise<void> {
   if (await page.evaluate(() => 'TufaModules' in window)) return;
-  await page.addScriptTag({ content: await appModulesBundle() });
+  // Evaluated through the DevTools protocol, not as an inline <script>, which the app's
+  // Content-Security-Policy forbids (see vite.config.ts).
+  await page.evaluate(`${await appModulesBundle()};window.TufaModules = TufaModules;undefined`);
 }

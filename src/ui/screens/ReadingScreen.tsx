@@ -6,6 +6,7 @@ import { isSolveError } from '../../chem/api';
 import type { ReadingRequest } from '../../reading/request';
 import { storeIssue } from '../../store/errors';
 import type { ReadingDoc, SiteDoc } from '../../store/schema';
+import { teamRefusal } from '../../team/roles';
 import { useApp } from '../app-context';
 import { drawSpeciation, fractionsAt } from '../charts/speciation';
 import { solveReadingInWorker } from '../engine-client';
@@ -13,6 +14,7 @@ import { formatDateTime, formatNumber } from '../numbers';
 import { asSavedPlan } from '../plan/saved-plan';
 import { quantity } from '../quantities';
 import { go } from '../router';
+import { useTeamIdentity } from '../sync/TeamRole';
 import { METHOD_LABELS } from '../titration';
 import { InputsUsed } from './InputsUsed';
 import { ResultsPanel } from './ResultsPanel';
@@ -73,7 +75,8 @@ function Speciation(props: { result: SolveOutput }) {
 type PlanPanelType = typeof import('../plan/PlanPanel').PlanPanel;
 
 export function ReadingScreen(props: { readingId: string }) {
-  const { repo, settings, locale, notify, dataChanged, reportError } = useApp();
+  const { repo, settings, locale, notify, dataChanged, reportError, sync } = useApp();
+  const who = useTeamIdentity(sync);
   const [reading, setReading] = useState<ReadingDoc | null>();
   const [site, setSite] = useState<SiteDoc>();
   const [result, setResult] = useState<SolveResult>();
@@ -121,6 +124,7 @@ export function ReadingScreen(props: { readingId: string }) {
 
   const ok = result && !isSolveError(result) ? result : undefined;
   const savedPlan = asSavedPlan(reading.plan);
+  const refusal = teamRefusal(who, reading);
   return (
     <article aria-labelledby="reading-h">
       <div class="titlebar">
@@ -130,10 +134,22 @@ export function ReadingScreen(props: { readingId: string }) {
             <a href={`#/site/${reading.siteId}`}>{site?.name ?? 'Site'}</a> ·{' '}
             {formatDateTime(reading.takenAt, reading.timeZone, locale)} ({reading.timeZone})
           </p>
+          {reading.created_by && (
+            <p class="muted small">
+              Entered by {reading.created_by}
+              {reading.changed_by && reading.changed_by !== reading.created_by
+                ? ` · last changed by ${reading.changed_by}`
+                : ''}
+            </p>
+          )}
         </div>
-        <a class="button" href={`#/reading/${reading.id}/edit`}>
-          Edit
-        </a>
+        {refusal ? (
+          <p class="muted small team-refusal">{refusal}</p>
+        ) : (
+          <a class="button" href={`#/reading/${reading.id}/edit`}>
+            Edit
+          </a>
+        )}
       </div>
       <section class="panel" aria-labelledby="measured-h">
         <h2 id="measured-h">Measured</h2>
@@ -278,12 +294,16 @@ export function ReadingScreen(props: { readingId: string }) {
         )}
       </section>
       <div class="actions">
-        <a class="button primary" href={`#/site/${reading.siteId}/new-reading`}>
-          Another reading here
-        </a>
-        <button type="button" class="danger" onClick={remove}>
-          Delete reading
-        </button>
+        {!teamRefusal(who) && (
+          <a class="button primary" href={`#/site/${reading.siteId}/new-reading`}>
+            Another reading here
+          </a>
+        )}
+        {!refusal && (
+          <button type="button" class="danger" onClick={remove}>
+            Delete reading
+          </button>
+        )}
       </div>
     </article>
   );

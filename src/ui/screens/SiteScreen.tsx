@@ -6,6 +6,7 @@
 import { useEffect, useRef, useState } from 'preact/hooks';
 import { storeIssue } from '../../store/errors';
 import type { ReadingDoc, SiteDoc } from '../../store/schema';
+import { teamRefusal } from '../../team/roles';
 import { useApp } from '../app-context';
 import type { Columnar, PointSeries } from '../charts/chart-data';
 import { mergeSeries } from '../charts/chart-data';
@@ -15,6 +16,7 @@ import { formatDateTime, formatNumber } from '../numbers';
 import { OUTPUTS } from '../outputs';
 import { quantity } from '../quantities';
 import { go } from '../router';
+import { useTeamIdentity } from '../sync/TeamRole';
 import { kindLabel } from './SitesScreen';
 
 const PAGE = 50;
@@ -44,7 +46,8 @@ function seriesOptions(readings: ReadingDoc[]): { id: string; label: string; uni
 }
 
 export function SiteScreen(props: { siteId: string }) {
-  const { repo, settings, locale, dataVersion, reportError, dataChanged } = useApp();
+  const { repo, settings, locale, dataVersion, reportError, dataChanged, sync } = useApp();
+  const who = useTeamIdentity(sync);
   const [exporting, setExporting] = useState(false);
   const [site, setSite] = useState<SiteDoc | null>();
   const [readings, setReadings] = useState<ReadingDoc[]>([]);
@@ -155,9 +158,13 @@ export function SiteScreen(props: { siteId: string }) {
             {readings.length === 1 ? 'reading' : 'readings'}
           </p>
         </div>
-        <a class="button primary" href={`#/site/${props.siteId}/new-reading`}>
-          New reading
-        </a>
+        {teamRefusal(who) ? (
+          <p class="muted small team-refusal">{teamRefusal(who)}</p>
+        ) : (
+          <a class="button primary" href={`#/site/${props.siteId}/new-reading`}>
+            New reading
+          </a>
+        )}
       </div>
 
       <section class="panel" aria-labelledby="chart-h">
@@ -247,9 +254,13 @@ export function SiteScreen(props: { siteId: string }) {
         )}
       </section>
       <div class="actions">
-        <a class="button" href={`#/site/${props.siteId}/edit`}>
-          Edit site
-        </a>
+        {site && teamRefusal(who, site) ? (
+          <p class="muted small team-refusal">{teamRefusal(who, site)}</p>
+        ) : (
+          <a class="button" href={`#/site/${props.siteId}/edit`}>
+            Edit site
+          </a>
+        )}
         <button
           type="button"
           disabled={exporting || readings.length === 0}
@@ -269,27 +280,29 @@ export function SiteScreen(props: { siteId: string }) {
         >
           {exporting ? 'Preparing CSV…' : 'Download CSV of this site'}
         </button>
-        <button
-          type="button"
-          class="danger"
-          onClick={async () => {
-            if (
-              !confirm(
-                `Delete “${site?.name}” and its readings from this device? They are kept as deleted entries for sync.`,
+        {!(site && teamRefusal(who, site)) && (
+          <button
+            type="button"
+            class="danger"
+            onClick={async () => {
+              if (
+                !confirm(
+                  `Delete “${site?.name}” and its readings from this device? They are kept as deleted entries for sync.`,
+                )
               )
-            )
-              return;
-            try {
-              await repo.deleteSite(props.siteId);
-              dataChanged();
-              go({ name: 'sites' });
-            } catch (e) {
-              reportError(storeIssue(e));
-            }
-          }}
-        >
-          Delete site
-        </button>
+                return;
+              try {
+                await repo.deleteSite(props.siteId);
+                dataChanged();
+                go({ name: 'sites' });
+              } catch (e) {
+                reportError(storeIssue(e));
+              }
+            }}
+          >
+            Delete site
+          </button>
+        )}
       </div>
     </section>
   );

@@ -10,7 +10,9 @@ import type { SyncStatus } from '../../sync/sync-engine';
 import { type ConnectionSettings, checkConnection, type SyncService } from '../../sync/sync-service';
 import type { ConflictRecord } from '../../sync/sync-store';
 import { differingFields, fieldLabel, mergeVersions, showValue } from './conflict-fields';
+import { KeepSites } from './KeepSites';
 import { SYNC_PANEL_HASH } from './SyncBadge';
+import { TeamRole } from './TeamRole';
 
 const EMPTY: ConnectionSettings = { url: '', db: 'tufa', auth: 'session', user: '', password: '' };
 
@@ -150,10 +152,14 @@ export function SyncPanel({
   const [status, setStatus] = useState<SyncStatus>();
   const [conflicts, setConflicts] = useState<ConflictRecord[]>([]);
   const [busy, setBusy] = useState(false);
+  const [connected, setConnected] = useState<ConnectionSettings>();
 
   const reloadConflicts = () => service.conflicts().then(setConflicts);
   useEffect(() => {
-    service.connection().then((c) => c && setForm({ ...c, password: c.password }));
+    service.connection().then((c) => {
+      if (c) setForm({ ...c, password: c.password });
+      setConnected(c);
+    });
     const stop = service.subscribe((s) => {
       setStatus(s);
       if (s.state === 'idle' || s.state === 'error') reloadConflicts();
@@ -187,6 +193,7 @@ export function SyncPanel({
     setFormIssue('error' in r ? r.error : undefined);
     if (!('error' in r)) {
       setWarnings(r.warnings);
+      setConnected(form);
       await service.syncNow();
       onDataChanged?.();
     }
@@ -234,6 +241,7 @@ export function SyncPanel({
             kind={status.state === 'error' && status.error.code !== 'sync-not-configured' ? 'error' : 'warn'}
           />
         )}
+        <TeamRole connection={connected} status={status} />
         {status?.rejected.map((r) => (
           <IssueLine key={r.message} issue={r} kind="error" />
         ))}
@@ -257,6 +265,15 @@ export function SyncPanel({
           </button>
         </div>
       </div>
+
+      {connected && (
+        <KeepSites
+          key={`${connected.url}|${connected.db}`}
+          service={service}
+          connection={connected}
+          onSaved={(keepSites) => setForm((f) => ({ ...f, keepSites }))}
+        />
+      )}
 
       {conflicts.length > 0 && (
         <section aria-labelledby="conflicts-h">
@@ -339,6 +356,14 @@ export function SyncPanel({
             </p>
           </>
         )}
+        <label class="check">
+          <input
+            type="checkbox"
+            checked={form.keepSites !== undefined}
+            onChange={(e) => set({ keepSites: e.currentTarget.checked ? (form.keepSites ?? []) : undefined })}
+          />
+          <span>Fetch only the sites I choose (a large team database: choose them below once connected)</span>
+        </label>
         {formIssue && <IssueLine issue={formIssue} kind="error" />}
         <div class="actions">
           <button type="submit" class="primary" disabled={busy}>

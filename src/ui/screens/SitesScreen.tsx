@@ -12,8 +12,11 @@ const KIND_LABEL: Record<SiteDoc['kind'], string> = {
   well: 'Well',
   lake: 'Lake',
   pond: 'Pond',
-  tank: 'Tank',
+  tank: 'Freshwater tank',
   other: 'Other',
+  reef: 'Reef tank',
+  raceway: 'Raceway',
+  recirculating: 'Recirculating system',
 };
 
 export function kindLabel(k: SiteDoc['kind']): string {

@@ -1,0 +1,5 @@
+/** What can be measured, in which units, how it reaches the engine, and what each trade expects. */
+
+export * from './request';
+export * from './table';
+export * from './trades';

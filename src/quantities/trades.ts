@@ -87,8 +87,9 @@ export function tradeQuantities(p: Profile): string[] {
   if (p.trade === 'aquarium' && p.saline)
     return ['temperature', 'ph', 'alkalinity', 'salinity', 'calcium', 'magnesium'];
   if (p.trade === 'aquaculture') return ['temperature', 'ph', 'alkalinity', 'calcium', 'ammonia'];
-  const base = ['temperature', 'ph', 'alkalinity'];
-  return [...base, p.saline ? 'salinity' : 'conductance'];
+  const base = ['temperature', 'ph', 'alkalinity', p.saline ? 'salinity' : 'conductance'];
+  // Calcium gives a hydrologist the saturation index (and the degassing sentence its SI).
+  return p.trade === 'field' ? [...base, 'calcium'] : base;
 }
 
 /**

@@ -73,15 +73,29 @@ export function numericOutputs(result: Record<string, unknown>): { def: OutputDe
   return out;
 }
 
+/**
+ * Outputs that mean nothing for this water: seawater pH scales in fresh water (the fresh model
+ * reports pH as activity; total, free and seawater coincide there) and seawater totals that are
+ * zero because fresh water has no assumed boron, sulfate or fluoride.
+ */
+export function visibleOutput(
+  row: { def: OutputDef; value: number },
+  result: Record<string, unknown>,
+): boolean {
+  if (result.model === 'fresh' && ['ph_total', 'ph_free', 'ph_seawater'].includes(row.def.key)) return false;
+  if (row.def.key.endsWith('_total_umol_kg') && row.value === 0) return false;
+  return true;
+}
+
 const PAIR_LABELS: Record<string, string> = {
   alkalinity_umol_kg: 'alkalinity',
   dic_umol_kg: 'DIC',
   ph: 'pH',
   pco2_uatm: 'pCO₂',
   fco2_uatm: 'fCO₂',
-  co2_umol_kg: 'CO₂*',
-  hco3_umol_kg: 'HCO₃⁻',
-  co3_umol_kg: 'CO₃²⁻',
+  co2_umol_kg: 'dissolved CO₂',
+  hco3_umol_kg: 'bicarbonate',
+  co3_umol_kg: 'carbonate',
 };
 
 /** "alkalinity + pH" for the pair a result was solved from. */

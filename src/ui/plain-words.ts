@@ -20,6 +20,8 @@ export function plainKey(key: string): string {
   const known = KEY_WORDS.get(key);
   if (known) return known;
   if (key === 'ph') return 'pH';
+  const sp = /^pksp_(\w+)$/.exec(key);
+  if (sp) return `${sp[1]} solubility`;
   const pk = /^pk(\w+)$/.exec(key);
   if (pk) return `pK${pk[1]}`;
   return key;

@@ -8,7 +8,7 @@ describe('engine keys in words', () => {
     expect(plainKey('temperature_c')).toBe('Temperature (°C)');
     expect(plainKey('ph')).toBe('pH');
     expect(plainKey('pk1')).toBe('pK1');
-    expect(plainKey('pksp_calcite')).toBe('pKsp_calcite');
+    expect(plainKey('pksp_calcite')).toBe('calcite solubility'); // no engine key on screen (issue 11)
   });
   it('rewrites every snake_case key in a message and leaves other words alone', () => {
     expect(

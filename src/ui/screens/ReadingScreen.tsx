@@ -4,13 +4,13 @@ import { useEffect, useRef, useState } from 'preact/hooks';
 import type { SolveOutput, SolveResult } from '../../chem/api';
 import { isSolveError } from '../../chem/api';
 import type { TitrateOutcome } from '../../chem/titration/titrate';
+import { quantityById as quantity, siteProfile } from '../../quantities';
 import { storeIssue } from '../../store/errors';
 import type { ReadingDoc, SiteDoc } from '../../store/schema';
 import { useApp } from '../app-context';
 import { drawSpeciation, fractionsAt } from '../charts/speciation';
 import { solveInWorker, titrateInWorker } from '../engine-client';
 import { formatDateTime, formatNumber } from '../numbers';
-import { quantity } from '../quantities';
 import { go } from '../router';
 import { readingInput } from '../solve-context';
 import { METHOD_LABELS, titrationInput, withTitration } from '../titration';
@@ -31,30 +31,45 @@ function Speciation(props: { result: SolveOutput }) {
       : props.result.ph_total
   ) as number | undefined;
   const axis = fresh ? 'pH (activity)' : 'pH (total scale)';
+  // On the total scale the sample sits below what the meter read (NBS): say both, so a reef
+  // keeper who read 8.05 does not wonder where 7.91 came from.
+  const meter = props.result.ph_nbs;
+  const marker =
+    !fresh && samplePh !== undefined && typeof meter === 'number'
+      ? `meter ${formatNumber(meter, locale, { decimals: 2 })} = ${formatNumber(samplePh, locale, { decimals: 2 })} here`
+      : undefined;
   useEffect(() => {
     const c = ref.current;
     if (!c || pk1 === undefined || pk2 === undefined) return;
     const draw = () => {
       const css = getComputedStyle(document.documentElement);
       const v = (n: string, d: string) => css.getPropertyValue(n).trim() || d;
-      drawSpeciation(c, pk1, pk2, samplePh, axis, {
-        text: v('--text', '#1b1f23'),
-        grid: v('--grid', '#d5d9dc'),
-        colours: [v('--s1', '#3d55b8'), v('--s2', '#0b6e69'), v('--s3', '#b4451f')],
-        marker: v('--text', '#1b1f23'),
-      });
+      drawSpeciation(
+        c,
+        pk1,
+        pk2,
+        samplePh,
+        axis,
+        {
+          text: v('--text', '#1b1f23'),
+          grid: v('--grid', '#d5d9dc'),
+          colours: [v('--s1', '#3d55b8'), v('--s2', '#0b6e69'), v('--s3', '#b4451f')],
+          marker: v('--text', '#1b1f23'),
+        },
+        marker,
+      );
     };
     draw();
     const ro = new ResizeObserver(draw);
     ro.observe(c);
     return () => ro.disconnect();
-  }, [pk1, pk2, samplePh]);
+  }, [pk1, pk2, samplePh, marker]);
   if (pk1 === undefined || pk2 === undefined)
     return <p class="muted">The engine did not report pK1 and pK2; no diagram.</p>;
   const f = samplePh !== undefined ? fractionsAt(samplePh, pk1, pk2) : undefined;
   const pct = (x: number) => `${formatNumber(100 * x, locale, { decimals: 1 })} %`;
   const label = f
-    ? `Speciation diagram. At the sample's pH ${samplePh!.toFixed(2)}: CO2* ${pct(f.co2)}, bicarbonate ${pct(f.hco3)}, carbonate ${pct(f.co3)}.`
+    ? `Speciation diagram. At the sample's pH ${samplePh!.toFixed(2)}: dissolved CO₂ ${pct(f.co2)}, bicarbonate ${pct(f.hco3)}, carbonate ${pct(f.co3)}.`
     : 'Speciation diagram.';
   return (
     <figure class="speciation">
@@ -62,7 +77,9 @@ function Speciation(props: { result: SolveOutput }) {
       <figcaption>
         Share of dissolved inorganic carbon against pH for this water (pK1{' '}
         {formatNumber(pk1, locale, { decimals: 3 })}, pK2 {formatNumber(pk2, locale, { decimals: 3 })}).
-        {f && ` At the sample: CO₂* ${pct(f.co2)}, HCO₃⁻ ${pct(f.hco3)}, CO₃²⁻ ${pct(f.co3)}.`}
+        {f &&
+          ` At the sample: dissolved CO₂ ${pct(f.co2)}, bicarbonate ${pct(f.hco3)}, carbonate ${pct(f.co3)}.`}
+        {marker && ' The line marks the sample on the total scale the sea-water constants use.'}
       </figcaption>
     </figure>
   );
@@ -176,7 +193,7 @@ export function ReadingScreen(props: { readingId: string }) {
       )}
       <section class="panel" aria-labelledby="computed-h">
         <h2 id="computed-h">Computed</h2>
-        <ResultsPanel result={result} full />
+        <ResultsPanel result={result} full profile={siteProfile(site)} values={reading.values} />
       </section>
       {ok && (
         <>

@@ -32,6 +32,9 @@ export interface PanelForm {
   mixSalinity: string;
   mixAlkalinity: string;
   mixPh: string;
+  /** Ponds: surface area (m²) and mean depth (m) give the volume and a dose per hectare. */
+  areaM2: string;
+  depthM: string;
 }
 
 export const DEFAULT_FORM: PanelForm = {
@@ -54,6 +57,8 @@ export const DEFAULT_FORM: PanelForm = {
   mixSalinity: '',
   mixAlkalinity: '',
   mixPh: '',
+  areaM2: '',
+  depthM: '',
 };
 
 export class FieldError extends Error {
@@ -87,7 +92,20 @@ export function planRequest(
   reading: Readonly<Record<string, unknown>>,
   f: PanelForm,
 ): Record<string, unknown> {
-  const volume = need(f.volumeL, 'volumeL', 'Water volume (L)');
+  const area = parseDecimal(f.areaM2, 'areaM2', 'Pond area (m²)');
+  const depth = parseDecimal(f.depthM, 'depthM', 'Mean depth (m)');
+  if ((area === undefined) !== (depth === undefined))
+    throw new FieldError(
+      area === undefined ? 'areaM2' : 'depthM',
+      'Give both the pond area and its mean depth.',
+    );
+  if (area !== undefined && depth !== undefined && (area <= 0 || depth <= 0))
+    throw new FieldError(area <= 0 ? 'areaM2' : 'depthM', 'Pond area and depth must be greater than zero.');
+  // 1 m³ = 1000 L: area × depth is the pond's volume.
+  const volume =
+    area !== undefined && depth !== undefined
+      ? area * depth * 1000
+      : need(f.volumeL, 'volumeL', 'Water volume (L)');
   let action: Record<string, unknown>;
   switch (f.action) {
     case 'add': {
@@ -175,7 +193,37 @@ export function compareRows(before: SolveOutput, after: SolveOutput): CompareRow
     if (ix >= 0 || iy >= 0) return (ix < 0 ? 99 : ix) - (iy < 0 ? 99 : iy);
     return x.localeCompare(y);
   });
-  return keys.map((k) => ({ key: k, label: outputLabel(k), before: a[k], after: b[k] }));
+  const fresh = before.model === 'fresh' && after.model === 'fresh';
+  return (
+    keys
+      // Zero before and after (no boron or sulfate in a fresh water, calcium not measured) says
+      // nothing; seawater pH scales mean nothing in fresh water.
+      .filter((k) => !(a[k] === 0 && b[k] === 0) && !(a[k] === undefined && b[k] === 0))
+      .filter((k) => !(fresh && ['ph_total', 'ph_free', 'ph_seawater'].includes(k)))
+      .map((k) => ({ key: k, label: outputLabel(k), before: a[k], after: b[k] }))
+  );
+}
+
+/** A change after − before, with rounding noise of the two values taken as zero. */
+export function change(before: number, after: number): number {
+  const d = after - before;
+  return Math.abs(d) <= 1e-9 * Math.max(Math.abs(before), Math.abs(after)) ? 0 : d;
+}
+
+/** A mass as a person weighs it: g below 1 kg, kg below 1 t, then t. */
+export function massText(g: number): string {
+  const a = Math.abs(g);
+  if (a >= 1e6) return `${show(g / 1e6)} t`;
+  if (a >= 1000) return `${show(g / 1000)} kg`;
+  return `${show(g)} g`;
+}
+
+/** A volume of liquid: mL below 1 L, then L (and m³ above 10 000 L). */
+export function volumeText(ml: number): string {
+  const a = Math.abs(ml);
+  if (a >= 1e7) return `${show(ml / 1e6)} m³`;
+  if (a >= 1000) return `${show(ml / 1000)} L`;
+  return `${show(ml)} mL`;
 }
 
 /** Fractions of DIC as CO2*, HCO3- and CO3--. */
@@ -184,10 +232,10 @@ export function speciation(s: SolveOutput): { co2: number; hco3: number; co3: nu
   return { co2: s.co2_umol_kg / dic, hco3: s.hco3_umol_kg / dic, co3: s.co3_umol_kg / dic };
 }
 
-/** A number for a table cell: four significant figures, never NaN. */
+/** A number for a table cell: four significant figures, never NaN, no float noise (1e-11 → 0). */
 export function show(x: number | undefined): string {
   if (x === undefined || !Number.isFinite(x)) return '—';
-  if (x === 0) return '0';
+  if (Math.abs(x) < 1e-9) return '0';
   const a = Math.abs(x);
   return a >= 1000 ? x.toFixed(0) : x.toPrecision(4);
 }

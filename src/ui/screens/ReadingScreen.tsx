@@ -272,6 +272,7 @@ export function ReadingScreen(props: { readingId: string }) {
         {Planner ? (
           <Planner
             reading={readingInput(reading.values, site, settings).input}
+            trade={siteProfile(site).trade}
             onSave={async (plan) => {
               try {
                 setReading(await repo.updateReading(reading.id, { plan }));

@@ -407,7 +407,9 @@ function DoseSummary({ out, areaM2 }: { out: PlanOutput; areaM2?: number | undef
           {CHEMICALS[s.dose.chemical as ChemicalId]?.name ?? s.dose.chemical}:{' '}
           <strong>{measureText(s.dose.measure)}</strong>
           {s.dose.measure.mass_g !== undefined ? perArea(s.dose.measure.mass_g, out, areaM2) : ''} into{' '}
-          {out.volume_l >= 10000 ? `${show(out.volume_l / 1000)} m³` : `${show(out.volume_l)} L`}
+          {out.volume_l >= 10000
+            ? `${Number((out.volume_l / 1000).toPrecision(4)).toLocaleString()} m³`
+            : `${show(out.volume_l)} L`}
           {s.target && (
             <>
               {' '}

@@ -50,7 +50,14 @@ function defaultRows(site: SiteDoc | undefined, preferred: Record<string, string
   const units = { ...preferred, ...tradeUnits(profile), ...(site?.defaults.units ?? {}) };
   return tradeQuantities(profile).map((id) => {
     const q = quantity(id)!;
-    const unit = units[id] && q.units.some((u) => u.id === units[id]) ? units[id]! : q.units[0]!.id;
+    // A site with a usual salinity starts the row with it, in PSS-78 as the site states it.
+    const usual =
+      id === 'salinity' && site?.defaults.salinity !== undefined && !site.defaults.units?.salinity;
+    const unit = usual
+      ? 'pss'
+      : units[id] && q.units.some((u) => u.id === units[id])
+        ? units[id]!
+        : q.units[0]!.id;
     return {
       quantity: id,
       unit,

@@ -259,6 +259,7 @@ export function PlanPanel({ reading, onSave, volumeL, trade, engine = plan }: Pl
       {result && (
         <PlanResultView
           out={result.out}
+          trade={trade}
           areaM2={
             typeof result.request.volume_l === 'number' && form.areaM2
               ? Number(form.areaM2.replace(',', '.'))
@@ -285,9 +286,24 @@ export function PlanPanel({ reading, onSave, volumeL, trade, engine = plan }: Pl
   );
 }
 
-function PlanResultView({ out, areaM2 }: { out: PlanOutput; areaM2?: number | undefined }) {
+/** The rows each trade reads first in the before/after table. */
+const FIRST_ROWS: Record<NonNullable<PlanPanelProps['trade']>, string[]> = {
+  field: ['pco2_uatm', 'ph_nbs', 'saturation_index_calcite', 'alkalinity_meq_l', 'dic_umol_kg'],
+  aquarium: ['alkalinity_dkh', 'ph_nbs', 'omega_aragonite', 'calcium_total_umol_kg'],
+  aquaculture: ['alkalinity_mg_l_caco3', 'ph_nbs', 'co2_umol_kg', 'calcium_total_umol_kg'],
+};
+
+function PlanResultView({
+  out,
+  areaM2,
+  trade,
+}: {
+  out: PlanOutput;
+  areaM2?: number | undefined;
+  trade?: PlanPanelProps['trade'];
+}) {
   const step = out.steps[out.steps.length - 1]!;
-  const rows = compareRows(out.before, out.after);
+  const rows = compareRows(out.before, out.after, trade ? FIRST_ROWS[trade] : []);
   return (
     <div>
       <h3>Dose</h3>

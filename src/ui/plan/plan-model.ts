@@ -176,7 +176,12 @@ function outputLabel(key: string): string {
 }
 
 /** Every numeric output of either water (top level and totals), labelled ones first. */
-export function compareRows(before: SolveOutput, after: SolveOutput): CompareRow[] {
+export function compareRows(
+  before: SolveOutput,
+  after: SolveOutput,
+  /** Keys the reader looks at first (the trade's own quantities), in this order. */
+  first: readonly string[] = [],
+): CompareRow[] {
   const flat = (o: SolveOutput): Record<string, number> => {
     const out: Record<string, number> = {};
     for (const [k, v] of Object.entries(o)) if (typeof v === 'number' && Number.isFinite(v)) out[k] = v;
@@ -186,7 +191,7 @@ export function compareRows(before: SolveOutput, after: SolveOutput): CompareRow
   const a = flat(before);
   const b = flat(after);
   const keys = [...new Set([...Object.keys(a), ...Object.keys(b)])];
-  const order = OUTPUTS.map((o) => o.key);
+  const order = [...first, ...OUTPUTS.map((o) => o.key).filter((k) => !first.includes(k))];
   keys.sort((x, y) => {
     const ix = order.indexOf(x);
     const iy = order.indexOf(y);

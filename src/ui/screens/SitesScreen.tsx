@@ -82,7 +82,7 @@ export function SitesScreen() {
             <a class="card" href={`#/site/${s.id}`}>
               <span class="card-title">{s.name}</span>
               <span class="card-meta">
-                {kindLabel(s.kind)} · {counts[s.id] ?? '…'} readings
+                {kindLabel(s.kind)} · {counts[s.id] ?? '…'} {counts[s.id] === 1 ? 'reading' : 'readings'}
               </span>
             </a>
           </li>

@@ -33,8 +33,14 @@ function conditions(r: Rec): { t: number; s: number } {
   return { t: num(c, 'temperature_c') ?? 25, s: num(c, 'salinity') ?? 0 };
 }
 
-/** kg/L of the water at its own temperature and salinity (EOS-80, as the engine converts). */
+/**
+ * kg/L of the water: the density the engine itself used for its per-litre alkalinity (mmol/L over
+ * mmol/kg) when it reports both, else EOS-80 at the water's temperature and salinity.
+ */
 export function waterDensity(r: Rec): number {
+  const perL = num(r, 'alkalinity_mmol_l');
+  const perKg = num(r, 'alkalinity_mmol_kg');
+  if (perL !== undefined && perKg !== undefined && perKg > 0) return perL / perKg;
   const { t, s } = conditions(r);
   return densityKgL(s, t);
 }
@@ -51,10 +57,11 @@ function alkalinityRow(r: Rec, rho: number, unit: 'meq_l' | 'mg_l_caco3' | 'dkh'
   const ta = num(r, 'alkalinity_umol_kg');
   if (ta === undefined) return undefined;
   const label = { meq_l: 'meq/L', mg_l_caco3: 'mg/L as CaCO₃', dkh: 'dKH' }[unit];
+  // The engine's own figure in that unit when it gives one (fresh water), else converted alike.
   return {
     id: `alkalinity-${unit}`,
     label: 'Alkalinity',
-    value: alkalinityFromEqKg(ta / 1e6, unit, rho),
+    value: num(r, `alkalinity_${unit}`) ?? alkalinityFromEqKg(ta / 1e6, unit, rho),
     unit: label,
     digits: 3,
   };
@@ -204,4 +211,36 @@ export function degassingSentence(
     else then = ': still undersaturated, it would dissolve calcite rather than deposit it';
   }
   return `${verb[0]!.toUpperCase()}${verb.slice(1)}, this water would reach pH ${fmt(ph, 1)}${siText}${then}.`;
+}
+
+/** The local calendar date of an instant in a zone ("2026-12-02"); the device's zone if unknown. */
+function localDate(iso: string, timeZone: string | undefined): string {
+  const d = new Date(iso);
+  try {
+    return new Intl.DateTimeFormat('en-CA', {
+      timeZone,
+      year: 'numeric',
+      month: '2-digit',
+      day: '2-digit',
+    }).format(d);
+  } catch {
+    return new Intl.DateTimeFormat('en-CA', { year: 'numeric', month: '2-digit', day: '2-digit' }).format(d);
+  }
+}
+
+/**
+ * The day's pH swing at a pond: the lowest and highest pH read on the reading's local day, when
+ * at least two readings of that day have a pH (dawn and afternoon, as pond managers measure).
+ */
+export function dayPhSwing(
+  reading: { id: string; takenAt: string; timeZone: string },
+  sameSite: readonly { id: string; takenAt: string; deleted?: boolean; values: readonly MeasuredValue[] }[],
+): { lo: number; hi: number; n: number } | undefined {
+  const day = localDate(reading.takenAt, reading.timeZone);
+  const phs = sameSite
+    .filter((r) => !r.deleted && localDate(r.takenAt, reading.timeZone) === day)
+    .map((r) => r.values.find((v) => v.quantity === 'ph')?.value)
+    .filter((v): v is number => typeof v === 'number' && Number.isFinite(v));
+  if (phs.length < 2) return undefined;
+  return { lo: Math.min(...phs), hi: Math.max(...phs), n: phs.length };
 }

@@ -96,10 +96,10 @@ export function formatUncertainty(
 
 /**
  * A computed change or amount without float noise: anything smaller than `relTo × 1e-9` (or
- * 1e-12 absolute) is an exact zero that rounding made look otherwise (−1.091e-11 → 0).
+ * 1e-9 absolute) is an exact zero that rounding made look otherwise (−1.091e-11 → 0).
  */
 export function denoise(x: number, relTo = 0): number {
-  return Math.abs(x) < Math.max(1e-12, Math.abs(relTo) * 1e-9) ? 0 : x;
+  return Math.abs(x) < Math.max(1e-9, Math.abs(relTo) * 1e-9) ? 0 : x;
 }
 
 /** A date-time in the reading's own zone, e.g. "3 May 2026, 09:40". */

@@ -7,6 +7,7 @@
 import type { SolveOutput } from '../../chem/api';
 import type { ChemicalId } from '../../chem/plan/chemicals';
 import type { TargetQuantity } from '../../chem/plan/inverse';
+import { denoise } from '../numbers';
 import { OUTPUTS, outputDef } from '../outputs';
 
 export type PanelAction = 'add' | 'equilibrate' | 'reach' | 'mix';
@@ -211,8 +212,7 @@ export function compareRows(
 
 /** A change after − before, with rounding noise of the two values taken as zero. */
 export function change(before: number, after: number): number {
-  const d = after - before;
-  return Math.abs(d) <= 1e-9 * Math.max(Math.abs(before), Math.abs(after)) ? 0 : d;
+  return denoise(after - before, Math.max(Math.abs(before), Math.abs(after)));
 }
 
 /** A mass as a person weighs it: g below 1 kg, kg below 1 t, then t. */

@@ -10,6 +10,7 @@ import type { ReadingDoc, SiteDoc } from '../../store/schema';
 import { useApp } from '../app-context';
 import { drawSpeciation, fractionsAt } from '../charts/speciation';
 import { solveInWorker, titrateInWorker } from '../engine-client';
+import { dayPhSwing } from '../headline';
 import { formatDateTime, formatNumber } from '../numbers';
 import { go } from '../router';
 import { readingInput } from '../solve-context';
@@ -95,6 +96,18 @@ export function ReadingScreen(props: { readingId: string }) {
   const [toutcome, setToutcome] = useState<TitrateOutcome>();
   // The planning panel carries the plan engine: loaded only when asked for.
   const [Planner, setPlanner] = useState<PlanPanelType>();
+  const [swing, setSwing] = useState<{ lo: number; hi: number; n: number }>();
+
+  // A pond manager's question: how far did pH swing today? (needs two readings of the day)
+  useEffect(() => {
+    if (!reading || siteProfile(site).trade !== 'aquaculture') return setSwing(undefined);
+    const t = new Date(reading.takenAt).getTime();
+    const iso = (ms: number) => new Date(ms).toISOString();
+    repo
+      .listReadings(reading.siteId, { from: iso(t - 86_400_000), to: iso(t + 86_400_000) })
+      .then((list) => setSwing(dayPhSwing(reading, list)))
+      .catch(() => setSwing(undefined));
+  }, [reading, site]);
 
   useEffect(() => {
     (async () => {
@@ -193,7 +206,13 @@ export function ReadingScreen(props: { readingId: string }) {
       )}
       <section class="panel" aria-labelledby="computed-h">
         <h2 id="computed-h">Computed</h2>
-        <ResultsPanel result={result} full profile={siteProfile(site)} values={reading.values} />
+        <ResultsPanel
+          result={result}
+          full
+          profile={siteProfile(site)}
+          values={reading.values}
+          daySwing={swing}
+        />
       </section>
       {ok && (
         <>

@@ -43,6 +43,8 @@ export function ResultsPanel(props: {
   full?: boolean;
   profile?: Profile;
   values?: MeasuredValue[];
+  /** The pH range of the reading's day at this site (two readings or more). */
+  daySwing?: { lo: number; hi: number; n: number } | undefined;
 }) {
   const { locale, settings } = useApp();
   const { result, profile } = props;
@@ -112,6 +114,13 @@ export function ResultsPanel(props: {
             <HeadValue key={row.id} row={row} locale={locale} />
           ))}
         </dl>
+      )}
+      {props.daySwing && (
+        <p class="degassing" data-head="ph-swing">
+          pH swung {formatNumber(props.daySwing.hi - props.daySwing.lo, locale, { decimals: 1 })} today (
+          {formatNumber(props.daySwing.lo, locale, { decimals: 1 })}–
+          {formatNumber(props.daySwing.hi, locale, { decimals: 1 })} in {props.daySwing.n} readings).
+        </p>
       )}
       {sentence && (
         <p class="degassing" data-head="degassing">

@@ -8,7 +8,7 @@
  * pictures in public/screenshots/ when TUFA_README_SHOTS=1.
  */
 
-import { copyFileSync, mkdirSync } from 'node:fs';
+import { mkdirSync } from 'node:fs';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { isSolveError } from '../../src/chem/api';
@@ -20,7 +20,7 @@ import { solve } from '../../src/ui/engine-source';
 import { airEquilibriumInput, degassingSentence, headlineRows } from '../../src/ui/headline';
 import { formatNumber } from '../../src/ui/numbers';
 import { readingInput } from '../../src/ui/solve-context';
-import { ARTIFACTS, launch, openApp, screenshot } from './browser';
+import { launch, openApp, screenshot } from './browser';
 import { audit, engineKeys, type Trouble } from './phone-audit';
 
 const base = inject('baseUrl');
@@ -193,11 +193,15 @@ for (const size of SIZES) {
           await page.evaluate(() => window.scrollTo(0, 0));
           await look(page, `${tag}-3-reading`, troubles);
           if (size.name === 'phone' && process.env.TUFA_README_SHOTS) {
+            // The README's picture: what the phone shows first, the answers under the reading.
             mkdirSync(new URL('../../public/screenshots/', import.meta.url), { recursive: true });
-            copyFileSync(
-              new URL(`${tag}-3-reading.png`, ARTIFACTS),
-              new URL(`../../public/screenshots/reading-${walk.trade}.png`, import.meta.url),
-            );
+            if (await page.locator('.toast button').count()) await page.locator('.toast button').first().click();
+            await page.locator('section[aria-labelledby="computed-h"]').scrollIntoViewIfNeeded();
+            await page.evaluate(() => window.scrollBy(0, -140));
+            await page.screenshot({
+              path: new URL(`../../public/screenshots/reading-${walk.trade}.png`, import.meta.url).pathname,
+            });
+            await page.evaluate(() => window.scrollTo(0, 0));
           }
 
           // Each trade's usual plan: aerate the spring, dose the reef, lime the pond by area and depth.

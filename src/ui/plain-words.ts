@@ -36,3 +36,15 @@ export function plainWords(message: string): string {
     return midSentence && /^[A-Z][a-z]/.test(words) ? words[0]!.toLowerCase() + words.slice(1) : words;
   });
 }
+
+/**
+ * A constant's or formulation's key as a row name: pK1, "calcite solubility (pKsp)", "K0",
+ * "fugacity factor", "ion pairs" (never the snake_case key itself).
+ */
+export function constantName(key: string): string {
+  const sp = /^p?ksp_(\w+)$/.exec(key);
+  if (sp) return `${sp[1]} solubility${key.startsWith('p') ? ' (pK)' : ''}`;
+  const k = /^(p?)k(\w+)$/.exec(key);
+  if (k && !k[2]!.includes('_')) return `${k[1]}K${k[2]!.toUpperCase()}`;
+  return key.replace(/_/g, ' ');
+}

@@ -192,6 +192,11 @@ for (const size of SIZES) {
           await page.locator('[data-testid="speciation"]').waitFor();
           await page.evaluate(() => window.scrollTo(0, 0));
           await look(page, `${tag}-3-reading`, troubles);
+          // Everything behind "All outputs" and the constants too, opened.
+          await page.evaluate(() => {
+            for (const d of document.querySelectorAll('details')) d.open = true;
+          });
+          await look(page, `${tag}-3b-reading-open`, troubles);
           if (size.name === 'phone' && process.env.TUFA_README_SHOTS) {
             // The README's picture: what the phone shows first, the answers under the reading.
             mkdirSync(new URL('../../public/screenshots/', import.meta.url), { recursive: true });

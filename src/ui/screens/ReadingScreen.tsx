@@ -12,6 +12,7 @@ import { drawSpeciation, fractionsAt } from '../charts/speciation';
 import { solveInWorker, titrateInWorker } from '../engine-client';
 import { dayPhSwing } from '../headline';
 import { formatDateTime, formatNumber } from '../numbers';
+import { constantName } from '../plain-words';
 import { go } from '../router';
 import { readingInput } from '../solve-context';
 import { METHOD_LABELS, titrationInput, withTitration } from '../titration';
@@ -231,16 +232,19 @@ export function ReadingScreen(props: { readingId: string }) {
               <tbody>
                 {Object.entries(ok.constants).map(([k, v]) => (
                   <tr key={k}>
-                    <th scope="row">{k}</th>
+                    <th scope="row">{constantName(k)}</th>
                     <td>{formatNumber(v, locale, { decimals: 4 })}</td>
                   </tr>
                 ))}
-                {Object.entries(ok.totals_umol_kg ?? {}).map(([k, v]) => (
-                  <tr key={`t-${k}`}>
-                    <th scope="row">total {k} (µmol/kg)</th>
-                    <td>{formatNumber(v, locale, { digits: 5 })}</td>
-                  </tr>
-                ))}
+                {Object.entries(ok.totals_umol_kg ?? {})
+                  // Fresh water has no assumed boron, sulfate or fluoride: a row of zeros says nothing.
+                  .filter(([, v]) => v !== 0)
+                  .map(([k, v]) => (
+                    <tr key={`t-${k}`}>
+                      <th scope="row">total {k} (µmol/kg)</th>
+                      <td>{formatNumber(v, locale, { digits: 5 })}</td>
+                    </tr>
+                  ))}
                 {ok.conditions && (
                   <tr>
                     <th scope="row">results refer to</th>
@@ -277,7 +281,7 @@ export function ReadingScreen(props: { readingId: string }) {
                   ))}
                 {Object.entries(ok.formulations).map(([k, v]) => (
                   <tr key={`f-${k}`}>
-                    <th scope="row">{k}</th>
+                    <th scope="row">{constantName(k)}</th>
                     <td>{v}</td>
                   </tr>
                 ))}

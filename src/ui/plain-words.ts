@@ -15,9 +15,27 @@ const KEY_WORDS: ReadonlyMap<string, string> = (() => {
   return m;
 })();
 
+/** The planner's request keys, as the plan panel labels them. */
+const PLAN_WORDS: Readonly<Record<string, string>> = {
+  volume_l: 'Water volume (L)',
+  mass_kg: 'Water mass (kg)',
+  mass_g: 'Amount (g)',
+  moles: 'Amount (mol)',
+  purity_percent: 'Purity (%)',
+  stock_volume_ml: 'Stock volume (mL)',
+  stock_mol_l: 'Stock strength (mol/L)',
+  target_pco2_uatm: 'Gas pCO₂ (µatm)',
+  max_ph_step: 'Largest pH change per step',
+  max_alkalinity_step_dkh: 'Largest alkalinity change per step (dKH)',
+  max_alkalinity_step_umol_kg: 'Largest alkalinity change per step (µmol/kg)',
+  gas_volume_l: 'Gas volume (L)',
+  alkalinity_dkh: 'Alkalinity (dKH)',
+  co2_mg_l: 'Dissolved CO₂ (mg/L)',
+};
+
 /** One engine input name in words: a known key, pH, or a constant such as pK1; others unchanged. */
 export function plainKey(key: string): string {
-  const known = KEY_WORDS.get(key);
+  const known = KEY_WORDS.get(key) ?? PLAN_WORDS[key];
   if (known) return known;
   if (key === 'ph') return 'pH';
   const sp = /^pksp_(\w+)$/.exec(key);

@@ -120,6 +120,19 @@ for (const size of SIZES) {
         const tag = `trade-${walk.trade}-${size.name}`;
         try {
           await openApp(page, base);
+          // The engine-name check must see one when there is one.
+          await page.evaluate(() => {
+            const probe = document.createElement('p');
+            probe.id = 'key-probe';
+            probe.textContent = 'alkalinity_dkh (pKsp_calcite) CO2*';
+            document.body.append(probe);
+          });
+          expect((await engineKeys(page, 'probe')).map((t) => t.what)).toEqual([
+            'shows the engine name “alkalinity_dkh”',
+            'shows the engine name “pKsp”',
+            'shows the engine name “CO2*”',
+          ]);
+          await page.evaluate(() => document.getElementById('key-probe')?.remove());
           await page.getByRole('link', { name: 'New site' }).click();
           await page.getByLabel('Name').fill(walk.site);
           await page.getByLabel('Kind of water').selectOption(walk.kind);
@@ -200,7 +213,8 @@ for (const size of SIZES) {
           if (size.name === 'phone' && process.env.TUFA_README_SHOTS) {
             // The README's picture: what the phone shows first, the answers under the reading.
             mkdirSync(new URL('../../public/screenshots/', import.meta.url), { recursive: true });
-            if (await page.locator('.toast button').count()) await page.locator('.toast button').first().click();
+            if (await page.locator('.toast button').count())
+              await page.locator('.toast button').first().click();
             await page.locator('section[aria-labelledby="computed-h"]').scrollIntoViewIfNeeded();
             await page.evaluate(() => window.scrollBy(0, -140));
             await page.screenshot({

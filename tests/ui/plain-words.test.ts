@@ -22,5 +22,9 @@ describe('engine keys in words', () => {
       'Temperature (°C) is missing. DIC (µmol/kg) given',
     );
     expect(plainWords('no_such_key stays as it is')).toBe('no_such_key stays as it is');
+    // The planner's keys too (issue 11: "volume_l must be…" reached the screen).
+    expect(plainWords('volume_l must be greater than zero')).toBe(
+      'Water volume (L) must be greater than zero',
+    );
   });
 });

@@ -122,7 +122,7 @@ export function PlanPanel({ reading, onSave, volumeL, trade, engine = plan }: Pl
       const request = { ...planRequest(reading, form), ...(trade ? { trade } : {}) };
       const r = engine(request);
       if (isPlanError(r)) {
-        setProblem({ text: `${r.error.message} (${r.error.code})` });
+        setProblem({ text: `${plainWords(r.error.message)} (${r.error.code})` });
         setResult(undefined);
       } else {
         setProblem(undefined);

@@ -198,6 +198,14 @@ for (const size of SIZES) {
             );
           }
           await look(page, `${tag}-2-entry`, troubles);
+          if (size.name === 'desktop' && walk.trade === 'field' && process.env.TUFA_README_SHOTS) {
+            // The README's "results as you type" picture, refreshed with the headline.
+            if (await page.locator('.toast button').count())
+              await page.locator('.toast button').first().click();
+            await page.screenshot({
+              path: new URL('../../public/screenshots/reading-wide.png', import.meta.url).pathname,
+            });
+          }
 
           await page.getByRole('button', { name: 'Save reading' }).click();
           await page.getByRole('heading', { name: 'Reading', exact: true }).waitFor();

@@ -12,7 +12,18 @@ import type { DBSchema } from 'idb';
 export const DB_NAME = 'tufa';
 
 /** Our own list of kinds of water a site can be. */
-export const SITE_KINDS = ['stream', 'spring', 'well', 'lake', 'pond', 'tank', 'other'] as const;
+export const SITE_KINDS = [
+  'stream',
+  'spring',
+  'well',
+  'lake',
+  'pond',
+  'tank',
+  'other',
+  'reef',
+  'raceway',
+  'recirculating',
+] as const;
 export type SiteKind = (typeof SITE_KINDS)[number];
 
 export type DocType = 'site' | 'reading';
@@ -49,7 +60,9 @@ export interface SiteDefaults {
   carbonic_constants?: 'lueker2000' | 'millero2010';
   boron_total?: 'lee2010' | 'uppstrom1974';
   ph_scale?: 'total' | 'free' | 'seawater' | 'nbs';
-  /** Preferred unit per quantity id (see `src/ui/quantities.ts`), e.g. `{ alkalinity: 'dkh' }`. */
+  /** The site's trade when the user chose one over the kind's (see `src/quantities/trades.ts`). */
+  trade?: 'field' | 'aquarium' | 'aquaculture';
+  /** Preferred unit per quantity id (see `src/quantities`), e.g. `{ alkalinity: 'dkh' }`. */
   units?: Record<string, string>;
 }
 

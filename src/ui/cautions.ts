@@ -3,6 +3,8 @@
  * handling acids. They are general common-practice advice, not a procedure.
  */
 
+import type { Profile } from '../quantities';
+
 export const RESULT_CAUTION =
   'These are model estimates with stated validity ranges, not a dosing instruction. Before adding ' +
   'buffer, lime, acid or CO₂ to a tank or pond: change things slowly and in small steps, re-measure ' +
@@ -13,13 +15,22 @@ export const ACID_CAUTION =
   'Titration acids burn skin and eyes: wear eye protection and gloves, add acid to water (never the ' +
   'reverse) and follow the reagent’s safety data sheet and your workplace rules.';
 
-/** Extra caution when a result suggests the water is far from what animals tolerate. */
-export function resultAlerts(r: Record<string, unknown>): string[] {
+/** The caution under a result: about dosing where someone keeps animals, about models elsewhere. */
+export function resultCaution(profile: Profile | undefined): string {
+  if (profile?.trade === 'field')
+    return 'These are model estimates with stated validity ranges. Before treating this water for any use, follow local codes and licensed practice.';
+  return RESULT_CAUTION;
+}
+
+/** Extra cautions when a result suggests the water is far from what the animals in it tolerate. */
+export function resultAlerts(r: Record<string, unknown>, profile?: Profile): string[] {
   const out: string[] = [];
+  // No animals at a spring or a well: its high pCO₂ is the headline, not an alarm.
+  if (profile?.trade === 'field') return out;
   const pco2 = r.pco2_uatm;
   if (typeof pco2 === 'number' && pco2 > 10000) {
     out.push(
-      'pCO₂ is very high. That is usual for springs and groundwater, but fish in a tank or pond held at this level are stressed: aerate gradually and re-measure rather than chasing pH with chemicals.',
+      'pCO₂ is very high: fish held at this level are stressed. Aerate gradually and re-measure rather than chasing pH with chemicals.',
     );
   }
   const om = r.omega_aragonite;

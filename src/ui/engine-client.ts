@@ -1,6 +1,6 @@
 /** The page's side of the engine worker: promise per request, one worker for the app's life. */
 
-import type { SolveResult } from '../chem/api';
+import type { SolveInput, SolveResult } from '../chem/api';
 import type { PlanResult } from '../chem/plan/plan';
 import type { ReadingFacts, ReadingRequest, RequestSettings } from '../reading/request';
 import type { SiteDoc } from '../store/schema';
@@ -75,6 +75,16 @@ export async function solveReadingInWorker(
   });
   if (r.kind !== 'reading') throw new Error('engine worker answered the wrong request');
   return { request: r.request, result: r.result };
+}
+
+/**
+ * Solves a request derived from a result (e.g. the same water at equilibrium with air). A stored
+ * reading never comes this way: it goes through `solveReadingInWorker` and the one request function.
+ */
+export async function solveInWorker(input: SolveInput): Promise<SolveResult> {
+  const r = await ask({ kind: 'solve', input });
+  if (r.kind !== 'solve') throw new Error('engine worker answered the wrong request');
+  return r.result;
 }
 
 /** A plan (`src/chem/plan/plan.ts`) computed in the worker: its dose searches never block the page. */

@@ -32,12 +32,15 @@ export type EngineRequest =
   /** Many readings through `readingRequest`: slim results (with `keys`) and each request's summary. */
   | { id: number; kind: 'readings'; jobs: ReadingJob[]; settings: RequestSettings; keys?: string[] }
   /** A plan (`src/chem/plan/plan.ts`): its dose searches never block the page. */
-  | { id: number; kind: 'plan'; request: unknown };
+  | { id: number; kind: 'plan'; request: unknown }
+  /** A request derived from a result, not from a reading (the same water at equilibrium with air). */
+  | { id: number; kind: 'solve'; input: SolveInput };
 
 export type EngineResponse =
   | { id: number; kind: 'reading'; request: ReadingRequest; result: SolveResult }
   | { id: number; kind: 'readings'; requests: RequestSummary[]; results: SolveResult[] }
-  | { id: number; kind: 'plan'; result: PlanResult };
+  | { id: number; kind: 'plan'; result: PlanResult }
+  | { id: number; kind: 'solve'; result: SolveResult };
 
 function slim(r: SolveResult, keys: readonly string[] | undefined): SolveResult {
   if (!keys || 'error' in r) return r;
@@ -72,6 +75,10 @@ scope.onmessage = (ev: MessageEvent<EngineRequest>) => {
       results.push(slim(safeSolve(input), req.keys));
     }
     scope.postMessage({ id: req.id, kind: 'readings', requests, results } satisfies EngineResponse);
+    return;
+  }
+  if (req.kind === 'solve') {
+    scope.postMessage({ id: req.id, kind: 'solve', result: safeSolve(req.input) } satisfies EngineResponse);
     return;
   }
   if (req.kind === 'plan') {

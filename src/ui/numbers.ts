@@ -68,7 +68,38 @@ export function formatNumber(
         : new Intl.NumberFormat(locale || undefined, { maximumSignificantDigits: opts.digits ?? 4 });
     formatters.set(key, f);
   }
-  return f.format(value);
+  // "−0" after rounding is float noise: a person writes 0.
+  const text = f.format(value);
+  return /^[-−]0([.,]0*)?$/.test(text) ? text.slice(1) : text;
+}
+
+/** The smallest step the display of `value` with these options can show. */
+export function displayResolution(value: number, opts: { digits?: number; decimals?: number }): number {
+  if (opts.decimals !== undefined) return 10 ** -opts.decimals;
+  if (value === 0 || !Number.isFinite(value)) return 0;
+  return 10 ** (Math.floor(Math.log10(Math.abs(value))) - (opts.digits ?? 4) + 1);
+}
+
+/**
+ * A standard uncertainty as people write it: two significant digits, and nothing at all (empty
+ * string) when it is below half the last digit shown for the value, where it means nothing.
+ */
+export function formatUncertainty(
+  u: number,
+  value: number,
+  opts: { digits?: number; decimals?: number },
+  locale: string | undefined,
+): string {
+  if (!Number.isFinite(u) || u <= 0 || u < displayResolution(value, opts) / 2) return '';
+  return formatNumber(u, locale, { digits: 2 });
+}
+
+/**
+ * A computed change or amount without float noise: anything smaller than `relTo × 1e-9` (or
+ * 1e-9 absolute) is an exact zero that rounding made look otherwise (−1.091e-11 → 0).
+ */
+export function denoise(x: number, relTo = 0): number {
+  return Math.abs(x) < Math.max(1e-9, Math.abs(relTo) * 1e-9) ? 0 : x;
 }
 
 /** A date-time in the reading's own zone, e.g. "3 May 2026, 09:40". */

@@ -13,11 +13,11 @@ export interface OutputDef {
 export const OUTPUTS: OutputDef[] = [
   { key: 'dic_umol_kg', label: 'DIC', unit: 'µmol/kg', digits: 4, headline: true },
   { key: 'alkalinity_umol_kg', label: 'Alkalinity', unit: 'µmol/kg', digits: 4, headline: true },
-  { key: 'co2_umol_kg', label: 'CO₂*', unit: 'µmol/kg', digits: 3, headline: true },
+  { key: 'co2_umol_kg', label: 'Dissolved CO₂', unit: 'µmol/kg', digits: 3, headline: true },
   { key: 'pco2_uatm', label: 'pCO₂', unit: 'µatm', digits: 4, headline: true },
   { key: 'fco2_uatm', label: 'fCO₂', unit: 'µatm', digits: 4 },
-  { key: 'hco3_umol_kg', label: 'HCO₃⁻', unit: 'µmol/kg', digits: 4 },
-  { key: 'co3_umol_kg', label: 'CO₃²⁻', unit: 'µmol/kg', digits: 3 },
+  { key: 'hco3_umol_kg', label: 'Bicarbonate', unit: 'µmol/kg', digits: 4 },
+  { key: 'co3_umol_kg', label: 'Carbonate', unit: 'µmol/kg', digits: 3 },
   { key: 'omega_calcite', label: 'Ω calcite', unit: '', digits: 3, headline: true },
   { key: 'omega_aragonite', label: 'Ω aragonite', unit: '', digits: 3 },
   { key: 'saturation_index_calcite', label: 'SI calcite', unit: '', decimals: 2, headline: true },
@@ -40,7 +40,7 @@ export const OUTPUTS: OutputDef[] = [
   { key: 'air_pco2_uatm', label: 'Air pCO₂ used', unit: 'µatm', digits: 4 },
   { key: 'ph_saturation_calcite', label: 'pH of calcite saturation', unit: '', decimals: 2 },
   { key: 'ph_after_ccpp', label: 'pH after CaCO₃ precipitation', unit: '', decimals: 2 },
-  { key: 'pksp_dolomite', label: 'pKsp dolomite', unit: '', decimals: 3 },
+  { key: 'pksp_dolomite', label: 'Dolomite solubility product (pK)', unit: '', decimals: 3 },
   { key: 'alkalinity_mmol_kg', label: 'Alkalinity', unit: 'mmol/kg', digits: 4 },
   { key: 'alkalinity_mmol_l', label: 'Alkalinity', unit: 'mmol/L', digits: 4 },
   { key: 'alkalinity_mg_l_hco3', label: 'Alkalinity', unit: 'mg/L as HCO₃⁻', digits: 4 },
@@ -73,15 +73,29 @@ export function numericOutputs(result: Record<string, unknown>): { def: OutputDe
   return out;
 }
 
+/**
+ * Outputs that mean nothing for this water: seawater pH scales in fresh water (the fresh model
+ * reports pH as activity; total, free and seawater coincide there) and seawater totals that are
+ * zero because fresh water has no assumed boron, sulfate or fluoride.
+ */
+export function visibleOutput(
+  row: { def: OutputDef; value: number },
+  result: Record<string, unknown>,
+): boolean {
+  if (result.model === 'fresh' && ['ph_total', 'ph_free', 'ph_seawater'].includes(row.def.key)) return false;
+  if (row.def.key.endsWith('_total_umol_kg') && row.value === 0) return false;
+  return true;
+}
+
 const PAIR_LABELS: Record<string, string> = {
   alkalinity_umol_kg: 'alkalinity',
   dic_umol_kg: 'DIC',
   ph: 'pH',
   pco2_uatm: 'pCO₂',
   fco2_uatm: 'fCO₂',
-  co2_umol_kg: 'CO₂*',
-  hco3_umol_kg: 'HCO₃⁻',
-  co3_umol_kg: 'CO₃²⁻',
+  co2_umol_kg: 'dissolved CO₂',
+  hco3_umol_kg: 'bicarbonate',
+  co3_umol_kg: 'carbonate',
 };
 
 /** "alkalinity + pH" for the pair a result was solved from. */

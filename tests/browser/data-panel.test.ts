@@ -45,7 +45,7 @@ describe('data panel in Settings', () => {
     const text = await page.textContent('body');
     expect(text).toContain('decimal comma');
     expect(text).toContain('byte-order mark removed');
-    expect(text).toContain('Temperature 25 °C; Salinity (practical) 35 PSS-78; pH 8.05 (total scale)');
+    expect(text).toContain('Temperature 25 °C; Salinity 35 PSS-78; pH 8.05 (total scale)');
     expect(text).toContain('new site: Bay buoy');
     await page.evaluate(() => window.scrollTo(0, 0));
     await screenshot(page, '22-data-panel-preview');

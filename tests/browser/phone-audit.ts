@@ -37,3 +37,20 @@ export async function audit(p: Page, screen: string): Promise<Trouble[]> {
   });
   return found.map((what) => ({ screen, what }));
 }
+
+/**
+ * Engine names a user should never read: snake_case keys (`alkalinity_dkh`, `volume_l`), the
+ * ASCII species names of the engine (`CO2*`, `HCO3-`, `CO3--`, `pCO2/fCO2`), `pKsp`. Issue codes
+ * are kebab-case and stay; text in form fields is the user's own and is not read.
+ */
+export async function engineKeys(p: Page, screen: string): Promise<Trouble[]> {
+  const found = await p.evaluate(() => {
+    // biome-ignore lint/performance/useDomNodeTextContent: only text a person can see counts here
+    const text = document.body.innerText;
+    const hits = new Set<string>();
+    for (const m of text.matchAll(/\b[a-z][a-z0-9]*(?:_[a-z0-9]+)+\b/g)) hits.add(m[0]);
+    for (const m of text.matchAll(/CO2\*|HCO3-|CO3--|pCO2\/fCO2|pKsp/g)) hits.add(m[0]);
+    return [...hits];
+  });
+  return found.map((k) => ({ screen, what: `shows the engine name “${k}”` }));
+}

@@ -39,6 +39,8 @@ describe('site and reading', () => {
     await page.getByRole('link', { name: 'New reading' }).click();
     await page.getByLabel('Temperature', { exact: true }).fill('25');
     await page.getByLabel('pH', { exact: true }).fill('8,05'); // decimal comma, as typed on many phones
+    // A tank of sea water is a reef keeper's (dKH by default); this one is logged in µmol/kg.
+    await page.getByLabel('Alkalinity unit').selectOption('umol_kg');
     await page.getByLabel('Alkalinity', { exact: true }).fill('2300');
     await expect.poll(() => page.getByLabel('Salinity', { exact: true }).inputValue()).toBe('35');
 
@@ -111,6 +113,7 @@ describe('site and reading', () => {
     await page.getByRole('link', { name: 'New reading' }).click();
     await page.getByLabel('Temperature', { exact: true }).fill('40'); // above the 2–35 °C of Lueker et al. 2000
     await page.getByLabel('pH', { exact: true }).fill('8.0');
+    await page.getByLabel('Alkalinity unit').selectOption('umol_kg');
     await page.getByLabel('Alkalinity', { exact: true }).fill('2300');
     const tempRow = page.locator('.qrow', { has: page.getByLabel('Temperature', { exact: true }) });
     await expect

@@ -54,6 +54,8 @@ describe('sync and export through the app', () => {
     await page.getByRole('link', { name: 'New reading' }).click();
     await page.getByLabel('Temperature', { exact: true }).fill('18,5');
     await page.getByLabel('pH', { exact: true }).fill('8,02');
+    // A field site starts alkalinity in meq/L; this mooring logs µmol/kg.
+    await page.getByLabel('Alkalinity unit').selectOption('umol_kg');
     await page.getByLabel('Alkalinity', { exact: true }).fill('2150');
     await page.getByRole('button', { name: 'Save reading' }).click();
     await page.getByRole('heading', { name: 'Reading', exact: true }).waitFor();

@@ -8,7 +8,7 @@ describe('engine keys in words', () => {
     expect(plainKey('temperature_c')).toBe('Temperature (°C)');
     expect(plainKey('ph')).toBe('pH');
     expect(plainKey('pk1')).toBe('pK1');
-    expect(plainKey('pksp_calcite')).toBe('pKsp_calcite');
+    expect(plainKey('pksp_calcite')).toBe('calcite solubility'); // no engine key on screen (issue 11)
   });
   it('rewrites every snake_case key in a message and leaves other words alone', () => {
     expect(
@@ -22,5 +22,9 @@ describe('engine keys in words', () => {
       'Temperature (°C) is missing. DIC (µmol/kg) given',
     );
     expect(plainWords('no_such_key stays as it is')).toBe('no_such_key stays as it is');
+    // The planner's keys too (issue 11: "volume_l must be…" reached the screen).
+    expect(plainWords('volume_l must be greater than zero')).toBe(
+      'Water volume (L) must be greater than zero',
+    );
   });
 });

@@ -6,6 +6,7 @@
  */
 
 import type { Chemical } from './chemicals';
+import type { PlanTrade } from './limits';
 
 export interface Limit {
   what: string;
@@ -65,7 +66,26 @@ export const LIMITS: readonly Limit[] = [
 export const DEFER =
   'Follow the product label and safety data sheet of each chemical, local codes and rules for discharges, and the advice of a licensed or qualified professional (veterinarian, water treatment operator) where one is required. Species limits differ: check those for your animals.';
 
-export function cautionsFor(chems: readonly Chemical[]): Cautions {
+/** Chemicals that come as a solid (the rest are acids in solution or CO₂ gas). */
+const NOT_SOLID = new Set(['hydrochloric_acid', 'sulfuric_acid', 'carbon_dioxide']);
+
+/**
+ * The limits that fit the water: none where no animals live (field hydrology), reef and marine
+ * ones for a salt-water aquarium, freshwater ones for fresh tanks and ponds; all when the trade
+ * is not given.
+ */
+function limitsFor(trade: PlanTrade | undefined, saline: boolean | undefined): Limit[] {
+  if (trade === 'field') return [];
+  if (trade === undefined) return [...LIMITS];
+  const [fresh, marineOnly] = [LIMITS.slice(0, 4), LIMITS.slice(4)];
+  if (saline) return [LIMITS[0]!, LIMITS[3]!, ...marineOnly];
+  return trade === 'aquarium' ? [LIMITS[0]!, LIMITS[3]!] : fresh;
+}
+
+export function cautionsFor(
+  chems: readonly Chemical[],
+  context: { trade?: PlanTrade; saline?: boolean } = {},
+): Cautions {
   const seen = new Set<string>();
   const chemicals: Cautions['chemicals'] = [];
   for (const c of chems) {
@@ -73,5 +93,23 @@ export function cautionsFor(chems: readonly Chemical[]): Cautions {
     seen.add(c.id);
     chemicals.push({ chemical: c.name, hazards: c.hazards });
   }
-  return { general: [...GENERAL_CAUTIONS], chemicals, limits: [...LIMITS], defer: DEFER };
+  // Aeration or mixing alone handles no chemical: no advice about buckets, gloves or acids.
+  const general =
+    chems.length === 0
+      ? [GENERAL_CAUTIONS[0]!]
+      : GENERAL_CAUTIONS.filter(
+          (_g, i) =>
+            (i !== 1 || chems.some((c) => !NOT_SOLID.has(c.id))) &&
+            (i !== 4 ||
+              chems.some((c) => ['hydrochloric_acid', 'sulfuric_acid', 'sodium_hydroxide'].includes(c.id))),
+        );
+  return {
+    general,
+    chemicals,
+    limits: limitsFor(context.trade, context.saline),
+    defer: context.trade === 'field' ? DEFER_FIELD : DEFER,
+  };
 }
+
+export const DEFER_FIELD =
+  'Follow local codes and rules for the water and any discharge, and the advice of a qualified professional where one is required.';

@@ -42,6 +42,8 @@ export interface DoseChange {
   delta_ph: number;
   delta_salinity: number | null;
   volume_added_l: number;
+  /** Grams of a carbonate mineral left undissolved because the water reached saturation. */
+  undissolved_g?: number;
 }
 
 export interface DoseResult {
@@ -60,7 +62,65 @@ const ION_OF: Record<
   sulfate_mg_l: { per: 'sulfate', molarMass: MOLAR_MASS_G_PER_MOL.SO4, z: 2 },
 };
 
+/** Bisection steps for the saturation point: 2^-50 of the dose, far below any balance's reading. */
+const SATURATION_ITERATIONS = 50;
+
+/**
+ * Adding a chemical. Calcium carbonate (limestone, aragonite sand) dissolves only until the water
+ * is saturated with calcite (Ω calcite = 1); beyond that it lies undissolved, so the dose that
+ * changes the water stops there and the rest is reported as undissolved (Plummer & Busenberg
+ * 1982 describe dissolution approaching saturation; the stop at Ω = 1 is its thermodynamic end).
+ */
 export function applyDose(w: PlanWater, chem: Chemical, amount: Amount): DoseResult {
+  if (chem.id !== 'calcium_carbonate' || amount.moles <= 0) return applyExact(w, chem, amount);
+  const omega0 = w.solved.omega_calcite;
+  const part = (n: number): Amount => ({ ...amount, moles: n });
+  const stop = (d: DoseResult, nDissolved: number): DoseResult => {
+    const undissolved = (amount.moles - nDissolved) * chem.molarMassGPerMol;
+    d.change.moles = amount.moles;
+    d.change.mass_g = amount.moles * chem.molarMassGPerMol;
+    d.change.undissolved_g = undissolved;
+    d.warnings.push(
+      warning(
+        'carbonate-stops-at-saturation',
+        `${chem.name} dissolves only until the water is saturated with calcite (Ω = 1): about ${formatG(undissolved)} of the ${formatG(d.change.mass_g)} stays undissolved, and the water shown is the saturated one. More of it changes nothing.`,
+      ),
+    );
+    return d;
+  };
+  if (typeof omega0 !== 'number') return applyExact(w, chem, amount); // calcium unknown: warned below
+  if (omega0 >= 1) return stop(applyExact(w, chem, part(0)), 0);
+  // A dose so large the water cannot be described (it would leave the fresh model) is far past
+  // saturation: count it as supersaturated rather than fail.
+  const below = (n: number): DoseResult | undefined => {
+    try {
+      const d = applyExact(w, chem, part(n));
+      return (d.water.solved.omega_calcite ?? 0) <= 1 ? d : undefined;
+    } catch {
+      return undefined;
+    }
+  };
+  const full = below(amount.moles);
+  if (full) return full;
+  let lo = 0;
+  let hi = amount.moles;
+  for (let i = 0; i < SATURATION_ITERATIONS; i++) {
+    const mid = (lo + hi) / 2;
+    if (below(mid)) lo = mid;
+    else hi = mid;
+  }
+  return stop(applyExact(w, chem, part(lo)), lo);
+}
+
+/** A mass in g, kg or t as a person weighs it. */
+function formatG(g: number): string {
+  const a = Math.abs(g);
+  if (a >= 1e6) return `${(g / 1e6).toPrecision(3)} t`;
+  if (a >= 1000) return `${(g / 1000).toPrecision(3)} kg`;
+  return `${g.toPrecision(3)} g`;
+}
+
+function applyExact(w: PlanWater, chem: Chemical, amount: Amount): DoseResult {
   const n = amount.moles;
   const nu = chem.perMole;
   const saline = w.solved.model === 'saline';
@@ -140,14 +200,6 @@ export function applyDose(w: PlanWater, chem: Chemical, amount: Amount): DoseRes
       warning(
         'acid-below-buffer',
         `This much ${chem.formula} takes the water below pH 4.5: its alkalinity is used up and the water is lethal to fish and corals.`,
-      ),
-    );
-  }
-  if (chem.id === 'calcium_carbonate' && n > 0 && (w.solved.omega_calcite ?? 0) >= 1) {
-    warnings.push(
-      warning(
-        'carbonate-will-not-dissolve',
-        'The water is already saturated with calcite (Ω ≥ 1): calcium carbonate added to it will not dissolve. The result shows what full dissolution would give.',
       ),
     );
   }

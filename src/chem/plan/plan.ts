@@ -7,14 +7,22 @@
  */
 
 import type { SolveOutput } from '../api';
-import { fail, type Issue, TufaError, toIssue } from '../errors';
+import { fail, type Issue, TufaError, toIssue, warning } from '../errors';
 import { alkalinityToEqKg } from '../units';
 import { readAmount } from './amount';
 import { type Cautions, cautionsFor } from './cautions';
 import { type Chemical, chemicalById } from './chemicals';
 import { applyDose, type DoseChange } from './dose';
 import { DEFAULT_AIR_PCO2_UATM, equilibrate } from './gas-exchange';
-import { amountForm, doseToTarget, splitDose, TARGET_QUANTITIES, type TargetQuantity } from './inverse';
+import {
+  amountForm,
+  doseToTarget,
+  quantityOf,
+  splitDose,
+  TARGET_QUANTITIES,
+  type TargetQuantity,
+} from './inverse';
+import { checkLimits, type PlanTrade } from './limits';
 import { mixWaters } from './mix';
 import { kgPerLitre, type PlanWater, planWater, readQuantity } from './water';
 
@@ -59,6 +67,8 @@ export interface PlanOutput {
   after: SolveOutput;
   water: Record<string, unknown>;
   cautions: Cautions;
+  /** Where a step, a part-dose or the result leaves the limits the cautions list (`plan-leaves-limits`). */
+  limit_warnings: Issue[];
 }
 
 export type PlanResult = PlanOutput | { error: Issue };
@@ -129,13 +139,81 @@ function runPlan(request: unknown): PlanOutput {
       throw e;
     }
   });
+  const trade = readTrade(req.trade);
+  const checked = steps.flatMap((s, i) => [
+    ...(s.substeps ?? []).map((p, j, all) => ({
+      where: `step ${i + 1}, part ${j + 1} of ${all.length}`,
+      water: p.after,
+    })),
+    { where: steps.length === 1 ? 'the result' : `step ${i + 1}`, water: s.after },
+  ]);
   return {
     before: start.solved,
     volume_l: start.volumeL,
     steps,
     after: w.solved,
     water: { ...w.input },
-    cautions: cautionsFor(used),
+    cautions: cautionsFor(used, { trade, saline: start.solved.model === 'saline' }),
+    limit_warnings: checkLimits(trade, start.solved, checked),
+  };
+}
+
+function readTrade(x: unknown): PlanTrade | undefined {
+  if (x === undefined || x === null || x === '') return undefined;
+  if (x === 'field' || x === 'aquarium' || x === 'aquaculture') return x;
+  fail('bad-trade', `trade must be field, aquarium or aquaculture; got ${JSON.stringify(x)}.`, 'trade');
+}
+
+/** A target quantity in words for messages: [name, unit]. */
+const TARGET_WORDS: Record<TargetQuantity, [string, string]> = {
+  alkalinity_umol_kg: ['alkalinity', 'µmol/kg'],
+  alkalinity_dkh: ['alkalinity', 'dKH'],
+  alkalinity_meq_l: ['alkalinity', 'meq/L'],
+  alkalinity_mg_l_caco3: ['alkalinity', 'mg/L as CaCO₃'],
+  ph: ['pH', ''],
+  omega_calcite: ['Ω calcite', ''],
+  omega_aragonite: ['Ω aragonite', ''],
+  co2_umol_kg: ['dissolved CO₂', 'µmol/kg'],
+  co2_mg_l: ['dissolved CO₂', 'mg/L'],
+  pco2_uatm: ['pCO₂', 'µatm'],
+  dic_umol_kg: ['DIC', 'µmol/kg'],
+  calcium_umol_kg: ['calcium', 'µmol/kg'],
+  calcium_mg_l: ['calcium', 'mg/L'],
+};
+
+/**
+ * Limestone cannot reach a target beyond calcite saturation: the plan says so and stops at the
+ * saturated water (the dose that saturates it, found by `applyDose`'s own stop), instead of
+ * predicting a water that full dissolution would give.
+ */
+function saturationStop(
+  w: PlanWater,
+  chem: Chemical,
+  form: ReturnType<typeof amountForm>,
+  q: TargetQuantity,
+  value: number,
+) {
+  // Far more limestone than any water dissolves: applyDose keeps only what dissolves.
+  const plenty = 2 * w.basisKg;
+  const d = applyDose(w, chem, form.amountFor(plenty));
+  const dissolved = plenty - (d.change.undissolved_g ?? 0) / chem.molarMassGPerMol;
+  const sat = applyDose(w, chem, form.amountFor(Math.max(dissolved, 0)));
+  const achieved = quantityOf(sat.water, q);
+  const [name, unit] = TARGET_WORDS[q];
+  const u = unit ? ` ${unit}` : '';
+  sat.warnings.push(
+    warning(
+      'target-beyond-saturation',
+      `${chem.name[0]!.toUpperCase()}${chem.name.slice(1)} stops dissolving when the water is saturated with calcite (Ω = 1), at ${name} ${Number(achieved.toPrecision(3))}${u}: the target ${value}${u} cannot be reached with it. The plan stops at saturation; use a soluble chemical (such as sodium bicarbonate or hydrated lime) to go further.`,
+      'target',
+    ),
+  );
+  return {
+    moles: Math.max(dissolved, 0),
+    dose: sat,
+    achieved,
+    miss: achieved - value,
+    warnings: [] as Issue[],
   };
 }
 
@@ -213,7 +291,14 @@ function runAction(w: PlanWater, a: Raw, used: Chemical[]): { step: PlanStep; wa
       const value = optNumber(target, q);
       if (value === undefined) fail('bad-target', `The target ${q} needs a number.`, 'target');
       const form = amountForm(a, chem);
-      const sol = doseToTarget(w, chem, form, q, value);
+      let sol: Pick<ReturnType<typeof doseToTarget>, 'moles' | 'dose' | 'achieved' | 'miss' | 'warnings'>;
+      try {
+        sol = doseToTarget(w, chem, form, q, value);
+      } catch (e) {
+        if (!(e instanceof TufaError && e.code === 'target-unreachable' && chem.id === 'calcium_carbonate'))
+          throw e;
+        sol = saturationStop(w, chem, form, q, value);
+      }
       const limits: { ph?: number; alkalinityUmolKg?: number } = {};
       const maxPh = optNumber(a, 'max_ph_step');
       const maxTa = optNumber(a, 'max_alkalinity_step_umol_kg');

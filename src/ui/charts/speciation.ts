@@ -33,6 +33,8 @@ export function drawSpeciation(
   samplePh: number | undefined,
   axisLabel: string,
   style: SpeciationStyle,
+  /** What the sample line says (default "sample 7.91"); e.g. the meter's reading on its own scale. */
+  markerLabel?: string,
 ): [number, number] {
   const dpr = globalThis.devicePixelRatio || 1;
   const cssW = canvas.clientWidth || 600;
@@ -106,7 +108,11 @@ export function drawSpeciation(
     g.fillStyle = style.marker;
     g.font = 'bold 13px system-ui, sans-serif';
     g.textAlign = X(samplePh) > m.l + w - 80 ? 'right' : 'left';
-    g.fillText(`sample ${samplePh.toFixed(2)}`, X(samplePh) + (g.textAlign === 'right' ? -4 : 4), m.t + 12);
+    g.fillText(
+      markerLabel ?? `sample ${samplePh.toFixed(2)}`,
+      X(samplePh) + (g.textAlign === 'right' ? -4 : 4),
+      m.t + 12,
+    );
   }
   return [lo, hi];
 }

@@ -75,6 +75,9 @@ export function createTimeChart(
       axes: [
         {
           ...axisStyle,
+          // Clock times with a date under them need about 70 px each: on a phone uPlot's default
+          // spacing let the labels of one day run into each other.
+          space: 72,
           values: (_u: uPlot, splits: number[], _axis: number, _space: number, incr: number) =>
             timeTicks(splits, incr, opts.locale),
         },
@@ -129,6 +132,8 @@ export function createTimeChart(
   plot.hooks.setData = [...(plot.hooks.setData ?? []), describe];
   plot.hooks.setScale = [...(plot.hooks.setScale ?? []), describe];
 
+  const stopPinch = pinchZoom(plot);
+
   const ro = new ResizeObserver(() => {
     const w = Math.max(200, el.clientWidth);
     if (w !== plot.width) plot.setSize({ width: w, height });
@@ -139,8 +144,53 @@ export function createTimeChart(
     plot,
     drawnPoints: () => plot.data[0]?.length ?? 0,
     destroy() {
+      stopPinch();
       ro.disconnect();
       plot.destroy();
     },
+  };
+}
+
+/**
+ * Two fingers on the plot zoom the time axis (uPlot has drag-to-zoom for a mouse only): the time
+ * under the fingers' midpoint stays put while the span scales with the distance between them.
+ * The existing setScale hook re-decimates the zoomed range.
+ */
+export function pinchZoom(plot: uPlot): () => void {
+  const over = plot.over;
+  let start: { mid: number; dist: number; min: number; max: number } | undefined;
+  const xs = (e: TouchEvent) => {
+    const r = over.getBoundingClientRect();
+    return [e.touches[0]!.clientX - r.left, e.touches[1]!.clientX - r.left] as const;
+  };
+  const onStart = (e: TouchEvent) => {
+    if (e.touches.length !== 2) return;
+    const [a, b] = xs(e);
+    const min = plot.scales.x?.min;
+    const max = plot.scales.x?.max;
+    if (min == null || max == null) return;
+    start = { mid: plot.posToVal((a + b) / 2, 'x'), dist: Math.max(Math.abs(a - b), 10), min, max };
+    e.preventDefault();
+  };
+  const onMove = (e: TouchEvent) => {
+    if (!start || e.touches.length !== 2) return;
+    e.preventDefault();
+    const [a, b] = xs(e);
+    const k = start.dist / Math.max(Math.abs(a - b), 10);
+    plot.setScale('x', {
+      min: start.mid - (start.mid - start.min) * k,
+      max: start.mid + (start.max - start.mid) * k,
+    });
+  };
+  const onEnd = () => {
+    start = undefined;
+  };
+  over.addEventListener('touchstart', onStart, { passive: false });
+  over.addEventListener('touchmove', onMove, { passive: false });
+  over.addEventListener('touchend', onEnd);
+  return () => {
+    over.removeEventListener('touchstart', onStart);
+    over.removeEventListener('touchmove', onMove);
+    over.removeEventListener('touchend', onEnd);
   };
 }

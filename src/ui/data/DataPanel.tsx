@@ -47,6 +47,11 @@ const ROLE_OPTIONS: { value: string; label: string }[] = [
   ),
 ];
 
+/** "1 reading", "2 readings". */
+function plural(n: number, word: string): string {
+  return `${n} ${n === 1 ? word : `${word}s`}`;
+}
+
 function fmt(v: unknown, digits = 4): string {
   return typeof v === 'number' && Number.isFinite(v) ? v.toPrecision(digits) : '—';
 }
@@ -305,7 +310,7 @@ export function DataPanel({
             {previewIssue && <p class="issue error">{previewIssue}</p>}
             {plan && (
               <p>
-                {plan.readingCount} readings ready
+                {plural(plan.readingCount, 'reading')} ready
                 {plan.newSites.length
                   ? `, new ${plan.newSites.length === 1 ? 'site' : 'sites'}: ${plan.newSites.map((s) => s.name).join(', ')}`
                   : ''}
@@ -315,8 +320,8 @@ export function DataPanel({
             {errors.length > 0 && (
               <div role="alert">
                 <p class="issue error">
-                  {errors.length} problems: nothing is imported until every row reads cleanly. Fix the file or
-                  the column choices.
+                  {plural(errors.length, 'problem')}: nothing is imported until every row reads cleanly. Fix
+                  the file or the column choices.
                 </p>
                 <table class="kv">
                   <thead>
@@ -342,8 +347,8 @@ export function DataPanel({
               </div>
             )}
             {report?.ok && (
-              <p class="issue warn" role="status">
-                Imported {report.written} readings
+              <p class={`issue ${report.warnings.length ? 'warn' : 'ok'}`} role="status">
+                Imported {plural(report.written, 'reading')}
                 {report.sitesCreated
                   ? ` and ${report.sitesCreated} new ${report.sitesCreated === 1 ? 'site' : 'sites'}`
                   : ''}
@@ -449,7 +454,7 @@ export function DataPanel({
           />
         </label>
         {restoreMsg && (
-          <p class="issue warn" role="status">
+          <p class={`issue ${restoreMsg.startsWith('Restored') ? 'ok' : 'error'}`} role="status">
             {restoreMsg}
           </p>
         )}

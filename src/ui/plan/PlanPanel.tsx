@@ -12,16 +12,20 @@ import { CHEMICAL_IDS, CHEMICALS, type ChemicalId } from '../../chem/plan/chemic
 import { TARGET_QUANTITIES, type TargetQuantity } from '../../chem/plan/inverse';
 import { isPlanError, type PlanOutput, type PlanResult } from '../../chem/plan/plan';
 import { planInWorker } from '../engine-client';
+import { plainWords } from '../plain-words';
 import {
   type AmountUnit,
+  change,
   compareRows,
   DEFAULT_FORM,
   FieldError,
+  massText,
   type PanelAction,
   type PanelForm,
   planRequest,
   show,
   speciation,
+  volumeText,
 } from './plan-model';
 import { formOfSavedPlan, type SavedPlan } from './saved-plan';
 
@@ -35,6 +39,8 @@ export interface PlanPanelProps {
   volumeL?: number;
   /** A plan saved with the reading: the panel opens with its fields and shows it again. */
   saved?: SavedPlan;
+  /** The site's trade: which limits the plan checks and which cautions it lists. */
+  trade?: 'field' | 'aquarium' | 'aquaculture';
   /** The engine call; defaults to `plan()` in the engine worker (a search never blocks the page). */
   engine?: (request: unknown) => PlanResult | Promise<PlanResult>;
 }
@@ -70,28 +76,28 @@ const S = {
     cursor: 'pointer',
   },
   table: { borderCollapse: 'collapse' as const, width: '100%', fontVariantNumeric: 'tabular-nums' },
-  cell: { borderBottom: `1px solid ${BORDER}`, padding: '0.35rem 0.5rem', textAlign: 'right' as const },
+  cell: { borderBottom: `1px solid ${BORDER}`, padding: '0.35rem 0.3rem', textAlign: 'right' as const },
   error: { color: DANGER, fontWeight: 600 },
 };
 
 const ACTION_LABELS: Record<PanelAction, string> = {
   reach: 'Dose to a target',
   add: 'Add or remove a chemical',
-  equilibrate: 'Aerate or add CO2 gas (CO2 exchange)',
+  equilibrate: 'Aerate or add CO₂ gas',
   mix: 'Mix with another water',
 };
 
 const TARGET_LABELS: Partial<Record<TargetQuantity, string>> = {
   alkalinity_dkh: 'alkalinity (dKH)',
   alkalinity_meq_l: 'alkalinity (meq/L)',
-  alkalinity_mg_l_caco3: 'alkalinity (mg/L as CaCO3)',
+  alkalinity_mg_l_caco3: 'alkalinity (mg/L as CaCO₃)',
   alkalinity_umol_kg: 'alkalinity (µmol/kg)',
   ph: 'pH',
   omega_aragonite: 'Ω aragonite',
   omega_calcite: 'Ω calcite',
-  co2_mg_l: 'CO2 (mg/L)',
-  co2_umol_kg: 'CO2* (µmol/kg)',
-  pco2_uatm: 'pCO2 (µatm)',
+  co2_mg_l: 'dissolved CO₂ (mg/L)',
+  co2_umol_kg: 'dissolved CO₂ (µmol/kg)',
+  pco2_uatm: 'pCO₂ (µatm)',
   dic_umol_kg: 'DIC (µmol/kg)',
   calcium_mg_l: 'calcium (mg/L)',
   calcium_umol_kg: 'calcium (µmol/kg)',
@@ -101,15 +107,16 @@ const TARGET_LABELS: Partial<Record<TargetQuantity, string>> = {
 async function runPlan(
   reading: Readonly<Record<string, unknown>>,
   form: PanelForm,
+  trade: PlanPanelProps['trade'],
   engine: (request: unknown) => PlanResult | Promise<PlanResult>,
 ): Promise<
   | { result: { request: Record<string, unknown>; out: PlanOutput } }
   | { problem: { field?: string; text: string } }
 > {
   try {
-    const request = planRequest(reading, form);
+    const request = { ...planRequest(reading, form), ...(trade ? { trade } : {}) };
     const r = await engine(request);
-    if (isPlanError(r)) return { problem: { text: `${r.error.message} (${r.error.code})` } };
+    if (isPlanError(r)) return { problem: { text: `${plainWords(r.error.message)} (${r.error.code})` } };
     return { result: { request, out: r } };
   } catch (err) {
     if (err instanceof FieldError) return { problem: { field: err.field, text: err.message } };
@@ -122,6 +129,7 @@ export function PlanPanel({
   onSave,
   volumeL,
   saved: savedPlan,
+  trade,
   engine = planInWorker,
 }: PlanPanelProps) {
   const [form, setForm] = useState<PanelForm>(() =>
@@ -132,14 +140,14 @@ export function PlanPanel({
   const [result, setResult] = useState<{ request: Record<string, unknown>; out: PlanOutput } | undefined>();
   const [problem, setProblem] = useState<{ field?: string; text: string } | undefined>();
   const [saved, setSaved] = useState(savedPlan !== undefined);
-  const show = (r: Awaited<ReturnType<typeof runPlan>>) => {
+  const showRun = (r: Awaited<ReturnType<typeof runPlan>>) => {
     setResult('result' in r ? r.result : undefined);
     setProblem('problem' in r ? r.problem : undefined);
   };
   // A saved plan is shown again, computed now from this reading's request (its "before" is today's truth).
   // biome-ignore lint/correctness/useExhaustiveDependencies: once, for the plan the panel opened with
   useEffect(() => {
-    if (savedPlan) void runPlan(reading, form, engine).then(show);
+    if (savedPlan) void runPlan(reading, form, trade, engine).then(showRun);
   }, []);
 
   const set = <K extends keyof PanelForm>(k: K, value: PanelForm[K]) => {
@@ -148,7 +156,7 @@ export function PlanPanel({
   };
   const run = async (e: Event) => {
     e.preventDefault();
-    show(await runPlan(reading, form, engine));
+    showRun(await runPlan(reading, form, trade, engine));
   };
 
   const field = (k: keyof PanelForm, label: string, hint?: string) => (
@@ -187,7 +195,10 @@ export function PlanPanel({
               ))}
             </select>
           </label>
-          {field('volumeL', 'Water volume (L)')}
+          {!(form.areaM2 || form.depthM) && field('volumeL', 'Water volume (L)')}
+          {trade === 'aquaculture' &&
+            field('areaM2', 'Pond area (m²)', 'with the depth, instead of the volume')}
+          {trade === 'aquaculture' && field('depthM', 'Mean depth (m)')}
           {needsChemical && (
             <label style={S.label}>
               <span>Chemical</span>
@@ -220,10 +231,10 @@ export function PlanPanel({
               </select>
             </label>
           )}
-          {form.action === 'add' && field('amount', 'Amount', 'negative removes CO2 or precipitates CaCO3')}
+          {form.action === 'add' && field('amount', 'Amount', 'negative removes CO₂ or precipitates CaCO₃')}
           {needsChemical && form.amountUnit === 'g' && field('purityPercent', 'Purity (%)')}
           {needsChemical && form.amountUnit === 'ml_stock' && field('stockMolL', 'Stock strength (mol/L)')}
-          {form.action === 'equilibrate' && field('targetPco2', 'Gas pCO2 (µatm)', '420 is outdoor air')}
+          {form.action === 'equilibrate' && field('targetPco2', 'Gas pCO₂ (µatm)', '420 is outdoor air')}
           {form.action === 'equilibrate' && field('fractionPercent', 'Share of the way to equilibrium (%)')}
           {form.action === 'reach' && (
             <label style={S.label}>
@@ -269,7 +280,17 @@ export function PlanPanel({
           </p>
         )}
       </div>
-      {result && <PlanResultView out={result.out} />}
+      {result && (
+        <PlanResultView
+          out={result.out}
+          trade={trade}
+          areaM2={
+            typeof result.request.volume_l === 'number' && form.areaM2
+              ? Number(form.areaM2.replace(',', '.'))
+              : undefined
+          }
+        />
+      )}
       {result && (
         <p>
           <button
@@ -294,20 +315,44 @@ export function PlanPanel({
   );
 }
 
-function PlanResultView({ out }: { out: PlanOutput }) {
+/** The rows each trade reads first in the before/after table. */
+const FIRST_ROWS: Record<NonNullable<PlanPanelProps['trade']>, string[]> = {
+  field: ['pco2_uatm', 'ph_nbs', 'saturation_index_calcite', 'alkalinity_meq_l', 'dic_umol_kg'],
+  aquarium: ['alkalinity_dkh', 'ph_nbs', 'omega_aragonite', 'calcium_total_umol_kg'],
+  aquaculture: ['alkalinity_mg_l_caco3', 'ph_nbs', 'co2_umol_kg', 'calcium_total_umol_kg'],
+};
+
+function PlanResultView({
+  out,
+  areaM2,
+  trade,
+}: {
+  out: PlanOutput;
+  areaM2?: number | undefined;
+  trade?: PlanPanelProps['trade'];
+}) {
   const step = out.steps[out.steps.length - 1]!;
-  const rows = compareRows(out.before, out.after);
+  const rows = compareRows(out.before, out.after, trade ? FIRST_ROWS[trade] : []);
   return (
     <div>
       <h3>Dose</h3>
-      <DoseSummary out={out} />
+      <DoseSummary out={out} areaM2={areaM2} />
+      {(out.limit_warnings ?? []).length > 0 && (
+        <ul class="plan-limits">
+          {out.limit_warnings.map((w) => (
+            <li class="issue warn" data-code={w.code}>
+              <code>{w.code}</code> {w.message}
+            </li>
+          ))}
+        </ul>
+      )}
       <h3>Speciation of DIC</h3>
       <SpeciationBars before={out.before} after={out.after} />
       <h3>Before and after</h3>
       <div style={{ overflowX: 'auto' }}>
-        <table style={S.table}>
+        <table style={S.table} class="plan-table">
           <caption style={{ textAlign: 'left', color: MUTED }}>
-            {out.before.model} model before, {out.after.model} model after; at{' '}
+            {modelWords(out.before.model)} before, {modelWords(out.after.model)} after; at{' '}
             {show(out.after.conditions.temperature_c)} °C
           </caption>
           <thead>
@@ -335,7 +380,7 @@ function PlanResultView({ out }: { out: PlanOutput }) {
                 <td style={S.cell}>{show(r.before)}</td>
                 <td style={S.cell}>{show(r.after)}</td>
                 <td style={S.cell}>
-                  {r.before !== undefined && r.after !== undefined ? show(r.after - r.before) : '—'}
+                  {r.before !== undefined && r.after !== undefined ? show(change(r.before, r.after)) : '—'}
                 </td>
               </tr>
             ))}
@@ -343,9 +388,11 @@ function PlanResultView({ out }: { out: PlanOutput }) {
         </table>
       </div>
       {step.warnings.length > 0 && (
-        <ul>
+        <ul class="warnings">
           {step.warnings.map((w) => (
-            <li style={{ color: DANGER }}>{w.message}</li>
+            <li class="issue warn">
+              <code>{w.code}</code> {plainWords(w.message)}
+            </li>
           ))}
         </ul>
       )}
@@ -360,36 +407,54 @@ function PlanResultView({ out }: { out: PlanOutput }) {
           </li>
         ))}
       </ul>
-      <p>Limits for animals:</p>
-      <ul>
-        {out.cautions.limits.map((l) => (
-          <li>
-            {l.what}{' '}
-            <span style={{ color: MUTED }}>({l.basis === 'sourced' ? l.source : 'common practice'})</span>
-          </li>
-        ))}
-      </ul>
+      {out.cautions.limits.length > 0 && (
+        <>
+          <p>Limits for animals (the plan checks its waters against them):</p>
+          <ul>
+            {out.cautions.limits.map((l) => (
+              <li>
+                {l.what}{' '}
+                <span style={{ color: MUTED }}>({l.basis === 'sourced' ? l.source : 'common practice'})</span>
+              </li>
+            ))}
+          </ul>
+        </>
+      )}
       <p style={{ fontWeight: 600 }}>{out.cautions.defer}</p>
     </div>
   );
 }
 
 function measureText(m: Record<string, number>): string {
-  if (m.stock_volume_ml !== undefined) return `${show(m.stock_volume_ml)} mL of stock`;
-  if (m.mass_g !== undefined) return `${show(m.mass_g)} g`;
+  if (m.stock_volume_ml !== undefined) return `${volumeText(m.stock_volume_ml)} of stock`;
+  if (m.mass_g !== undefined) return massText(m.mass_g);
   if (m.gas_volume_l !== undefined) return `${show(m.gas_volume_l)} L of gas`;
   return `${show(m.moles)} mol`;
 }
 
-function DoseSummary({ out }: { out: PlanOutput }) {
+function modelWords(model: string): string {
+  return model === 'fresh' ? 'fresh-water model' : 'sea-water model';
+}
+
+/** g/m³ and kg/ha, how pond managers write a liming rate (1 ha = 10 000 m²). */
+function perArea(g: number, out: PlanOutput, areaM2: number | undefined): string {
+  if (!areaM2 || !(areaM2 > 0)) return '';
+  const m3 = out.volume_l / 1000;
+  return ` (${show(g / m3)} g/m³, ${show(g / 1000 / (areaM2 / 10000))} kg/ha)`;
+}
+
+function DoseSummary({ out, areaM2 }: { out: PlanOutput; areaM2?: number | undefined }) {
   const s = out.steps[out.steps.length - 1]!;
   if (s.dose) {
     return (
       <div>
         <p>
           {CHEMICALS[s.dose.chemical as ChemicalId]?.name ?? s.dose.chemical}:{' '}
-          <strong>{measureText(s.dose.measure)}</strong> ({show(s.dose.moles)} mol) into {show(out.volume_l)}{' '}
-          L
+          <strong>{measureText(s.dose.measure)}</strong>
+          {s.dose.measure.mass_g !== undefined ? perArea(s.dose.measure.mass_g, out, areaM2) : ''} into{' '}
+          {out.volume_l >= 10000
+            ? `${Number((out.volume_l / 1000).toPrecision(4)).toLocaleString()} m³`
+            : `${show(out.volume_l)} L`}
           {s.target && (
             <>
               {' '}
@@ -402,9 +467,7 @@ function DoseSummary({ out }: { out: PlanOutput }) {
           <ol>
             {s.substeps.map((p) => (
               <li>
-                {measureText(p.dose.measure)}, then re-measure: pH{' '}
-                {show(p.after.model === 'fresh' ? p.after.ph_nbs : p.after.ph_total)}, alkalinity{' '}
-                {show(p.after.alkalinity_umol_kg)} µmol/kg
+                {measureText(p.dose.measure)}, then re-measure: pH {show(p.after.ph_nbs)} (meter)
               </li>
             ))}
           </ol>
@@ -415,7 +478,7 @@ function DoseSummary({ out }: { out: PlanOutput }) {
   if (s.exchange) {
     return (
       <p>
-        CO2 {s.exchange.co2_mol < 0 ? 'given off' : 'taken up'}: {show(Math.abs(s.exchange.co2_mol))} mol (
+        CO₂ {s.exchange.co2_mol < 0 ? 'given off' : 'taken up'}: {show(Math.abs(s.exchange.co2_mol))} mol (
         {show(s.exchange.fraction * 100)} % of the way to {show(s.exchange.target_pco2_uatm)} µatm).
       </p>
     );
@@ -425,9 +488,9 @@ function DoseSummary({ out }: { out: PlanOutput }) {
 }
 
 const SPECIES: { key: 'co2' | 'hco3' | 'co3'; label: string; fill: string }[] = [
-  { key: 'co2', label: 'CO2*', fill: v('tufa-series-1', '#6a51a3') },
-  { key: 'hco3', label: 'HCO3-', fill: v('tufa-series-2', '#2171b5') },
-  { key: 'co3', label: 'CO3--', fill: v('tufa-series-3', '#238b45') },
+  { key: 'co2', label: 'CO₂', fill: v('tufa-series-1', '#6a51a3') },
+  { key: 'hco3', label: 'HCO₃⁻', fill: v('tufa-series-2', '#2171b5') },
+  { key: 'co3', label: 'CO₃²⁻', fill: v('tufa-series-3', '#238b45') },
 ];
 
 /** Two stacked bars of DIC fractions; each segment also says its percentage in text. */

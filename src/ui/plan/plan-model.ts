@@ -7,6 +7,7 @@
 import type { SolveOutput } from '../../chem/api';
 import type { ChemicalId } from '../../chem/plan/chemicals';
 import type { TargetQuantity } from '../../chem/plan/inverse';
+import { denoise } from '../numbers';
 import { OUTPUTS, outputDef } from '../outputs';
 
 export type PanelAction = 'add' | 'equilibrate' | 'reach' | 'mix';
@@ -32,6 +33,9 @@ export interface PanelForm {
   mixSalinity: string;
   mixAlkalinity: string;
   mixPh: string;
+  /** Ponds: surface area (m²) and mean depth (m) give the volume and a dose per hectare. */
+  areaM2: string;
+  depthM: string;
 }
 
 export const DEFAULT_FORM: PanelForm = {
@@ -54,6 +58,8 @@ export const DEFAULT_FORM: PanelForm = {
   mixSalinity: '',
   mixAlkalinity: '',
   mixPh: '',
+  areaM2: '',
+  depthM: '',
 };
 
 export class FieldError extends Error {
@@ -87,7 +93,20 @@ export function planRequest(
   reading: Readonly<Record<string, unknown>>,
   f: PanelForm,
 ): Record<string, unknown> {
-  const volume = need(f.volumeL, 'volumeL', 'Water volume (L)');
+  const area = parseDecimal(f.areaM2, 'areaM2', 'Pond area (m²)');
+  const depth = parseDecimal(f.depthM, 'depthM', 'Mean depth (m)');
+  if ((area === undefined) !== (depth === undefined))
+    throw new FieldError(
+      area === undefined ? 'areaM2' : 'depthM',
+      'Give both the pond area and its mean depth.',
+    );
+  if (area !== undefined && depth !== undefined && (area <= 0 || depth <= 0))
+    throw new FieldError(area <= 0 ? 'areaM2' : 'depthM', 'Pond area and depth must be greater than zero.');
+  // 1 m³ = 1000 L: area × depth is the pond's volume.
+  const volume =
+    area !== undefined && depth !== undefined
+      ? area * depth * 1000
+      : need(f.volumeL, 'volumeL', 'Water volume (L)');
   let action: Record<string, unknown>;
   switch (f.action) {
     case 'add': {
@@ -163,7 +182,12 @@ function outputLabel(key: string): string {
 }
 
 /** Every numeric output of either water (top level and totals), labelled ones first. */
-export function compareRows(before: SolveOutput, after: SolveOutput): CompareRow[] {
+export function compareRows(
+  before: SolveOutput,
+  after: SolveOutput,
+  /** Keys the reader looks at first (the trade's own quantities), in this order. */
+  first: readonly string[] = [],
+): CompareRow[] {
   const flat = (o: SolveOutput): Record<string, number> => {
     const out: Record<string, number> = {};
     for (const [k, v] of Object.entries(o)) if (typeof v === 'number' && Number.isFinite(v)) out[k] = v;
@@ -173,14 +197,43 @@ export function compareRows(before: SolveOutput, after: SolveOutput): CompareRow
   const a = flat(before);
   const b = flat(after);
   const keys = [...new Set([...Object.keys(a), ...Object.keys(b)])];
-  const order = OUTPUTS.map((o) => o.key);
+  const order = [...first, ...OUTPUTS.map((o) => o.key).filter((k) => !first.includes(k))];
   keys.sort((x, y) => {
     const ix = order.indexOf(x);
     const iy = order.indexOf(y);
     if (ix >= 0 || iy >= 0) return (ix < 0 ? 99 : ix) - (iy < 0 ? 99 : iy);
     return x.localeCompare(y);
   });
-  return keys.map((k) => ({ key: k, label: outputLabel(k), before: a[k], after: b[k] }));
+  const fresh = before.model === 'fresh' && after.model === 'fresh';
+  return (
+    keys
+      // Zero before and after (no boron or sulfate in a fresh water, calcium not measured) says
+      // nothing; seawater pH scales mean nothing in fresh water.
+      .filter((k) => !(a[k] === 0 && b[k] === 0) && !(a[k] === undefined && b[k] === 0))
+      .filter((k) => !(fresh && ['ph_total', 'ph_free', 'ph_seawater'].includes(k)))
+      .map((k) => ({ key: k, label: outputLabel(k), before: a[k], after: b[k] }))
+  );
+}
+
+/** A change after − before, with rounding noise of the two values taken as zero. */
+export function change(before: number, after: number): number {
+  return denoise(after - before, Math.max(Math.abs(before), Math.abs(after)));
+}
+
+/** A mass as a person weighs it: g below 1 kg, kg below 1 t, then t. */
+export function massText(g: number): string {
+  const a = Math.abs(g);
+  if (a >= 1e6) return `${show(g / 1e6)} t`;
+  if (a >= 1000) return `${show(g / 1000)} kg`;
+  return `${show(g)} g`;
+}
+
+/** A volume of liquid: mL below 1 L, then L (and m³ above 10 000 L). */
+export function volumeText(ml: number): string {
+  const a = Math.abs(ml);
+  if (a >= 1e7) return `${show(ml / 1e6)} m³`;
+  if (a >= 1000) return `${show(ml / 1000)} L`;
+  return `${show(ml)} mL`;
 }
 
 /** Fractions of DIC as CO2*, HCO3- and CO3--. */
@@ -189,10 +242,10 @@ export function speciation(s: SolveOutput): { co2: number; hco3: number; co3: nu
   return { co2: s.co2_umol_kg / dic, hco3: s.hco3_umol_kg / dic, co3: s.co3_umol_kg / dic };
 }
 
-/** A number for a table cell: four significant figures, never NaN. */
+/** A number for a table cell: four significant figures, never NaN, no float noise (1e-11 → 0). */
 export function show(x: number | undefined): string {
   if (x === undefined || !Number.isFinite(x)) return '—';
-  if (x === 0) return '0';
+  if (Math.abs(x) < 1e-9) return '0';
   const a = Math.abs(x);
   return a >= 1000 ? x.toFixed(0) : x.toPrecision(4);
 }

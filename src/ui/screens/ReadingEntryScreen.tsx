@@ -8,13 +8,23 @@ import type { SolveResult } from '../../chem/api';
 import { isSolveError } from '../../chem/api';
 import type { Issue } from '../../chem/errors';
 import type { TitrateOutcome } from '../../chem/titration/titrate';
+import {
+  checkHistory,
+  checkPlausible,
+  type Profile,
+  QUANTITIES,
+  quantityById as quantity,
+  quantityForKey,
+  siteProfile,
+  tradeQuantities,
+  tradeUnits,
+} from '../../quantities';
 import { storeIssue } from '../../store/errors';
 import type { MeasuredValue, ReadingDoc, SiteDoc } from '../../store/schema';
 import { useApp } from '../app-context';
 import { solveReadingInWorker } from '../engine-client';
 import { formatNumber, parseDecimal } from '../numbers';
 import { plainWords } from '../plain-words';
-import { QUANTITIES, quantity, quantityForKey } from '../quantities';
 import { go } from '../router';
 import { askPersistenceAfterSave } from '../storage-state';
 import { ResultsPanel } from './ResultsPanel';
@@ -32,19 +42,28 @@ interface Row {
   text: string;
 }
 
+/** A new reading of this site: the trade's usual quantities, each in the trade's unit unless the
+ * site (or, for quantities the trade has no unit for, the user's Settings) chose another. */
 function defaultRows(site: SiteDoc | undefined, preferred: Record<string, string>): Row[] {
-  const units = { ...preferred, ...(site?.defaults.units ?? {}) };
-  const fresh =
-    site?.defaults.model === 'fresh' ||
-    (site && !['tank', 'other'].includes(site.kind) && site.defaults.model !== 'saline');
-  const ids = ['temperature', 'ph', 'alkalinity', fresh ? 'conductance' : 'salinity'];
-  return ids.map((id) => {
+  const profile = siteProfile(site);
+  const units = { ...preferred, ...tradeUnits(profile), ...(site?.defaults.units ?? {}) };
+  return tradeQuantities(profile).map((id) => {
     const q = quantity(id)!;
-    const unit = units[id] && q.units.some((u) => u.id === units[id]) ? units[id]! : q.units[0]!.id;
+    // A site with a usual salinity starts the row with it, in PSS-78 as the site states it.
+    const usual =
+      id === 'salinity' && site?.defaults.salinity !== undefined && !site.defaults.units?.salinity;
+    const unit = usual
+      ? 'pss'
+      : units[id] && q.units.some((u) => u.id === units[id])
+        ? units[id]!
+        : q.units[0]!.id;
     return {
       quantity: id,
       unit,
-      text: id === 'salinity' && site?.defaults.salinity !== undefined ? String(site.defaults.salinity) : '',
+      text:
+        id === 'salinity' && site?.defaults.salinity !== undefined && unit === 'pss'
+          ? String(site.defaults.salinity)
+          : '',
     };
   });
 }
@@ -77,6 +96,7 @@ export function ReadingEntryScreen(props: { siteId?: string; readingId?: string 
   const [loaded, setLoaded] = useState(false);
   const [tform, setTform] = useState<TitrationForm>(EMPTY_TITRATION);
   const [toutcome, setToutcome] = useState<TitrateOutcome>();
+  const [history, setHistory] = useState<MeasuredValue[]>([]);
   const seq = useRef(0);
 
   useEffect(() => {
@@ -105,6 +125,11 @@ export function ReadingEntryScreen(props: { siteId?: string; readingId?: string 
       }
       setSite(s);
       setLoaded(true);
+      if (s) {
+        // The site's own readings, for "this spring has read 7.1–7.3" beside an unusual value.
+        const past = await repo.listReadings(s.id, { newestFirst: true, limit: 200 });
+        setHistory(past.filter((r) => r.id !== props.readingId).flatMap((r) => r.values));
+      }
     })().catch((e) => setSaveIssue(storeIssue(e)));
   }, [props.siteId, props.readingId]);
 
@@ -169,7 +194,9 @@ export function ReadingEntryScreen(props: { siteId?: string; readingId?: string 
 
   const setRow = (i: number, patch: Partial<Row>) =>
     setRows(rows.map((r, j) => (j === i ? { ...r, ...patch } : r)));
-  const unused = QUANTITIES.filter((q) => !rows.some((r) => r.quantity === q.id));
+  const unused = QUANTITIES.filter((q) => q.form && !rows.some((r) => r.quantity === q.id));
+  const profile: Profile = siteProfile(site);
+  const fmt = (x: number) => formatNumber(x, locale, { digits: 4 });
 
   async function save(ev: Event) {
     ev.preventDefault();
@@ -251,6 +278,22 @@ export function ReadingEntryScreen(props: { siteId?: string; readingId?: string 
               q.plausible &&
               row.unit === q.units[0]!.id &&
               (value < q.plausible[0] || value > q.plausible[1]);
+            // The trade's everyday range (with a one-tap unit fix), then the site's own history.
+            const tradeNote =
+              value !== undefined && !plausibleNote
+                ? checkPlausible(profile, row.quantity, row.unit, value, fmt)
+                : undefined;
+            const historyNote =
+              value !== undefined && !plausibleNote && !tradeNote
+                ? checkHistory(
+                    profile,
+                    row.quantity,
+                    row.unit,
+                    value,
+                    history.filter((h) => h.quantity === row.quantity),
+                    fmt,
+                  )
+                : undefined;
             return (
               <div class="qrow" key={row.quantity}>
                 <label for={id}>{q.label}</label>
@@ -304,6 +347,25 @@ export function ReadingEntryScreen(props: { siteId?: string; readingId?: string 
                       typed).
                     </span>
                   )}
+                  {tradeNote && (
+                    <span class="issue warn" data-code={tradeNote.code}>
+                      <code>{tradeNote.code}</code> {tradeNote.message}
+                      {tradeNote.fixUnit && (
+                        <button
+                          type="button"
+                          class="fix"
+                          onClick={() => setRow(i, { unit: tradeNote.fixUnit! })}
+                        >
+                          Use {q.units.find((u) => u.id === tradeNote.fixUnit)?.label}
+                        </button>
+                      )}
+                    </span>
+                  )}
+                  {historyNote && (
+                    <span class="issue warn" data-code={historyNote.code}>
+                      <code>{historyNote.code}</code> {historyNote.message}
+                    </span>
+                  )}
                   {(byQuantity.get(row.quantity) ?? []).map((w, k) => (
                     <span key={`${w.code}-${k}`} class="issue warn">
                       <code>{w.code}</code> {plainWords(w.message)}
@@ -323,7 +385,15 @@ export function ReadingEntryScreen(props: { siteId?: string; readingId?: string 
                   if (q)
                     setRows([
                       ...rows,
-                      { quantity: q.id, unit: settings.units[q.id] ?? q.units[0]!.id, text: '' },
+                      {
+                        quantity: q.id,
+                        unit:
+                          site?.defaults.units?.[q.id] ??
+                          tradeUnits(profile)[q.id] ??
+                          settings.units[q.id] ??
+                          q.units[0]!.id,
+                        text: '',
+                      },
                     ]);
                 }}
               >
@@ -347,7 +417,7 @@ export function ReadingEntryScreen(props: { siteId?: string; readingId?: string 
             <textarea rows={2} value={notes} onInput={(e) => setNotes(e.currentTarget.value)} />
           </label>
         </fieldset>
-        <ResultsPanel result={result} busy={busy} />
+        <ResultsPanel result={result} busy={busy} profile={profile} values={values} />
       </div>
       {saveIssue && (
         <p class="issue error" role="alert">

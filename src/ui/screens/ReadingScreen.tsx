@@ -3,6 +3,7 @@
 import { useEffect, useRef, useState } from 'preact/hooks';
 import type { SolveOutput, SolveResult } from '../../chem/api';
 import { isSolveError } from '../../chem/api';
+import { quantityById as quantity, siteProfile } from '../../quantities';
 import type { ReadingRequest } from '../../reading/request';
 import { storeIssue } from '../../store/errors';
 import type { ReadingDoc, SiteDoc } from '../../store/schema';
@@ -10,9 +11,10 @@ import { teamRefusal } from '../../team/roles';
 import { useApp } from '../app-context';
 import { drawSpeciation, fractionsAt } from '../charts/speciation';
 import { solveReadingInWorker } from '../engine-client';
+import { dayPhSwing } from '../headline';
 import { formatDateTime, formatNumber } from '../numbers';
+import { constantName } from '../plain-words';
 import { asSavedPlan } from '../plan/saved-plan';
-import { quantity } from '../quantities';
 import { go } from '../router';
 import { useTeamIdentity } from '../sync/TeamRole';
 import { METHOD_LABELS } from '../titration';
@@ -35,30 +37,45 @@ function Speciation(props: { result: SolveOutput }) {
       : props.result.ph_total
   ) as number | undefined;
   const axis = fresh ? 'pH (activity)' : 'pH (total scale)';
+  // On the total scale the sample sits below what the meter read (NBS): say both, so a reef
+  // keeper who read 8.05 does not wonder where 7.91 came from.
+  const meter = props.result.ph_nbs;
+  const marker =
+    !fresh && samplePh !== undefined && typeof meter === 'number'
+      ? `meter ${formatNumber(meter, locale, { decimals: 2 })} = ${formatNumber(samplePh, locale, { decimals: 2 })} here`
+      : undefined;
   useEffect(() => {
     const c = ref.current;
     if (!c || pk1 === undefined || pk2 === undefined) return;
     const draw = () => {
       const css = getComputedStyle(document.documentElement);
       const v = (n: string, d: string) => css.getPropertyValue(n).trim() || d;
-      drawSpeciation(c, pk1, pk2, samplePh, axis, {
-        text: v('--text', '#1b1f23'),
-        grid: v('--grid', '#d5d9dc'),
-        colours: [v('--s1', '#3d55b8'), v('--s2', '#0b6e69'), v('--s3', '#b4451f')],
-        marker: v('--text', '#1b1f23'),
-      });
+      drawSpeciation(
+        c,
+        pk1,
+        pk2,
+        samplePh,
+        axis,
+        {
+          text: v('--text', '#1b1f23'),
+          grid: v('--grid', '#d5d9dc'),
+          colours: [v('--s1', '#3d55b8'), v('--s2', '#0b6e69'), v('--s3', '#b4451f')],
+          marker: v('--text', '#1b1f23'),
+        },
+        marker,
+      );
     };
     draw();
     const ro = new ResizeObserver(draw);
     ro.observe(c);
     return () => ro.disconnect();
-  }, [pk1, pk2, samplePh]);
+  }, [pk1, pk2, samplePh, marker]);
   if (pk1 === undefined || pk2 === undefined)
     return <p class="muted">The engine did not report pK1 and pK2; no diagram.</p>;
   const f = samplePh !== undefined ? fractionsAt(samplePh, pk1, pk2) : undefined;
   const pct = (x: number) => `${formatNumber(100 * x, locale, { decimals: 1 })} %`;
   const label = f
-    ? `Speciation diagram. At the sample's pH ${samplePh!.toFixed(2)}: CO2* ${pct(f.co2)}, bicarbonate ${pct(f.hco3)}, carbonate ${pct(f.co3)}.`
+    ? `Speciation diagram. At the sample's pH ${samplePh!.toFixed(2)}: dissolved CO₂ ${pct(f.co2)}, bicarbonate ${pct(f.hco3)}, carbonate ${pct(f.co3)}.`
     : 'Speciation diagram.';
   return (
     <figure class="speciation">
@@ -66,7 +83,9 @@ function Speciation(props: { result: SolveOutput }) {
       <figcaption>
         Share of dissolved inorganic carbon against pH for this water (pK1{' '}
         {formatNumber(pk1, locale, { decimals: 3 })}, pK2 {formatNumber(pk2, locale, { decimals: 3 })}).
-        {f && ` At the sample: CO₂* ${pct(f.co2)}, HCO₃⁻ ${pct(f.hco3)}, CO₃²⁻ ${pct(f.co3)}.`}
+        {f &&
+          ` At the sample: dissolved CO₂ ${pct(f.co2)}, bicarbonate ${pct(f.hco3)}, carbonate ${pct(f.co3)}.`}
+        {marker && ' The line marks the sample on the total scale the sea-water constants use.'}
       </figcaption>
     </figure>
   );
@@ -83,6 +102,18 @@ export function ReadingScreen(props: { readingId: string }) {
   const [request, setRequest] = useState<ReadingRequest>();
   // The planning panel carries the plan engine: loaded only when asked for.
   const [Planner, setPlanner] = useState<PlanPanelType>();
+  const [swing, setSwing] = useState<{ lo: number; hi: number; n: number }>();
+
+  // A pond manager's question: how far did pH swing today? (needs two readings of the day)
+  useEffect(() => {
+    if (!reading || siteProfile(site).trade !== 'aquaculture') return setSwing(undefined);
+    const t = new Date(reading.takenAt).getTime();
+    const iso = (ms: number) => new Date(ms).toISOString();
+    repo
+      .listReadings(reading.siteId, { from: iso(t - 86_400_000), to: iso(t + 86_400_000) })
+      .then((list) => setSwing(dayPhSwing(reading, list)))
+      .catch(() => setSwing(undefined));
+  }, [reading, site]);
 
   useEffect(() => {
     (async () => {
@@ -188,7 +219,13 @@ export function ReadingScreen(props: { readingId: string }) {
       )}
       <section class="panel" aria-labelledby="computed-h">
         <h2 id="computed-h">Computed</h2>
-        <ResultsPanel result={result} full />
+        <ResultsPanel
+          result={result}
+          full
+          profile={siteProfile(site)}
+          values={reading.values}
+          daySwing={swing}
+        />
         {request && <InputsUsed request={request} />}
       </section>
       {ok && (
@@ -208,16 +245,19 @@ export function ReadingScreen(props: { readingId: string }) {
               <tbody>
                 {Object.entries(ok.constants).map(([k, v]) => (
                   <tr key={k}>
-                    <th scope="row">{k}</th>
+                    <th scope="row">{constantName(k)}</th>
                     <td>{formatNumber(v, locale, { decimals: 4 })}</td>
                   </tr>
                 ))}
-                {Object.entries(ok.totals_umol_kg ?? {}).map(([k, v]) => (
-                  <tr key={`t-${k}`}>
-                    <th scope="row">total {k} (µmol/kg)</th>
-                    <td>{formatNumber(v, locale, { digits: 5 })}</td>
-                  </tr>
-                ))}
+                {Object.entries(ok.totals_umol_kg ?? {})
+                  // Fresh water has no assumed boron, sulfate or fluoride: a row of zeros says nothing.
+                  .filter(([, v]) => v !== 0)
+                  .map(([k, v]) => (
+                    <tr key={`t-${k}`}>
+                      <th scope="row">total {k} (µmol/kg)</th>
+                      <td>{formatNumber(v, locale, { digits: 5 })}</td>
+                    </tr>
+                  ))}
                 {ok.conditions && (
                   <tr>
                     <th scope="row">results refer to</th>
@@ -254,7 +294,7 @@ export function ReadingScreen(props: { readingId: string }) {
                   ))}
                 {Object.entries(ok.formulations).map(([k, v]) => (
                   <tr key={`f-${k}`}>
-                    <th scope="row">{k}</th>
+                    <th scope="row">{constantName(k)}</th>
                     <td>{v}</td>
                   </tr>
                 ))}
@@ -269,6 +309,7 @@ export function ReadingScreen(props: { readingId: string }) {
           <Planner
             reading={request.input}
             {...(savedPlan ? { saved: savedPlan } : {})}
+            trade={siteProfile(site).trade}
             onSave={async (plan) => {
               try {
                 setReading(await repo.updateReading(reading.id, { plan }));

@@ -44,7 +44,7 @@ export function SettingsScreen() {
 
   const set = (patch: Partial<Settings>) => saveSettings(patch);
   // A pH's scale is chosen below (and per site), not as a preferred unit.
-  const multiUnit = QUANTITIES.filter((q) => q.units.filter((u) => !u.options).length > 1);
+  const multiUnit = QUANTITIES.filter((q) => q.form && q.units.filter((u) => !u.options).length > 1);
   const warning = storage && evictionWarning(storage);
 
   return (

@@ -2,6 +2,7 @@
 
 import { useEffect, useState } from 'preact/hooks';
 import type { Issue } from '../../chem/errors';
+import { TRADES, type Trade, tradeOfKind } from '../../quantities';
 import { storeIssue } from '../../store/errors';
 import {
   SITE_KINDS,
@@ -20,6 +21,8 @@ export function SiteFormScreen(props: { siteId?: string }) {
   const [existing, setExisting] = useState<SiteDoc>();
   const [name, setName] = useState('');
   const [kind, setKind] = useState<SiteKind>('stream');
+  /** Empty: the trade follows the kind of water. */
+  const [trade, setTrade] = useState<Trade | ''>('');
   const [model, setModel] = useState<NonNullable<SiteDefaults['model']>>('auto');
   const [salinity, setSalinity] = useState('');
   const [lat, setLat] = useState('');
@@ -36,6 +39,7 @@ export function SiteFormScreen(props: { siteId?: string }) {
       setName(s.name);
       setKind(s.kind);
       setModel(s.defaults.model ?? 'auto');
+      setTrade(s.defaults.trade ?? '');
       setSalinity(
         s.defaults.salinity !== undefined ? formatNumber(s.defaults.salinity, locale, { digits: 6 }) : '',
       );
@@ -72,6 +76,8 @@ export function SiteFormScreen(props: { siteId?: string }) {
     setIssue(undefined);
     if (name.trim() === '') return setIssue({ code: 'site-name-missing', message: 'Give the site a name.' });
     const defaults: SiteDefaults = { ...(existing?.defaults ?? {}), model };
+    if (trade && trade !== tradeOfKind(kind)) defaults.trade = trade;
+    else delete defaults.trade;
     if (salinity.trim() !== '') {
       const p = parseDecimal(salinity, locale);
       if (!p.ok) return setIssue({ code: p.issue.code, message: `Salinity: ${p.issue.message}` });
@@ -113,6 +119,16 @@ export function SiteFormScreen(props: { siteId?: string }) {
           {SITE_KINDS.map((k) => (
             <option key={k} value={k}>
               {kindLabel(k)}
+            </option>
+          ))}
+        </select>
+      </label>
+      <label class="field">
+        <span>Trade (sets units, answers and cautions)</span>
+        <select value={trade || tradeOfKind(kind)} onChange={(e) => setTrade(e.currentTarget.value as Trade)}>
+          {TRADES.map((t) => (
+            <option key={t.id} value={t.id}>
+              {t.label}
             </option>
           ))}
         </select>

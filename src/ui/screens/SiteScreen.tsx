@@ -172,7 +172,9 @@ export function SiteScreen(props: { siteId: string }) {
         <div ref={chartEl} class="chart" data-testid="time-chart" />
         <p class="muted small">
           <span class="hint-mouse">Drag across the chart to zoom; double-click to zoom out.</span>
-          <span class="hint-touch">Tap the chart to read the values at that time.</span>
+          <span class="hint-touch">
+            Tap the chart to read the values at that time; pinch with two fingers to zoom in or out.
+          </span>
         </p>
         {chartNote && <p class="issue warn">{chartNote}</p>}
         <details class="chart-controls">

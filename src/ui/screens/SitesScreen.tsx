@@ -12,8 +12,11 @@ const KIND_LABEL: Record<SiteDoc['kind'], string> = {
   well: 'Well',
   lake: 'Lake',
   pond: 'Pond',
-  tank: 'Tank',
+  tank: 'Freshwater tank',
   other: 'Other',
+  reef: 'Reef tank',
+  raceway: 'Raceway',
+  recirculating: 'Recirculating system',
 };
 
 export function kindLabel(k: SiteDoc['kind']): string {
@@ -79,7 +82,7 @@ export function SitesScreen() {
             <a class="card" href={`#/site/${s.id}`}>
               <span class="card-title">{s.name}</span>
               <span class="card-meta">
-                {kindLabel(s.kind)} · {counts[s.id] ?? '…'} readings
+                {kindLabel(s.kind)} · {counts[s.id] ?? '…'} {counts[s.id] === 1 ? 'reading' : 'readings'}
               </span>
             </a>
           </li>

@@ -143,7 +143,11 @@ export function guessRoles(header: readonly string[]): ColumnRole[] {
     // Our own export names (engine keys) map exactly, so an exported file re-imports as it was.
     const exact = EXACT.get(h.trim().toLowerCase());
     if (exact) {
-      const id = exact.role === 'value' ? `value:${exact.quantity}` : exact.role;
+      // One column per quantity and role: a titration's alkalinity and its DIC are two columns.
+      const id =
+        exact.role === 'value' || exact.role === 'titration-value'
+          ? `${exact.role}:${exact.quantity}`
+          : exact.role;
       if (!used.has(id)) {
         used.add(id);
         return exact;

@@ -22,7 +22,7 @@ let browser: Browser | undefined;
 afterAll(async () => {
   await browser?.close().catch(() => undefined);
   if (proc && proc.exitCode === null) proc.kill('SIGKILL');
-  rmSync(profile, { recursive: true, force: true });
+  rmSync(profile, { recursive: true, force: true, maxRetries: 5, retryDelay: 200 });
 });
 
 /** Starts Chromium on the shared profile and connects to it; returns the first page. */
@@ -145,7 +145,12 @@ describe('killing the browser', () => {
       });
       await page.getByText(`${ROWS} readings ready`).waitFor({ timeout: 60_000 });
       await page.getByRole('button', { name: `Import ${ROWS} readings` }).click();
-      await page.getByRole('button', { name: 'Importing…' }).waitFor({ timeout: 60_000 });
+      // The worker computes every row, then stores them ("Importing…"). On a loaded machine either
+      // phase can pass between two looks; the kill then lands later, which all-or-nothing covers too.
+      await page
+        .getByRole('button', { name: /^(Computing|Importing)/ })
+        .waitFor({ timeout: 60_000 })
+        .catch(() => undefined);
       await new Promise((r) => setTimeout(r, delay));
       await kill();
 
@@ -179,9 +184,9 @@ describe('killing the browser', () => {
     const withSite = await counts(page);
     await page.getByRole('link', { name: 'New reading' }).click();
     await page.getByLabel('Temperature', { exact: true }).fill('15');
-    await page.getByLabel('Salinity', { exact: true }).fill('34');
     await page.getByLabel('pH', { exact: true }).fill('8.0');
-    await page.getByLabel('Alkalinity', { exact: true }).fill('2300');
+    // In the trade's own unit (meq/L at a site imported without a kind, dKH in a tank): both fit.
+    await page.getByLabel('Alkalinity', { exact: true }).fill('2.3');
     // First a save that completes: the app asks for persistent storage after it.
     await page.getByRole('button', { name: /^Save/ }).click();
     await page.getByText('Reading saved on this device.').waitFor();
@@ -189,9 +194,8 @@ describe('killing the browser', () => {
     // Then a second reading, killed at the moment of the click.
     await page.getByRole('link', { name: 'Another reading here' }).click();
     await page.getByLabel('Temperature', { exact: true }).fill('16');
-    await page.getByLabel('Salinity', { exact: true }).fill('34');
     await page.getByLabel('pH', { exact: true }).fill('8.1');
-    await page.getByLabel('Alkalinity', { exact: true }).fill('2310');
+    await page.getByLabel('Alkalinity', { exact: true }).fill('2.31');
     await page.getByRole('button', { name: /^Save/ }).click({ noWaitAfter: true });
     await kill();
 

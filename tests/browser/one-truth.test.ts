@@ -9,6 +9,7 @@ import { readFileSync } from 'node:fs';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { solve } from '../../src/chem/solve';
+import { DEFAULT_TITRATION_METHOD } from '../../src/chem/titration/types';
 import { readingRequest } from '../../src/reading/request';
 import type { MeasuredValue, SiteDoc } from '../../src/store/schema';
 import { DEFAULT_SETTINGS } from '../../src/store/settings';
@@ -53,7 +54,7 @@ async function readingPageValues(page: Page): Promise<Record<string, number>> {
   const out: Record<string, number> = {};
   for (const k of KEYS) {
     const el = page.locator(`.results .output[data-key="${k}"]`).first();
-    await el.waitFor({ timeout: 20_000 });
+    await el.waitFor({ state: 'attached', timeout: 20_000 });
     out[k] = Number(await el.getAttribute('data-value'));
   }
   return out;
@@ -67,7 +68,9 @@ describe('one reading, one truth', () => {
       { quantity: 'conductance', value: 480, unit: 'us_cm' },
     ];
     const site = { defaults: { model: 'fresh' } } as SiteDoc;
-    const truth = solve(readingRequest({ values, titration: KESTREL }, site, DEFAULT_SETTINGS).input);
+    // The form saves its default reduction with the points (src/chem/titration/types.ts).
+    const titration = { ...KESTREL, method: DEFAULT_TITRATION_METHOD };
+    const truth = solve(readingRequest({ values, titration }, site, DEFAULT_SETTINGS).input);
     if ('error' in truth) throw new Error(truth.error.message);
 
     const page = await (await newContext(browser)).newPage();
@@ -88,7 +91,9 @@ describe('one reading, one truth', () => {
     await page
       .getByLabel('Points: acid added (mL) and pH, one pair per line')
       .fill(KESTREL.points.map((p) => `${p.volumeMl}\t${p.ph}`).join('\n'));
-    await page.locator('.results .output[data-key="dic_umol_kg"]').waitFor({ timeout: 20_000 });
+    await page
+      .locator('.results .output[data-key="dic_umol_kg"]')
+      .waitFor({ state: 'attached', timeout: 20_000 });
     await page.getByRole('button', { name: 'Save reading' }).click();
     await page.getByRole('heading', { name: 'Titration' }).waitFor();
     const readingId = decodeURIComponent(page.url().split('#/reading/')[1]!.split('/')[0]!);
@@ -109,7 +114,7 @@ describe('one reading, one truth', () => {
     await page.getByLabel('What to do').selectOption('equilibrate');
     await page.getByRole('button', { name: 'Show the result' }).click();
     for (const k of KEYS) {
-      const row = page.locator(`tr[data-key="${k}"]`).first();
+      const row = page.locator(`.plan-table tr[data-key="${k}"]`).first();
       await row.waitFor({ timeout: 20_000 });
       expect(near(Number(await row.getAttribute('data-before')), onPage[k]!), `planner ${k}`).toBeLessThan(
         1e-9,
@@ -127,7 +132,7 @@ describe('one reading, one truth', () => {
     );
     await page.getByRole('button', { name: 'Open the saved plan in the planner' }).click();
     expect(await page.getByLabel('What to do').inputValue()).toBe('equilibrate');
-    await page.locator('tr[data-key="dic_umol_kg"]').first().waitFor();
+    await page.locator('.plan-table tr[data-key="dic_umol_kg"]').first().waitFor();
 
     // 3. The CSV export of the site.
     await page.locator(`a[href^="#/site/"]`).first().click();

@@ -266,15 +266,6 @@ export function SyncPanel({
         </div>
       </div>
 
-      {connected && (
-        <KeepSites
-          key={`${connected.url}|${connected.db}`}
-          service={service}
-          connection={connected}
-          onSaved={(keepSites) => setForm((f) => ({ ...f, keepSites }))}
-        />
-      )}
-
       {conflicts.length > 0 && (
         <section aria-labelledby="conflicts-h">
           <h3 id="conflicts-h">Conflicts to decide ({conflicts.length})</h3>
@@ -287,6 +278,14 @@ export function SyncPanel({
             />
           ))}
         </section>
+      )}
+      {connected && (
+        <KeepSites
+          key={`${connected.url}|${connected.db}`}
+          service={service}
+          connection={connected}
+          onSaved={(keepSites) => setForm((f) => ({ ...f, keepSites }))}
+        />
       )}
       <form class="panel" onSubmit={save} aria-labelledby="sync-server-h">
         <h3 id="sync-server-h">Server</h3>

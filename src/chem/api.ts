@@ -8,7 +8,13 @@ import type { Issue } from './errors';
 
 export type ModelChoice = 'saline' | 'fresh' | 'auto';
 export type PhScaleName = 'total' | 'free' | 'seawater' | 'nbs';
-export type CarbonicConstants = 'lueker2000' | 'millero2010';
+/**
+ * K1 and K2 of the saline model: `auto` (the default) takes Millero (2010) below S 19 and
+ * Lueker et al. (2000) from S 25, blended in between (`saline/carbonic.ts`); the others are used at
+ * every salinity.
+ */
+export type CarbonicConstants = 'auto' | 'lueker2000' | 'millero2010';
+export const CARBONIC_CONSTANT_CHOICES: readonly CarbonicConstants[] = ['auto', 'lueker2000', 'millero2010'];
 export type BoronTotal = 'lee2010' | 'uppstrom1974';
 
 /** The eight carbonate parameters a pair can be chosen from (input key names). */

@@ -29,7 +29,7 @@ Input: one JSON object per line (or a CSV whose header row uses the same names).
     pco2_uatm, fco2_uatm, co2_umol_kg   (one family: never a pair on their own)
     hco3_umol_kg, co3_umol_kg
   optional: phosphate_umol_kg silicate_umol_kg ammonia_umol_kg sulfide_umol_kg calcium_umol_kg
-            carbonic_constants (lueker2000 | millero2010)   boron_total (lee2010 | uppstrom1974)
+            carbonic_constants (auto | lueker2000 | millero2010)   boron_total (lee2010 | uppstrom1974)
             fluoride_constant (perezfraga1987 | dicksonriley1979)
             output_temperature_c output_pressure_dbar   pair (e.g. "ph+alkalinity_umol_kg")
             root (high-ph | low-ph: which root of a two-root pair is reported first)

@@ -36,7 +36,8 @@ Input: one JSON object per line (or a CSV whose header row uses the same names).
             uncertainty: {"<input key>": standard uncertainty, ..., "constants": true} (JSON only)
               adds "uncertainty": {"<output>": {standard_uncertainty, dominant_input, contributions}}
   model                  saline | fresh | auto (default). auto: fresh below salinity 2, from salinity,
-                         else specific conductance, ionic strength or TDS; S 0.5–5 warns (brackish)
+                         else specific conductance, ionic strength or TDS; S 0.5–5 warns (brackish);
+                         below S 2 without major ions the saline constants are blended in (no jump at 2)
   fresh water (ph is the activity pH, ph_scale nbs, unless ph_scale is given):
     alkalinity_mg_l_caco3 | alkalinity_meq_l | alkalinity_dkh   (instead of alkalinity_umol_kg)
     calcium_mg_l magnesium_mg_l sodium_mg_l potassium_mg_l chloride_mg_l sulfate_mg_l

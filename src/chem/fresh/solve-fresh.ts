@@ -8,9 +8,11 @@
 import type { FreshWaterOutputs } from '../api';
 import { type Issue, toIssue, warning } from '../errors';
 import { MOLAR_MASS_G_PER_MOL } from '../physical';
+import { type SalineOptions, salineCanEvaluate, salineConstants } from '../saline/constants';
 import type { CarbonateState, Conditions, MinorTotals } from '../types';
 import { alkalinityFromEqKg } from '../units';
 import { type FreshConstantSet, freshConstants } from './constants';
+import { blendTowardSaline } from './handover';
 import {
   langelierIndex,
   phAtAirEquilibrium,
@@ -32,6 +34,11 @@ export interface FreshContext {
   /** kg of water per litre of sample, for the per-litre outputs. */
   kgWaterPerL: number;
   minor: MinorTotals;
+  /**
+   * Set when the automatic model choice hands a water known only by salinity (or conductance)
+   * over to the saline model: the saline constants at this salinity are blended in (`handover.ts`).
+   */
+  handover?: { salinity: number; weight: number; saline: SalineOptions };
 }
 
 /** Iteration limits for ionic strength from species: |ΔI| ≤ 1e-13 + 1e-10·I within 30 passes. */
@@ -43,6 +50,18 @@ export function freshConstantsAt(
   ionicStrength: number,
   ctx: FreshContext,
 ): FreshConstantSet {
+  const k = freshOwnConstantsAt(cond, ionicStrength, ctx);
+  const h = ctx.handover;
+  if (h === undefined || !(h.weight > 0) || !salineCanEvaluate(cond.temperatureC)) return k;
+  // At the surface: the fresh model has no pressure terms (it warns), so neither does its blend.
+  const ks = salineConstants(
+    { temperatureC: cond.temperatureC, salinity: h.salinity, pressureDbar: 0 },
+    h.saline,
+  );
+  return blendTowardSaline(k, ks, h.weight);
+}
+
+function freshOwnConstantsAt(cond: Conditions, ionicStrength: number, ctx: FreshContext): FreshConstantSet {
   return freshConstants(cond, {
     ionicStrength,
     activity: ctx.fresh.activity,

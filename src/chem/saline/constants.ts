@@ -103,6 +103,11 @@ const HARD_LIMITS = {
   pressureDbar: [0, 12000],
 } as const;
 
+/** True when `salineConstants` can be evaluated at this temperature (inside its hard limits). */
+export function salineCanEvaluate(temperatureC: number): boolean {
+  return temperatureC >= HARD_LIMITS.temperatureC[0] && temperatureC <= HARD_LIMITS.temperatureC[1];
+}
+
 const EMPTY_WARNINGS: Issue[] = Object.freeze([]) as unknown as Issue[];
 
 /** The ranges checked for every set, whatever the options. */

@@ -14,6 +14,7 @@ import { decideModel, freshContext } from './fresh/setup';
 import {
   assignFreshOutputs,
   type FreshContext,
+  freshIterates,
   freshOutputs,
   solveAtIonicStrength,
 } from './fresh/solve-fresh';
@@ -173,7 +174,7 @@ export function solveRequest(reqIn: SolveRequest, options: SolveOptions = {}): S
     );
     addUnique(warnings, first.warnings);
     let perRoot = first.result.map((s0, j) => {
-      if (j === 0 || !fresh.plan.iterate) return { k: shift(first.k), s: s0 };
+      if (j === 0 || !freshIterates(fresh)) return { k: shift(first.k), s: s0 };
       // Follow this root through the ionic-strength iteration.
       const own = solveAtIonicStrength(
         condIn,

@@ -21,6 +21,13 @@ import {
   ryznarIndex,
   saturationIndex,
 } from './indices';
+import {
+  type FreeAnions,
+  type FreeIons,
+  type PairTotals,
+  pairedIonicStrengthTerms,
+  speciate,
+} from './ion-pairs';
 import { chargeBalanceErrorPercent, ionicStrengthFromIons, type MajorIonsMolKg } from './ionic-strength';
 import type { FreshRequest, IonicStrengthPlan } from './request';
 
@@ -45,12 +52,17 @@ export interface FreshContext {
 export const IONIC_STRENGTH_REL_TOL = 1e-10;
 export const IONIC_STRENGTH_MAX_PASSES = 30;
 
+/**
+ * The fresh constant set at ionic strength I; `free` is the speciation of the paired ions (taken
+ * as their totals, all free, when not given and the water has any: a first estimate).
+ */
 export function freshConstantsAt(
   cond: Conditions,
   ionicStrength: number,
   ctx: FreshContext,
+  free: FreeIons | undefined = pairTotals(ctx),
 ): FreshConstantSet {
-  const k = freshOwnConstantsAt(cond, ionicStrength, ctx);
+  const k = freshOwnConstantsAt(cond, ionicStrength, ctx, free);
   const h = ctx.handover;
   if (h === undefined || !(h.weight > 0) || !salineCanEvaluate(cond.temperatureC)) return k;
   // At the surface: the fresh model has no pressure terms (it warns), so neither does its blend.
@@ -61,8 +73,14 @@ export function freshConstantsAt(
   return blendTowardSaline(k, ks, h.weight);
 }
 
-function freshOwnConstantsAt(cond: Conditions, ionicStrength: number, ctx: FreshContext): FreshConstantSet {
+function freshOwnConstantsAt(
+  cond: Conditions,
+  ionicStrength: number,
+  ctx: FreshContext,
+  free: FreeIons | undefined,
+): FreshConstantSet {
   return freshConstants(cond, {
+    freeIons: free,
     ionicStrength,
     activity: ctx.fresh.activity,
     dolomite: ctx.fresh.dolomite,
@@ -73,9 +91,41 @@ function freshOwnConstantsAt(cond: Conditions, ionicStrength: number, ctx: Fresh
   });
 }
 
+/**
+ * Totals of the ions that form pairs (mol/kg of water), or undefined when the water has none
+ * given: then every carbonate ion is free and the solve is the plain one.
+ */
+export function pairTotals(ctx: FreshContext): PairTotals | undefined {
+  const m = ctx.ionsMolKg;
+  const ca = ctx.calciumMolKg ?? 0;
+  const mg = ctx.magnesiumMolKg ?? 0;
+  if (!(ca > 0 || mg > 0 || m.na > 0 || m.k > 0 || m.so4 > 0)) return undefined;
+  return { ca, mg, na: m.na, k: m.k, so4: m.so4 };
+}
+
+/** True when the constants depend on the solved species (I from them, or ion pairs): each root then needs its own. */
+export function freshIterates(ctx: FreshContext): boolean {
+  return ctx.plan.iterate || pairTotals(ctx) !== undefined;
+}
+
+/** The free carbonate anions of a solved state (its HCO3-, CO3--, OH- are totals with pairs). */
+function freeAnions(s: CarbonateState, k: FreshConstantSet): FreeAnions {
+  const a = k.pairs?.alphas;
+  const oh = k.kw / s.h;
+  return a === undefined
+    ? { hco3: s.hco3, co3: s.co3, oh }
+    : { hco3: s.hco3 / a.hco3, co3: s.co3 / a.co3, oh: oh / a.oh };
+}
+
 /** I implied by a solved state: from the major ions, or from the alkalinity alone. */
 export function ionicStrengthOfState(s: CarbonateState, k: FreshConstantSet, ctx: FreshContext): number {
-  const species = { hco3: s.hco3, co3: s.co3, oh: k.kw / s.h, hFree: s.h * k.freeHFactor };
+  const hFree = s.h * k.freeHFactor;
+  if (ctx.plan.method === 'major-ions' && k.pairs !== undefined) {
+    // Free ions and charged pairs; Cl- (never paired here) and H+ added.
+    const a = freeAnions(s, k);
+    return pairedIonicStrengthTerms(k.pairs.betas, k.pairs.free, a) + 0.5 * (ctx.ionsMolKg.cl + hFree);
+  }
+  const species = { hco3: s.hco3, co3: s.co3, oh: k.kw / s.h, hFree };
   if (ctx.plan.method === 'major-ions') return ionicStrengthFromIons(ctx.ionsMolKg, species);
   // Sodium bicarbonate water: Na+ balances the alkalinity.
   return 0.5 * (Math.max(s.ta, 0) + species.hco3 + 4 * species.co3 + species.oh + species.hFree);
@@ -93,6 +143,8 @@ export function solveAtIonicStrength<T>(
   solveAt: (k: FreshConstantSet) => T,
   stateOf: (r: T) => CarbonateState,
 ): { k: FreshConstantSet; result: T; passes: number; warnings: Issue[] } {
+  const totals = pairTotals(ctx);
+  if (totals !== undefined) return solveWithPairs(cond, ctx, totals, solveAt, stateOf);
   let I = ctx.plan.initial;
   let k = freshConstantsAt(cond, I, ctx);
   let result = solveAt(k);
@@ -129,6 +181,64 @@ export function solveAtIonicStrength<T>(
   };
 }
 
+/**
+ * The solve with ion pairs: free Ca, Mg, Na, K, SO4 and (for I from the major ions) the ionic
+ * strength are iterated with the solved carbonate species. Each pass builds the constants at the
+ * current speciation, solves the pair, takes the free carbonate anions from the solved totals and
+ * makes one Gauss–Seidel sweep of the cation and sulfate balances (`ion-pairs.ts`); it stops when
+ * the free ions and I change by less than 1e-10 relative (absolute floor 1e-15 mol/kg), within 60
+ * passes. The error shrinks about tenfold per pass, alternating in sign (pairs lower I, which
+ * loosens them again), so 4 passes with I given and 10–13 with I from the ions are usual; a secant
+ * on I and an under-relaxed step were both tried and took more passes, not fewer.
+ */
+function solveWithPairs<T>(
+  cond: Conditions,
+  ctx: FreshContext,
+  totals: PairTotals,
+  solveAt: (k: FreshConstantSet) => T,
+  stateOf: (r: T) => CarbonateState,
+): { k: FreshConstantSet; result: T; passes: number; warnings: Issue[] } {
+  let I = ctx.plan.initial;
+  let free: FreeIons = totals;
+  let k = freshConstantsAt(cond, I, ctx, free);
+  let result = solveAt(k);
+  for (let pass = 2; pass <= PAIR_MAX_PASSES; pass++) {
+    const st = stateOf(result);
+    const next = speciate(k.pairs!.betas, totals, freeAnions(st, k), free);
+    const g = ctx.plan.iterate ? ionicStrengthOfState(st, k, ctx) : I;
+    const moved =
+      changed(free.ca, next.ca) ||
+      changed(free.mg, next.mg) ||
+      changed(free.na, next.na) ||
+      changed(free.k, next.k) ||
+      changed(free.so4, next.so4) ||
+      changed(I, g);
+    if (!moved) return { k, result, passes: pass - 1, warnings: [] };
+    free = next;
+    I = g;
+
+    k = freshConstantsAt(cond, I, ctx, free);
+    result = solveAt(k);
+  }
+  return {
+    k,
+    result,
+    passes: PAIR_MAX_PASSES,
+    warnings: [
+      warning(
+        'ion-pairs-not-converged',
+        `The ion pairs and the ionic strength did not settle within ${PAIR_MAX_PASSES} passes; results are approximate.`,
+      ),
+    ],
+  };
+}
+
+export const PAIR_MAX_PASSES = 60;
+
+function changed(a: number, b: number): boolean {
+  return Math.abs(b - a) > 1e-15 + IONIC_STRENGTH_REL_TOL * Math.abs(b);
+}
+
 export const TREATMENT_CAUTION =
   'The saturation indices and the precipitation potential are model estimates. Before dosing acid, lime, soda, CO2 or ' +
   'any conditioner: add it slowly and in steps, re-measure between steps, wear eye and skin protection, keep within ' +
@@ -162,6 +272,7 @@ export function freshOutputs(
   let siCalcite: number | undefined;
   let siAragonite: number | undefined;
   let siDolomite: number | undefined;
+  let siGypsum: number | undefined;
   let phs: number | undefined;
   let ccppMgL: number | undefined;
   let phAfterCcpp: number | undefined;
@@ -173,6 +284,8 @@ export function freshOutputs(
     siAragonite = finiteSi(ca * s.co3, k.kspAragonite);
     const mg = ctx.magnesiumMolKg;
     if (mg !== undefined && mg > 0) siDolomite = finiteSi(ca * mg * s.co3 * s.co3, k.kspDolomite);
+    const so4 = ctx.ionsMolKg.so4;
+    if (so4 > 0) siGypsum = finiteSi(ca * so4, k.kspGypsum);
     phs = phSaturationCalcite(s.ta, ca, k, ctx.minor);
     if (phs === undefined) {
       warnings.push(
@@ -233,6 +346,7 @@ export function freshOutputs(
     saturation_index_calcite: siCalcite,
     saturation_index_aragonite: siAragonite,
     saturation_index_dolomite: siDolomite,
+    saturation_index_gypsum: siGypsum,
     ph_saturation_calcite: phs,
     langelier_index: phs === undefined ? undefined : langelierIndex(ph, phs),
     ryznar_index: phs === undefined ? undefined : ryznarIndex(ph, phs),
@@ -240,6 +354,78 @@ export function freshOutputs(
     ph_after_ccpp: phAfterCcpp,
     treatment_caution: hasCa ? TREATMENT_CAUTION : undefined,
     charge_balance_error_percent: cbe,
+    charge_balance_meq_kg: ctx.plan.method === 'major-ions' ? chargeSums(ctx, s, k) : undefined,
+    ion_pairs: k.pairs === undefined ? undefined : pairFractions(k, s),
+  };
+}
+
+/** Cation and anion equivalents, meq/kg of water (pairs do not change them: see ionic-strength.ts). */
+function chargeSums(
+  ctx: FreshContext,
+  s: CarbonateState,
+  k: FreshConstantSet,
+): { cations: number; anions: number } {
+  const m = ctx.ionsMolKg;
+  return {
+    cations: (2 * m.ca + 2 * m.mg + m.na + m.k + s.h * k.freeHFactor) * 1e3,
+    anions: (m.cl + 2 * m.so4 + s.hco3 + 2 * s.co3 + k.kw / s.h) * 1e3,
+  };
+}
+
+/** Free and paired fractions of each paired family, and the free concentrations, from the solved state. */
+function pairFractions(k: FreshConstantSet, s: CarbonateState): NonNullable<FreshWaterOutputs['ion_pairs']> {
+  const { betas: b, free: f } = k.pairs!;
+  const a = freeAnions(s, k);
+  const frac = (parts: Record<string, number>): Record<string, number> => {
+    let sum = 0;
+    for (const v of Object.values(parts)) sum += v;
+    const out: Record<string, number> = {};
+    for (const [key, v] of Object.entries(parts)) out[key] = sum > 0 ? v / sum : 0;
+    return out;
+  };
+  return {
+    calcium: frac({
+      free: f.ca,
+      cahco3: b.caHco3 * f.ca * a.hco3,
+      caco3: b.caCo3 * f.ca * a.co3,
+      caso4: b.caSo4 * f.ca * f.so4,
+      caoh: b.caOh * f.ca * a.oh,
+    }),
+    magnesium: frac({
+      free: f.mg,
+      mghco3: b.mgHco3 * f.mg * a.hco3,
+      mgco3: b.mgCo3 * f.mg * a.co3,
+      mgso4: b.mgSo4 * f.mg * f.so4,
+      mgoh: b.mgOh * f.mg * a.oh,
+    }),
+    carbonate: frac({
+      free: a.co3,
+      caco3: b.caCo3 * f.ca * a.co3,
+      mgco3: b.mgCo3 * f.mg * a.co3,
+      naco3: b.naCo3 * f.na * a.co3,
+    }),
+    bicarbonate: frac({
+      free: a.hco3,
+      cahco3: b.caHco3 * f.ca * a.hco3,
+      mghco3: b.mgHco3 * f.mg * a.hco3,
+      nahco3: b.naHco3 * f.na * a.hco3,
+    }),
+    sulfate: frac({
+      free: f.so4,
+      caso4: b.caSo4 * f.ca * f.so4,
+      mgso4: b.mgSo4 * f.mg * f.so4,
+      naso4: b.naSo4 * f.na * f.so4,
+      kso4: b.kSo4 * f.k * f.so4,
+    }),
+    free_umol_kg: {
+      ca: f.ca * 1e6,
+      mg: f.mg * 1e6,
+      na: f.na * 1e6,
+      k: f.k * 1e6,
+      so4: f.so4 * 1e6,
+      hco3: a.hco3 * 1e6,
+      co3: a.co3 * 1e6,
+    },
   };
 }
 
@@ -273,6 +459,7 @@ export function assignFreshOutputs(target: Partial<FreshWaterOutputs>, f: FreshW
   target.saturation_index_calcite = f.saturation_index_calcite;
   target.saturation_index_aragonite = f.saturation_index_aragonite;
   target.saturation_index_dolomite = f.saturation_index_dolomite;
+  target.saturation_index_gypsum = f.saturation_index_gypsum;
   target.ph_saturation_calcite = f.ph_saturation_calcite;
   target.langelier_index = f.langelier_index;
   target.ryznar_index = f.ryznar_index;
@@ -280,4 +467,6 @@ export function assignFreshOutputs(target: Partial<FreshWaterOutputs>, f: FreshW
   target.ph_after_ccpp = f.ph_after_ccpp;
   target.treatment_caution = f.treatment_caution;
   target.charge_balance_error_percent = f.charge_balance_error_percent;
+  target.charge_balance_meq_kg = f.charge_balance_meq_kg;
+  target.ion_pairs = f.ion_pairs;
 }

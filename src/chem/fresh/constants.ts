@@ -18,12 +18,12 @@ import {
   activityCoefficients,
 } from './activity';
 import {
-  anionAlphas,
   conditionalBetas,
   type FreeIons,
   logKspGypsumNordstrom1990,
   type PairAlphas,
   type PairBeta,
+  pairAlphas,
   pairLogK,
 } from './ion-pairs';
 import {
@@ -260,13 +260,8 @@ export function freshConstants(cond: Conditions, opts: FreshOptions): FreshConst
   let pairs: FreshConstantSet['pairs'];
   if (opts.freeIons !== undefined) {
     const betas = conditionalBetas(pairLogK(tK, th.kw), g);
-    const f = opts.freeIons;
-    a = {
-      ...anionAlphas(betas, f),
-      ca: f.ca > 0 ? calcium / f.ca : 1,
-      mg: f.mg > 0 ? magnesium / f.mg : 1,
-    };
-    pairs = { betas, free: f, alphas: a };
+    a = pairAlphas(betas, opts.freeIons, calcium, magnesium);
+    pairs = { betas, free: opts.freeIons, alphas: a };
   }
   const ks = ((K.ks * g.HSO4) / (g.H * g.SO4)) * a.so4;
   const kf = (K.kf * gn) / (g.H * g.F);

@@ -138,9 +138,13 @@ export function pairLogK(tK: number, logKw: number): PairLogK {
 /** Conditional formation constants (concentrations, mol/kg of water) at one ionic strength. */
 export type PairBeta = PairLogK;
 
+let lastBetas: { lk: PairLogK; g: ActivityCoefficients; b: PairBeta } | undefined;
+
 export function conditionalBetas(lk: PairLogK, g: ActivityCoefficients): PairBeta {
+  // With I fixed the pass-by-pass solve asks for the same set again (same objects, cached upstream).
+  if (lastBetas !== undefined && lastBetas.lk === lk && lastBetas.g === g) return lastBetas.b;
   const g1 = g.HCO3; // charged pairs: charge 1, the 4 Å of HCO3-
-  return {
+  const b: PairBeta = {
     caHco3: (10 ** lk.caHco3 * g.Ca * g.HCO3) / g1,
     caCo3: 10 ** lk.caCo3 * g.Ca * g.CO3,
     caSo4: 10 ** lk.caSo4 * g.Ca * g.SO4,
@@ -154,6 +158,8 @@ export function conditionalBetas(lk: PairLogK, g: ActivityCoefficients): PairBet
     naSo4: (10 ** lk.naSo4 * g.Na * g.SO4) / g1,
     kSo4: (10 ** lk.kSo4 * g.K * g.SO4) / g1,
   };
+  lastBetas = { lk, g, b };
+  return b;
 }
 
 /** Free concentrations of the paired ions, mol/kg of water. */
@@ -175,16 +181,18 @@ export interface PairAlphas {
   mg: number;
 }
 
-/** Anion factors α from the free cations (the cation factors need the anions: see {@link speciate}). */
-export function anionAlphas(
-  b: PairBeta,
-  f: FreeIons,
-): { hco3: number; co3: number; oh: number; so4: number } {
+/**
+ * The factors α = total / free: anions from the free cations; Ca and Mg from their totals (the
+ * cation factors carry the anions through the free cations the speciation settled on).
+ */
+export function pairAlphas(b: PairBeta, f: FreeIons, calcium: number, magnesium: number): PairAlphas {
   return {
     hco3: 1 + b.caHco3 * f.ca + b.mgHco3 * f.mg + b.naHco3 * f.na,
     co3: 1 + b.caCo3 * f.ca + b.mgCo3 * f.mg + b.naCo3 * f.na,
     oh: 1 + b.caOh * f.ca + b.mgOh * f.mg,
     so4: 1 + b.caSo4 * f.ca + b.mgSo4 * f.mg + b.naSo4 * f.na + b.kSo4 * f.k,
+    ca: f.ca > 0 ? calcium / f.ca : 1,
+    mg: f.mg > 0 ? magnesium / f.mg : 1,
   };
 }
 

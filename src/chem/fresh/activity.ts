@@ -170,7 +170,13 @@ export function activityCoefficients(
   saltingOut: boolean,
 ): ActivityCoefficients {
   const c = lastGamma;
-  if (c !== undefined && c.tC === tC && c.i === ionicStrength && c.model === model && c.saltingOut === saltingOut)
+  if (
+    c !== undefined &&
+    c.tC === tC &&
+    c.i === ionicStrength &&
+    c.model === model &&
+    c.saltingOut === saltingOut
+  )
     return c.g;
   const g = activityCoefficientsAt(tC, ionicStrength, model, saltingOut);
   lastGamma = { tC, i: ionicStrength, model, saltingOut, g };

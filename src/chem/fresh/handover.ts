@@ -54,6 +54,23 @@ const ACID_KEYS = ['k1', 'k2', 'kw', 'kb', 'k1p', 'k2p', 'k3p', 'ksi', 'knh4', '
 /** Constants without H+: the same in both models' units (mol/kg; per kg of water or of solution differ by < 0.2 % below S 2). */
 const PLAIN_KEYS = ['k0', 'kspCalcite', 'kspAragonite'] as const;
 
+/** Fresh formulation keys and the saline ones of the same constant, for `formulations`. */
+const FORMULATION_KEYS: readonly (readonly [string, string])[] = [
+  ['k0', 'k0'],
+  ['k1', 'k1'],
+  ['k2', 'k2'],
+  ['kw', 'kw'],
+  ['kb', 'kb'],
+  ['k1p', 'k1p'],
+  ['k2p', 'k2p'],
+  ['k3p', 'k3p'],
+  ['ksi', 'ksi'],
+  ['knh4', 'knh4'],
+  ['kh2s', 'kh2s'],
+  ['ksp_calcite', 'kspCalcite'],
+  ['ksp_aragonite', 'kspAragonite'],
+];
+
 /**
  * The fresh set `kf` with its constants moved toward the saline set `ks` (same temperature and
  * salinity, at the surface) by weight `w` in log K. The saline acid constants (total scale,
@@ -80,8 +97,14 @@ export function blendTowardSaline(kf: FreshConstantSet, ks: ConstantSet, w: numb
     total: free * (1 + out.totalSulfate / kf.ks),
     seawater: free * (1 + out.totalSulfate / kf.ks + out.totalFluoride / kf.kf),
   };
+  const names: Record<string, string> = { ...kf.formulations };
+  for (const [freshKey, salineKey] of FORMULATION_KEYS) {
+    const saline = `${ks.formulations[salineKey]} (saline model, converted to the activity scale)`;
+    names[freshKey] =
+      w === 1 ? saline : `${kf.formulations[freshKey]} blended with ${saline}, weight ${w.toFixed(3)}`;
+  }
   out.formulations = {
-    ...kf.formulations,
+    ...names,
     handover: `weight ${w.toFixed(3)} of the saline constants at S ${ks.conditions.salinity.toPrecision(3)} (K1, K2: ${ks.formulations.k1}; K0: ${ks.formulations.k0}; Kw: ${ks.formulations.kw}; calcite, aragonite: ${ks.formulations.kspCalcite}; boron, sulfate, fluoride not given: from salinity), blended in log K with the fresh constants below S ${HANDOVER_FULL_SALINITY} (w = √S)`,
   };
   return out;

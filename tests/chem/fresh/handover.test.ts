@@ -89,7 +89,13 @@ describe('fresh/saline handover with default options', () => {
     expect(o.formulations.handover).toContain(`weight ${handoverWeight(0.2).toFixed(3)}`);
     expect(o.formulations.handover).toContain('Millero 2010');
     expect(o.warnings.map((w) => w.code)).not.toContain('brackish-water'); // S 0.2 is below the band
+    expect(o.formulations.k1).toContain('Plummer & Busenberg 1982 blended with Millero 2010');
     const b = out({ temperature_c: 15, salinity: 1.5, alkalinity_umol_kg: 2000, dic_umol_kg: 1950 });
+    // From S 0.5 the fresh model carries the saline constants, and says so per constant.
+    expect(b.formulations.k1).toBe(
+      'Millero 2010 (total scale) (saline model, converted to the activity scale)',
+    );
+    expect(b.formulations.kw).toContain('Millero 1995');
     expect(b.warnings.find((w) => w.code === 'brackish-water')?.message).toContain('formulations.handover');
   });
 

@@ -160,10 +160,11 @@ export function k2Millero2010SeawaterScale(tK: number, s: number): number {
  * both ends) from 0 at S 19 to 1 at S 25.
  *
  * Why: Lueker et al. (2000) is fitted for S 19–43 only; extrapolated to S 2 it puts pCO2 46 % above
- * Millero (2010), the formulation built for estuaries (S 1–50). Above S 19 both are inside their
- * data and agree within 0.003 in pK1 and 0.005 in pK2 (pCO2 within about 1 %), so a blend across
- * the lower edge of Lueker's range removes the step a hard switch at S 19 would leave, while the
- * open ocean keeps the marine default every published check value refers to.
+ * Millero (2010), the formulation built for estuaries (S 1–50). Between S 19 and 25 both are inside
+ * their data yet differ by up to 0.014 in pK1 and 0.027 in pK2 over 2–35 °C (pCO2 about 1 % at
+ * 15 °C, more in cold water), so a hard switch at S 19 would leave a step; the smoothstep spreads
+ * it over six salinity units (the sweep test checks second differences of ln pCO2), while the open
+ * ocean keeps the marine default every published check value refers to.
  */
 export const CARBONIC_AUTO_BAND = { from: 19, to: 25 } as const;
 

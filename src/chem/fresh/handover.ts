@@ -99,13 +99,13 @@ export function blendTowardSaline(kf: FreshConstantSet, ks: ConstantSet, w: numb
   };
   const names: Record<string, string> = { ...kf.formulations };
   for (const [freshKey, salineKey] of FORMULATION_KEYS) {
-    const saline = `${ks.formulations[salineKey]} (saline model, converted to the activity scale)`;
+    const saline = `${ks.formulations[salineKey]} (saline model${freshKey.startsWith('ksp') ? '' : ', converted to the activity scale'})`;
     names[freshKey] =
       w === 1 ? saline : `${kf.formulations[freshKey]} blended with ${saline}, weight ${w.toFixed(3)}`;
   }
   out.formulations = {
     ...names,
-    handover: `weight ${w.toFixed(3)} of the saline constants at S ${ks.conditions.salinity.toPrecision(3)} (K1, K2: ${ks.formulations.k1}; K0: ${ks.formulations.k0}; Kw: ${ks.formulations.kw}; calcite, aragonite: ${ks.formulations.kspCalcite}; boron, sulfate, fluoride not given: from salinity), blended in log K with the fresh constants below S ${HANDOVER_FULL_SALINITY} (w = √S)`,
+    handover: `weight ${w.toFixed(3)} of the saline constants at S ${ks.conditions.salinity.toPrecision(3)} (K1, K2: ${ks.formulations.k1}; K0: ${ks.formulations.k0}; Kw: ${ks.formulations.kw}; calcite, aragonite: ${ks.formulations.kspCalcite}; boron, sulfate, fluoride not given: from salinity), blended in log K with the fresh constants below S ${HANDOVER_FULL_SALINITY} (w = 1 − (1 − √(S/${HANDOVER_FULL_SALINITY}))²)`,
   };
   return out;
 }

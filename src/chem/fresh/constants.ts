@@ -128,14 +128,17 @@ const ACTIVITY_NAMES: Record<ActivityModel, string> = {
  * Formulation names per combination of options, built once: every row of a batch shares the
  * object (read-only), so a solve does not allocate it again.
  */
-const FORMULATIONS = new Map<string, Readonly<Record<string, string>>>();
+const FORMULATIONS = new Map<number, Readonly<Record<string, string>>>();
+const ACTIVITY_KEY: Record<ActivityModel, number> = { davies: 0, 'debye-huckel': 1, 'truesdell-jones': 2 };
 function formulationsFor(
   model: ActivityModel,
   saltingOut: boolean,
   dolomite: 'ordered' | 'disordered',
   pairs: boolean,
 ): Record<string, string> {
-  const key = `${model}|${saltingOut}|${dolomite}|${pairs}`;
+  // A number, not a template string: this runs on every pass of the ion-pair iteration.
+  const key =
+    ACTIVITY_KEY[model] + (saltingOut ? 4 : 0) + (dolomite === 'ordered' ? 8 : 0) + (pairs ? 16 : 0);
   let f = FORMULATIONS.get(key);
   if (f === undefined) {
     f = Object.freeze({

@@ -108,7 +108,29 @@ export interface PairLogK {
   kSo4: number;
 }
 
-let lastPairs: { tK: number; logKw: number; k: PairLogK } | undefined;
+let lastPairs: { tK: number; logKw: number; k: PairLogK; K: PairLogK } | undefined;
+
+/** The same constants as K = 10^log K, kept with the last temperature (the passes reuse them). */
+function pairK(lk: PairLogK): PairLogK {
+  if (lastPairs !== undefined && lastPairs.k === lk) return lastPairs.K;
+  return powers(lk);
+}
+function powers(lk: PairLogK): PairLogK {
+  return {
+    caHco3: 10 ** lk.caHco3,
+    caCo3: 10 ** lk.caCo3,
+    caSo4: 10 ** lk.caSo4,
+    caOh: 10 ** lk.caOh,
+    mgHco3: 10 ** lk.mgHco3,
+    mgCo3: 10 ** lk.mgCo3,
+    mgSo4: 10 ** lk.mgSo4,
+    mgOh: 10 ** lk.mgOh,
+    naCo3: 10 ** lk.naCo3,
+    naHco3: 10 ** lk.naHco3,
+    naSo4: 10 ** lk.naSo4,
+    kSo4: 10 ** lk.kSo4,
+  };
+}
 
 /**
  * log K of formation at temperature tK; `logKw` (thermodynamic) turns the hydrolysis constants
@@ -131,7 +153,7 @@ export function pairLogK(tK: number, logKw: number): PairLogK {
     naSo4: vantHoff(n.naSo4[0], n.naSo4[1], tK),
     kSo4: vantHoff(n.kSo4[0], n.kSo4[1], tK),
   };
-  lastPairs = { tK, logKw, k };
+  lastPairs = { tK, logKw, k, K: powers(k) };
   return k;
 }
 
@@ -144,19 +166,20 @@ export function conditionalBetas(lk: PairLogK, g: ActivityCoefficients): PairBet
   // With I fixed the pass-by-pass solve asks for the same set again (same objects, cached upstream).
   if (lastBetas !== undefined && lastBetas.lk === lk && lastBetas.g === g) return lastBetas.b;
   const g1 = g.HCO3; // charged pairs: charge 1, the 4 Å of HCO3-
+  const K = pairK(lk);
   const b: PairBeta = {
-    caHco3: (10 ** lk.caHco3 * g.Ca * g.HCO3) / g1,
-    caCo3: 10 ** lk.caCo3 * g.Ca * g.CO3,
-    caSo4: 10 ** lk.caSo4 * g.Ca * g.SO4,
-    caOh: (10 ** lk.caOh * g.Ca * g.OH) / g1,
-    mgHco3: (10 ** lk.mgHco3 * g.Mg * g.HCO3) / g1,
-    mgCo3: 10 ** lk.mgCo3 * g.Mg * g.CO3,
-    mgSo4: 10 ** lk.mgSo4 * g.Mg * g.SO4,
-    mgOh: (10 ** lk.mgOh * g.Mg * g.OH) / g1,
-    naCo3: (10 ** lk.naCo3 * g.Na * g.CO3) / g1,
-    naHco3: 10 ** lk.naHco3 * g.Na * g.HCO3,
-    naSo4: (10 ** lk.naSo4 * g.Na * g.SO4) / g1,
-    kSo4: (10 ** lk.kSo4 * g.K * g.SO4) / g1,
+    caHco3: (K.caHco3 * g.Ca * g.HCO3) / g1,
+    caCo3: K.caCo3 * g.Ca * g.CO3,
+    caSo4: K.caSo4 * g.Ca * g.SO4,
+    caOh: (K.caOh * g.Ca * g.OH) / g1,
+    mgHco3: (K.mgHco3 * g.Mg * g.HCO3) / g1,
+    mgCo3: K.mgCo3 * g.Mg * g.CO3,
+    mgSo4: K.mgSo4 * g.Mg * g.SO4,
+    mgOh: (K.mgOh * g.Mg * g.OH) / g1,
+    naCo3: (K.naCo3 * g.Na * g.CO3) / g1,
+    naHco3: K.naHco3 * g.Na * g.HCO3,
+    naSo4: (K.naSo4 * g.Na * g.SO4) / g1,
+    kSo4: (K.kSo4 * g.K * g.SO4) / g1,
   };
   lastBetas = { lk, g, b };
   return b;

@@ -201,13 +201,24 @@ function solveWithPairs<T>(
   stateOf: (r: T) => CarbonateState,
 ): { k: FreshConstantSet; result: T; passes: number; warnings: Issue[] } {
   let I = ctx.plan.initial;
+  // First pass with every ion free to pair (the totals); if the measured pair has no solution
+  // there — a DIC–HCO3- pair near its largest HCO3-/DIC ratio can lose it while the speciation is
+  // far from settled — start again from no pairs at all, which the plain model could solve.
   let free: FreeIons = totals;
-  let k = freshConstantsAt(cond, I, ctx, free);
-  let result = solveAt(k);
+  let k: FreshConstantSet;
+  let result: T;
+  try {
+    k = freshConstantsAt(cond, I, ctx, free);
+    result = solveAt(k);
+  } catch {
+    free = NONE_FREE;
+    k = freshConstantsAt(cond, I, ctx, free);
+    result = solveAt(k);
+  }
   for (let pass = 2; pass <= PAIR_MAX_PASSES; pass++) {
     const st = stateOf(result);
-    const next = speciate(k.pairs!.betas, totals, freeAnions(st, k), free);
-    const g = ctx.plan.iterate ? ionicStrengthOfState(st, k, ctx) : I;
+    let next = speciate(k.pairs!.betas, totals, freeAnions(st, k), free);
+    let g = ctx.plan.iterate ? ionicStrengthOfState(st, k, ctx) : I;
     const moved =
       changed(free.ca, next.ca) ||
       changed(free.mg, next.mg) ||
@@ -216,11 +227,21 @@ function solveWithPairs<T>(
       changed(free.so4, next.so4) ||
       changed(I, g);
     if (!moved) return { k, result, passes: pass - 1, warnings: [] };
+    // A step can still land where the measured pair has no solution; then halve it toward the last
+    // speciation, which had one (8 times at most).
+    for (let halving = 0; ; halving++) {
+      try {
+        k = freshConstantsAt(cond, g, ctx, next);
+        result = solveAt(k);
+        break;
+      } catch (e) {
+        if (halving >= 8) throw e;
+        next = halfway(free, next);
+        g = (I + g) / 2;
+      }
+    }
     free = next;
     I = g;
-
-    k = freshConstantsAt(cond, I, ctx, free);
-    result = solveAt(k);
   }
   return {
     k,
@@ -236,6 +257,16 @@ function solveWithPairs<T>(
 }
 
 export const PAIR_MAX_PASSES = 60;
+const NONE_FREE: FreeIons = Object.freeze({ ca: 0, mg: 0, na: 0, k: 0, so4: 0 });
+function halfway(a: FreeIons, b: FreeIons): FreeIons {
+  return {
+    ca: (a.ca + b.ca) / 2,
+    mg: (a.mg + b.mg) / 2,
+    na: (a.na + b.na) / 2,
+    k: (a.k + b.k) / 2,
+    so4: (a.so4 + b.so4) / 2,
+  };
+}
 
 function changed(a: number, b: number): boolean {
   return Math.abs(b - a) > 1e-15 + IONIC_STRENGTH_REL_TOL * Math.abs(b);
@@ -378,47 +409,63 @@ function chargeSums(
 function pairFractions(k: FreshConstantSet, s: CarbonateState): NonNullable<FreshWaterOutputs['ion_pairs']> {
   const { betas: b, free: f } = k.pairs!;
   const a = freeAnions(s, k);
-  const frac = (parts: Record<string, number>): Record<string, number> => {
-    let sum = 0;
-    for (const v of Object.values(parts)) sum += v;
-    const out: Record<string, number> = {};
-    for (const [key, v] of Object.entries(parts)) out[key] = sum > 0 ? v / sum : 0;
-    return out;
-  };
+  const ca = [
+    f.ca,
+    b.caHco3 * f.ca * a.hco3,
+    b.caCo3 * f.ca * a.co3,
+    b.caSo4 * f.ca * f.so4,
+    b.caOh * f.ca * a.oh,
+  ] as const;
+  const mg = [
+    f.mg,
+    b.mgHco3 * f.mg * a.hco3,
+    b.mgCo3 * f.mg * a.co3,
+    b.mgSo4 * f.mg * f.so4,
+    b.mgOh * f.mg * a.oh,
+  ] as const;
+  const co3 = [a.co3, ca[2], mg[2], b.naCo3 * f.na * a.co3] as const;
+  const hco3 = [a.hco3, ca[1], mg[1], b.naHco3 * f.na * a.hco3] as const;
+  const so4 = [f.so4, ca[3], mg[3], b.naSo4 * f.na * f.so4, b.kSo4 * f.k * f.so4] as const;
+  const over = (x: number, sum: number): number => (sum > 0 ? x / sum : 0);
+  const sCa = ca[0] + ca[1] + ca[2] + ca[3] + ca[4];
+  const sMg = mg[0] + mg[1] + mg[2] + mg[3] + mg[4];
+  const sCo3 = co3[0] + co3[1] + co3[2] + co3[3];
+  const sHco3 = hco3[0] + hco3[1] + hco3[2] + hco3[3];
+  const sSo4 = so4[0] + so4[1] + so4[2] + so4[3] + so4[4];
   return {
-    calcium: frac({
-      free: f.ca,
-      cahco3: b.caHco3 * f.ca * a.hco3,
-      caco3: b.caCo3 * f.ca * a.co3,
-      caso4: b.caSo4 * f.ca * f.so4,
-      caoh: b.caOh * f.ca * a.oh,
-    }),
-    magnesium: frac({
-      free: f.mg,
-      mghco3: b.mgHco3 * f.mg * a.hco3,
-      mgco3: b.mgCo3 * f.mg * a.co3,
-      mgso4: b.mgSo4 * f.mg * f.so4,
-      mgoh: b.mgOh * f.mg * a.oh,
-    }),
-    carbonate: frac({
-      free: a.co3,
-      caco3: b.caCo3 * f.ca * a.co3,
-      mgco3: b.mgCo3 * f.mg * a.co3,
-      naco3: b.naCo3 * f.na * a.co3,
-    }),
-    bicarbonate: frac({
-      free: a.hco3,
-      cahco3: b.caHco3 * f.ca * a.hco3,
-      mghco3: b.mgHco3 * f.mg * a.hco3,
-      nahco3: b.naHco3 * f.na * a.hco3,
-    }),
-    sulfate: frac({
-      free: f.so4,
-      caso4: b.caSo4 * f.ca * f.so4,
-      mgso4: b.mgSo4 * f.mg * f.so4,
-      naso4: b.naSo4 * f.na * f.so4,
-      kso4: b.kSo4 * f.k * f.so4,
-    }),
+    calcium: {
+      free: over(ca[0], sCa),
+      cahco3: over(ca[1], sCa),
+      caco3: over(ca[2], sCa),
+      caso4: over(ca[3], sCa),
+      caoh: over(ca[4], sCa),
+    },
+    magnesium: {
+      free: over(mg[0], sMg),
+      mghco3: over(mg[1], sMg),
+      mgco3: over(mg[2], sMg),
+      mgso4: over(mg[3], sMg),
+      mgoh: over(mg[4], sMg),
+    },
+    carbonate: {
+      free: over(co3[0], sCo3),
+      caco3: over(co3[1], sCo3),
+      mgco3: over(co3[2], sCo3),
+      naco3: over(co3[3], sCo3),
+    },
+    bicarbonate: {
+      free: over(hco3[0], sHco3),
+      cahco3: over(hco3[1], sHco3),
+      mghco3: over(hco3[2], sHco3),
+      nahco3: over(hco3[3], sHco3),
+    },
+    sulfate: {
+      free: over(so4[0], sSo4),
+      caso4: over(so4[1], sSo4),
+      mgso4: over(so4[2], sSo4),
+      naso4: over(so4[3], sSo4),
+      kso4: over(so4[4], sSo4),
+    },
     free_umol_kg: {
       ca: f.ca * 1e6,
       mg: f.mg * 1e6,

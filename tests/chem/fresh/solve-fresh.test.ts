@@ -230,7 +230,16 @@ describe('fresh round trips through solve()', () => {
             ? { ...spring, ph: undefined, alkalinity_mg_l_caco3: undefined, temperature_c: t }
             : { model: 'fresh', temperature_c: t, specific_conductance_us_cm: 600, calcium_mg_l: 50 };
           const truth = solved({ ...base, ph, dic_umol_kg: dic });
+          // DIC–HCO3- at the top of its curve has two roots that nearly meet: there the root moves
+          // with the square root of any change in the constants, and with ion pairs the constants
+          // of each root depend on the root (1e-10 in them is 1e-5 in pH). Left out when the
+          // discriminant of the quadratic is within 1 % of b² (roots closer than about 0.1 pH).
+          const k1 = 10 ** -truth.constants.pk1!;
+          const k2 = 10 ** -truth.constants.pk2!;
+          const bq = truth.dic_umol_kg / truth.hco3_umol_kg - 1;
+          const nearTop = (bq * bq - (4 * k2) / k1) / (bq * bq) < 0.01;
           for (const [a, b] of PAIRS) {
+            if (nearTop && a === 'dic_umol_kg' && b === 'hco3_umol_kg') continue;
             const again = [solved({ ...base, [a]: truth[OUT[a]], [b]: truth[OUT[b]] })];
             again.push(...((again[0]!.alternatives ?? []) as SolveOutput[]));
             const rel = Math.min(

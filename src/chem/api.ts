@@ -9,7 +9,13 @@ import type { TradeOutputs } from './trades/solveOutputs';
 
 export type ModelChoice = 'saline' | 'fresh' | 'auto';
 export type PhScaleName = 'total' | 'free' | 'seawater' | 'nbs';
-export type CarbonicConstants = 'lueker2000' | 'millero2010';
+/**
+ * K1 and K2 of the saline model: `auto` (the default) takes Millero (2010) below S 19 and
+ * Lueker et al. (2000) from S 25, blended in between (`saline/carbonic.ts`); the others are used at
+ * every salinity.
+ */
+export type CarbonicConstants = 'auto' | 'lueker2000' | 'millero2010';
+export const CARBONIC_CONSTANT_CHOICES: readonly CarbonicConstants[] = ['auto', 'lueker2000', 'millero2010'];
 export type BoronTotal = 'lee2010' | 'uppstrom1974';
 
 /** The eight carbonate parameters a pair can be chosen from (input key names). */
@@ -154,6 +160,8 @@ export interface FreshWaterOutputs {
   saturation_index_calcite?: number;
   saturation_index_aragonite?: number;
   saturation_index_dolomite?: number;
+  /** With calcium and sulfate given: gypsum, from free-ion activities (Nordstrom et al. 1990). */
+  saturation_index_gypsum?: number;
   /** pH of calcite saturation at the sample's alkalinity and calcium. */
   ph_saturation_calcite?: number;
   langelier_index?: number;
@@ -164,6 +172,21 @@ export interface FreshWaterOutputs {
   /** Cautions shown with every index a reader might dose chemicals on. */
   treatment_caution?: string;
   charge_balance_error_percent?: number;
+  /** With the major ions: the equivalents each side of the charge balance, meq/kg of water. */
+  charge_balance_meq_kg?: { cations: number; anions: number };
+  /**
+   * With Ca, Mg, Na, K or SO4 given: the speciation the ion pairs give (fractions of each total,
+   * summing to 1; free concentrations in µmol/kg of water). `hco3_umol_kg` and `co3_umol_kg`
+   * are totals, free plus paired, like the saline model's stoichiometric ones.
+   */
+  ion_pairs?: {
+    calcium: Record<string, number>;
+    magnesium: Record<string, number>;
+    carbonate: Record<string, number>;
+    bicarbonate: Record<string, number>;
+    sulfate: Record<string, number>;
+    free_umol_kg: Record<string, number>;
+  };
 }
 
 export interface Conditions {

@@ -5,7 +5,13 @@
  * here: the constant sets warn about those. Refused are values no water can have.
  */
 
-import { CARBONATE_KEYS, type CarbonateKey, type ModelChoice } from './api';
+import {
+  CARBONATE_KEYS,
+  CARBONIC_CONSTANT_CHOICES,
+  type CarbonateKey,
+  type CarbonicConstants,
+  type ModelChoice,
+} from './api';
 import { fail, type Issue, warning } from './errors';
 import { alkalinityFromFieldUnits, FRESH_INPUT_KEYS } from './fresh/request';
 import { MOLAR_MASS_G_PER_MOL } from './physical';
@@ -28,7 +34,7 @@ export interface SolveRequest {
   minor: MinorTotals;
   /** Measured calcium, mol/kg, when given. */
   calciumMolKg: number | undefined;
-  carbonic: 'lueker2000' | 'millero2010';
+  carbonic: CarbonicConstants;
   boron: 'lee2010' | 'uppstrom1974';
   fluoride: 'perezfraga1987' | 'dicksonriley1979';
   outTemperatureC: number;
@@ -232,7 +238,7 @@ export function parseSolveInput(input: unknown): SolveRequest {
     phScale: optionAt(raw, 'ph_scale', ['total', 'free', 'seawater', 'nbs'] as const, 'total'),
     minor,
     calciumMolKg,
-    carbonic: optionAt(raw, 'carbonic_constants', ['lueker2000', 'millero2010'] as const, 'lueker2000'),
+    carbonic: optionAt(raw, 'carbonic_constants', CARBONIC_CONSTANT_CHOICES, 'auto'),
     boron: optionAt(raw, 'boron_total', ['lee2010', 'uppstrom1974'] as const, 'lee2010'),
     fluoride: optionAt(
       raw,

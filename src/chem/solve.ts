@@ -15,6 +15,7 @@ import { decideModel, freshContext } from './fresh/setup';
 import {
   assignFreshOutputs,
   type FreshContext,
+  freshIterates,
   freshOutputs,
   solveAtIonicStrength,
 } from './fresh/solve-fresh';
@@ -180,14 +181,22 @@ export function solveRequest(reqIn: SolveRequest, options: SolveOptions = {}): S
     );
     addUnique(warnings, first.warnings);
     let perRoot = first.result.map((s0, j) => {
-      if (j === 0 || !fresh.plan.iterate) return { k: shift(first.k), s: s0 };
+      if (j === 0 || !freshIterates(fresh)) return { k: shift(first.k), s: s0 };
       // Follow this root through the ionic-strength iteration.
-      const own = solveAtIonicStrength(
-        condIn,
-        fresh,
-        (k) => solveIn(shift(k)),
-        (r) => nearest(r, s0.h),
-      );
+      let own: ReturnType<typeof solveAtIonicStrength<CarbonateState[]>>;
+      try {
+        own = solveAtIonicStrength(
+          condIn,
+          fresh,
+          (k) => solveIn(shift(k)),
+          (r) => nearest(r, s0.h),
+        );
+      } catch {
+        // Two roots that nearly meet (DIC–HCO3- at its largest ratio) can lose each other while
+        // the speciation settles: keep this one at the first root's constants, and say so.
+        addUnique(warnings, [ROOT_AT_FIRST_CONSTANTS]);
+        return { k: shift(first.k), s: s0 };
+      }
       addUnique(warnings, own.warnings);
       return { k: shift(own.k), s: nearest(own.result, s0.h) };
     });
@@ -266,6 +275,11 @@ export function solveRequest(reqIn: SolveRequest, options: SolveOptions = {}): S
 function tradeContext(req: SolveRequest): TradeContext {
   return { raw: req.raw, minor: req.minor, temperatureC: req.outTemperatureC, salinity: req.salinity ?? 0 };
 }
+
+const ROOT_AT_FIRST_CONSTANTS = warning(
+  'second-root-approximate',
+  'The second root could not be followed through the ion-pair iteration; it is reported at the constants of the first.',
+);
 
 /** Fresh-water keys the saline model uses as well (alkalinity in field units, calcium in mg/L). */
 const SALINE_USES: ReadonlySet<string> = new Set([

@@ -49,14 +49,15 @@ Input: one JSON object per line (or a table whose header row uses the same names
     pco2_uatm, fco2_uatm, co2_umol_kg   (one family: never a pair on their own)
     hco3_umol_kg, co3_umol_kg
   optional: phosphate_umol_kg silicate_umol_kg ammonia_umol_kg sulfide_umol_kg calcium_umol_kg
-            carbonic_constants (lueker2000 | millero2010)   boron_total (lee2010 | uppstrom1974)
+            carbonic_constants (auto | lueker2000 | millero2010)   boron_total (lee2010 | uppstrom1974)
             fluoride_constant (perezfraga1987 | dicksonriley1979)
             output_temperature_c output_pressure_dbar   pair (e.g. "ph+alkalinity_umol_kg")
             root (high-ph | low-ph: which root of a two-root pair is reported first)
             uncertainty: {"<input key>": standard uncertainty, ..., "constants": true} (JSON only)
               adds "uncertainty": {"<output>": {standard_uncertainty, dominant_input, contributions}}
   model                  saline | fresh | auto (default). auto: fresh below salinity 2, from salinity,
-                         else specific conductance, ionic strength or TDS; S 0.5–5 warns (brackish)
+                         else specific conductance, ionic strength or TDS; S 0.5–5 warns (brackish);
+                         below S 2 without major ions the saline constants are blended in (no jump at 2)
   fresh water (ph is the activity pH, ph_scale nbs, unless ph_scale is given):
     alkalinity_mg_l_caco3 | alkalinity_meq_l | alkalinity_dkh   (instead of alkalinity_umol_kg)
     calcium_mg_l magnesium_mg_l sodium_mg_l potassium_mg_l chloride_mg_l sulfate_mg_l

@@ -57,7 +57,7 @@ export interface SiteDefaults {
   model?: 'saline' | 'fresh' | 'auto';
   salinity?: number;
   specific_conductance_us_cm?: number;
-  carbonic_constants?: 'lueker2000' | 'millero2010';
+  carbonic_constants?: 'auto' | 'lueker2000' | 'millero2010';
   boron_total?: 'lee2010' | 'uppstrom1974';
   ph_scale?: 'total' | 'free' | 'seawater' | 'nbs';
   /** The site's trade when the user chose one over the kind's (see `src/quantities/trades.ts`). */

@@ -5,7 +5,7 @@ export type ThemeChoice = 'system' | 'light' | 'dark' | 'contrast';
 export interface Settings {
   /** Preferred unit per quantity id (see `src/ui/quantities.ts`). */
   units: Record<string, string>;
-  carbonic_constants: 'lueker2000' | 'millero2010';
+  carbonic_constants: 'auto' | 'lueker2000' | 'millero2010';
   boron_total: 'lee2010' | 'uppstrom1974';
   /** Scale pH is entered on by default (most field and aquarium meters use NBS buffers). */
   ph_scale: 'total' | 'free' | 'seawater' | 'nbs';
@@ -21,7 +21,8 @@ export interface Settings {
 
 export const DEFAULT_SETTINGS: Settings = {
   units: {},
-  carbonic_constants: 'lueker2000',
+  // Millero 2010 below S 19, Lueker et al. 2000 from S 25 (the engine's default, issue 12).
+  carbonic_constants: 'auto',
   boron_total: 'lee2010',
   ph_scale: 'nbs',
   model: 'auto',

@@ -154,7 +154,36 @@ export function logGammaIon(
 /** Activity coefficients (γ, not log) of every listed ion plus the neutral species. */
 export type ActivityCoefficients = Record<IonName | 'neutral', number>;
 
+let lastGamma:
+  | { tC: number; i: number; model: ActivityModel; saltingOut: boolean; g: ActivityCoefficients }
+  | undefined;
+
+/**
+ * Activity coefficients at (t, I): the last set is kept, because the ion-pair iteration with a
+ * given ionic strength asks for the same one on every pass (and the pair constants are cached on
+ * the identity of this object). Treat the returned object as read-only.
+ */
 export function activityCoefficients(
+  tC: number,
+  ionicStrength: number,
+  model: ActivityModel,
+  saltingOut: boolean,
+): ActivityCoefficients {
+  const c = lastGamma;
+  if (
+    c !== undefined &&
+    c.tC === tC &&
+    c.i === ionicStrength &&
+    c.model === model &&
+    c.saltingOut === saltingOut
+  )
+    return c.g;
+  const g = activityCoefficientsAt(tC, ionicStrength, model, saltingOut);
+  lastGamma = { tC, i: ionicStrength, model, saltingOut, g };
+  return g;
+}
+
+function activityCoefficientsAt(
   tC: number,
   ionicStrength: number,
   model: ActivityModel,

@@ -18,6 +18,15 @@ import {
   activityCoefficients,
 } from './activity';
 import {
+  conditionalBetas,
+  type FreeIons,
+  logKspGypsumNordstrom1990,
+  type PairAlphas,
+  type PairBeta,
+  pairAlphas,
+  pairLogK,
+} from './ion-pairs';
+import {
   BATES_PHOSPHATE_RANGE_C,
   BATES_PINCHING_1949_RANGE_C,
   DICKSON_1990_RANGE_C,
@@ -45,6 +54,8 @@ import {
 } from './thermo';
 import { pushRange } from './validity';
 
+const NO_PAIRS: PairAlphas = Object.freeze({ hco3: 1, co3: 1, oh: 1, so4: 1, ca: 1, mg: 1 });
+
 export interface FreshOptions {
   /** Ionic strength, mol/kg of water (≥ 0). */
   ionicStrength: number;
@@ -62,6 +73,12 @@ export interface FreshOptions {
   magnesium?: number;
   /** Minor acid totals, only used to decide which validity warnings apply. */
   minorTotals?: Partial<MinorTotals>;
+  /**
+   * Free Ca, Mg, Na, K and SO4 (mol/kg of water) of the current speciation: when given, the ion
+   * pairs of `ion-pairs.ts` are folded into the constants (totals: `calcium`, `magnesium`,
+   * `totalSulfate`); when absent every ion is free.
+   */
+  freeIons?: FreeIons | undefined;
 }
 
 /** Thermodynamic log10 K values before activity corrections (for output and tests). */
@@ -82,6 +99,7 @@ export interface ThermodynamicLogK {
   kspCalcite: number;
   kspAragonite: number;
   kspDolomite: number;
+  kspGypsum: number;
 }
 
 /** The fresh ConstantSet plus what the fresh outputs need (kept out of the shared contract). */
@@ -92,8 +110,12 @@ export interface FreshConstantSet extends ConstantSet {
   gamma: ActivityCoefficients;
   /** Conditional dolomite product for Ω = [Ca][Mg][CO3]² / Ksp', mol4 kg-4. */
   kspDolomite: number;
+  /** Conditional gypsum product for Ω = [Ca]T[SO4]T / Ksp', mol2 kg-2 (pairs folded in). */
+  kspGypsum: number;
   magnesium: number;
   thermodynamic: ThermodynamicLogK;
+  /** The speciation the constants were built on, when ion pairs are in play. */
+  pairs?: { betas: PairBeta; free: FreeIons; alphas: PairAlphas } | undefined;
 }
 
 const ACTIVITY_NAMES: Record<ActivityModel, string> = {
@@ -106,13 +128,17 @@ const ACTIVITY_NAMES: Record<ActivityModel, string> = {
  * Formulation names per combination of options, built once: every row of a batch shares the
  * object (read-only), so a solve does not allocate it again.
  */
-const FORMULATIONS = new Map<string, Readonly<Record<string, string>>>();
+const FORMULATIONS = new Map<number, Readonly<Record<string, string>>>();
+const ACTIVITY_KEY: Record<ActivityModel, number> = { davies: 0, 'debye-huckel': 1, 'truesdell-jones': 2 };
 function formulationsFor(
   model: ActivityModel,
   saltingOut: boolean,
   dolomite: 'ordered' | 'disordered',
+  pairs: boolean,
 ): Record<string, string> {
-  const key = `${model}|${saltingOut}|${dolomite}`;
+  // A number, not a template string: this runs on every pass of the ion-pair iteration.
+  const key =
+    ACTIVITY_KEY[model] + (saltingOut ? 4 : 0) + (dolomite === 'ordered' ? 8 : 0) + (pairs ? 16 : 0);
   let f = FORMULATIONS.get(key);
   if (f === undefined) {
     f = Object.freeze({
@@ -135,8 +161,13 @@ function formulationsFor(
       fugacity: 'Weiss 1974',
       activity: ACTIVITY_NAMES[model],
       neutral_species: saltingOut ? 'log γ = 0.1 I (salting-out)' : 'γ = 1',
-      // Said out loud because hard and sulfate-rich waters lose a few % of free Ca to pairs.
-      ion_pairs: 'none: Ca, Mg, SO4 and the carbonate ions are taken as free ions',
+      ion_pairs: pairs
+        ? 'CaHCO3+, CaCO3° (Plummer & Busenberg 1982); MgHCO3+, MgCO3° (Nordstrom et al. 1990, Siebert & Hostetler 1977); ' +
+          'CaSO4°, MgSO4°, NaCO3-, NaHCO3°, NaSO4-, KSO4-, CaOH+, MgOH+ (Nordstrom et al. 1990, van t Hoff); ' +
+          'solved with the ionic strength; saturation indices use free-ion activities'
+        : // Said out loud: without Ca, Mg, Na, K or SO4 there is nothing to pair.
+          'none: no Ca, Mg, Na, K or SO4 given, so the carbonate ions are free',
+      ksp_gypsum: 'Nordstrom et al. 1990',
     });
     FORMULATIONS.set(key, f);
   }
@@ -175,6 +206,7 @@ function thermodynamicAt(tK: number, dolomite: 'ordered' | 'disordered'): Thermo
     kspCalcite: logKspCalcitePlummerBusenberg1982(tK),
     kspAragonite: logKspAragonitePlummerBusenberg1982(tK),
     kspDolomite: logKspDolomiteNordstrom1990(tK, dolomite),
+    kspGypsum: logKspGypsumNordstrom1990(tK),
   };
   const K: ThermodynamicLogK = {
     k0: 10 ** th.k0,
@@ -193,6 +225,7 @@ function thermodynamicAt(tK: number, dolomite: 'ordered' | 'disordered'): Thermo
     kspCalcite: 10 ** th.kspCalcite,
     kspAragonite: 10 ** th.kspAragonite,
     kspDolomite: 10 ** th.kspDolomite,
+    kspGypsum: 10 ** th.kspGypsum,
   };
   lastThermo = { tK, dolomite, th, K, fugacity: fugacityFactorWeiss1974(tK) };
   return lastThermo;
@@ -223,7 +256,17 @@ export function freshConstants(cond: Conditions, opts: FreshOptions): FreshConst
 
   const { th, K, fugacity } = thermodynamicAt(tK, opts.dolomite ?? 'ordered');
   const gn = g.neutral;
-  const ks = (K.ks * g.HSO4) / (g.H * g.SO4);
+  const calcium = opts.calcium ?? 0;
+  const magnesium = opts.magnesium ?? 0;
+  // Ion pairs folded into the constants (ion-pairs.ts): α = total / free for each family.
+  let a: PairAlphas = NO_PAIRS;
+  let pairs: FreshConstantSet['pairs'];
+  if (opts.freeIons !== undefined) {
+    const betas = conditionalBetas(pairLogK(tK, th.kw), g);
+    a = pairAlphas(betas, opts.freeIons, calcium, magnesium);
+    pairs = { betas, free: opts.freeIons, alphas: a };
+  }
+  const ks = ((K.ks * g.HSO4) / (g.H * g.SO4)) * a.so4;
   const kf = (K.kf * gn) / (g.H * g.F);
   const totalSulfate = opts.totalSulfate ?? 0;
   const totalFluoride = opts.totalFluoride ?? 0;
@@ -236,9 +279,9 @@ export function freshConstants(cond: Conditions, opts: FreshOptions): FreshConst
     conditions: cond,
     k0: K.k0 / gn,
     fugacityFactor: fugacity,
-    k1: (K.k1 * gn) / g.HCO3,
-    k2: (K.k2 * g.HCO3) / g.CO3,
-    kw: K.kw / g.OH,
+    k1: ((K.k1 * gn) / g.HCO3) * a.hco3,
+    k2: ((K.k2 * g.HCO3) / g.CO3) * (a.co3 / a.hco3),
+    kw: (K.kw / g.OH) * a.oh,
     kb: (K.kb * gn) / g.BOH4,
     ks,
     kf,
@@ -248,14 +291,15 @@ export function freshConstants(cond: Conditions, opts: FreshOptions): FreshConst
     ksi: (K.ksi * gn) / g.H3SiO4,
     knh4: (K.knh4 * g.NH4) / gn,
     kh2s: (K.kh2s * gn) / g.HS,
-    kspCalcite: K.kspCalcite / (g.Ca * g.CO3),
-    kspAragonite: K.kspAragonite / (g.Ca * g.CO3),
-    kspDolomite: K.kspDolomite / (g.Ca * g.Mg * g.CO3 * g.CO3),
+    kspCalcite: (K.kspCalcite / (g.Ca * g.CO3)) * a.ca * a.co3,
+    kspAragonite: (K.kspAragonite / (g.Ca * g.CO3)) * a.ca * a.co3,
+    kspDolomite: (K.kspDolomite / (g.Ca * g.Mg * g.CO3 * g.CO3)) * a.ca * a.mg * a.co3 * a.co3,
+    kspGypsum: (K.kspGypsum / (g.Ca * g.SO4)) * a.ca * a.so4,
     totalBoron: opts.totalBoron ?? 0,
     totalSulfate,
     totalFluoride,
-    calcium: opts.calcium ?? 0,
-    magnesium: opts.magnesium ?? 0,
+    calcium,
+    magnesium,
     freeHFactor: free,
     scaleFactor: {
       nbs: 1,
@@ -267,8 +311,9 @@ export function freshConstants(cond: Conditions, opts: FreshOptions): FreshConst
     activityModel: model,
     gamma: g,
     thermodynamic: th,
-    formulations: formulationsFor(model, saltingOut, opts.dolomite ?? 'ordered'),
+    formulations: formulationsFor(model, saltingOut, opts.dolomite ?? 'ordered', pairs !== undefined),
     warnings,
+    pairs,
   };
 }
 

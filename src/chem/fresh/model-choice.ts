@@ -9,6 +9,12 @@
  * - above it sea-salt ion pairing dominates and stoichiometric constants describe it better.
  * Between S 0.5 and 5 (the oligohaline band of the Venice system, 1958) either model is an
  * approximation: the choice is made at S 2 and a `brackish-water` warning names it.
+ *
+ * The boundary is not a step in the results: with `auto`, a water known only by its salinity (or
+ * conductance) takes the saline model's constants into the fresh model below S 2 — blended in log K
+ * from S 0 to 0.5, unchanged from S 0.5 — so pCO2 moves less than 3 % per 0.05 in S across the
+ * boundary and agrees with Millero (2010) from S 0.5 (`handover.ts`, `formulations.handover`).
+ * Waters whose major ions are given keep their own composition (ion pairs) and are not blended.
  */
 
 import { type Issue, warning } from '../errors';
@@ -91,8 +97,9 @@ export function chooseModel(choice: 'saline' | 'fresh' | 'auto', e: SalinityEvid
       warning(
         'brackish-water',
         `Brackish water (${basis}): the ${model} model was chosen because S is ${model === 'fresh' ? 'below' : 'at or above'} ${FRESH_SALINE_BOUNDARY}. ` +
-          'Between S 0.5 and 5 both models are approximations; set model to saline for diluted seawater (estuaries) ' +
-          'or to fresh for inland mineral water.',
+          'Between S 0.5 and 5 both models are approximations. Without major ions the fresh model here uses the saline ' +
+          'constants of this salinity (see formulations.handover), so the result does not jump at S 2; ' +
+          'set model to saline for diluted seawater (estuaries) or to fresh for inland mineral water.',
         'model',
       ),
     );

@@ -9,6 +9,7 @@ import type { SolveRequest } from '../input';
 import { MOLAR_MASS_G_PER_MOL } from '../physical';
 import { salinityFromSpecificConductance } from '../seawater/conductance';
 import { densityKgL } from '../units';
+import { handoverWeight } from './handover';
 import { majorIonsToMolKg, mgLToMolKgWater } from './ionic-strength';
 import { chooseModel, type ModelDecision } from './model-choice';
 import { type FreshRequest, parseFreshInput, planIonicStrength } from './request';
@@ -87,6 +88,15 @@ export function freshContext(
   const ta = req.measured.alkalinity_umol_kg;
   const ions = { ...ionsMolKg, ca: calcium ?? 0, mg: magnesium ?? 0 };
   const plan = planIonicStrength(fresh, req.salinity, ta === undefined ? undefined : ta * 1e-6, ions);
+  // The automatic choice hands a water known only by its salinity over to the saline model
+  // gradually (handover.ts); a water with its major ions, or a named model, is not blended.
+  const s = salinityEvidence(req, fresh);
+  const weight =
+    req.model === 'auto' && plan.method !== 'major-ions' && s !== undefined ? handoverWeight(s) : 0;
+  const handover =
+    weight > 0 && s !== undefined
+      ? { salinity: s, weight, saline: { carbonic: req.carbonic, boron: req.boron, fluoride: req.fluoride } }
+      : undefined;
   return {
     fresh,
     plan,
@@ -95,5 +105,6 @@ export function freshContext(
     magnesiumMolKg: magnesium,
     kgWaterPerL: kgw,
     minor: req.minor,
+    handover,
   };
 }

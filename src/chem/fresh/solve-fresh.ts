@@ -8,9 +8,11 @@
 import type { FreshWaterOutputs } from '../api';
 import { type Issue, toIssue, warning } from '../errors';
 import { MOLAR_MASS_G_PER_MOL } from '../physical';
+import { type SalineOptions, salineCanEvaluate, salineConstants } from '../saline/constants';
 import type { CarbonateState, Conditions, MinorTotals } from '../types';
 import { alkalinityFromEqKg } from '../units';
 import { type FreshConstantSet, freshConstants } from './constants';
+import { blendTowardSaline } from './handover';
 import {
   langelierIndex,
   phAtAirEquilibrium,
@@ -19,6 +21,13 @@ import {
   ryznarIndex,
   saturationIndex,
 } from './indices';
+import {
+  type FreeAnions,
+  type FreeIons,
+  type PairTotals,
+  pairedIonicStrengthTerms,
+  speciate,
+} from './ion-pairs';
 import { chargeBalanceErrorPercent, ionicStrengthFromIons, type MajorIonsMolKg } from './ionic-strength';
 import type { FreshRequest, IonicStrengthPlan } from './request';
 
@@ -32,18 +41,46 @@ export interface FreshContext {
   /** kg of water per litre of sample, for the per-litre outputs. */
   kgWaterPerL: number;
   minor: MinorTotals;
+  /**
+   * Set when the automatic model choice hands a water known only by salinity (or conductance)
+   * over to the saline model: the saline constants at this salinity are blended in (`handover.ts`).
+   */
+  handover?: { salinity: number; weight: number; saline: SalineOptions };
 }
 
 /** Iteration limits for ionic strength from species: |ΔI| ≤ 1e-13 + 1e-10·I within 30 passes. */
 export const IONIC_STRENGTH_REL_TOL = 1e-10;
 export const IONIC_STRENGTH_MAX_PASSES = 30;
 
+/**
+ * The fresh constant set at ionic strength I; `free` is the speciation of the paired ions (taken
+ * as their totals, all free, when not given and the water has any: a first estimate).
+ */
 export function freshConstantsAt(
   cond: Conditions,
   ionicStrength: number,
   ctx: FreshContext,
+  free: FreeIons | undefined = pairTotals(ctx),
+): FreshConstantSet {
+  const k = freshOwnConstantsAt(cond, ionicStrength, ctx, free);
+  const h = ctx.handover;
+  if (h === undefined || !(h.weight > 0) || !salineCanEvaluate(cond.temperatureC)) return k;
+  // At the surface: the fresh model has no pressure terms (it warns), so neither does its blend.
+  const ks = salineConstants(
+    { temperatureC: cond.temperatureC, salinity: h.salinity, pressureDbar: 0 },
+    h.saline,
+  );
+  return blendTowardSaline(k, ks, h.weight);
+}
+
+function freshOwnConstantsAt(
+  cond: Conditions,
+  ionicStrength: number,
+  ctx: FreshContext,
+  free: FreeIons | undefined,
 ): FreshConstantSet {
   return freshConstants(cond, {
+    freeIons: free,
     ionicStrength,
     activity: ctx.fresh.activity,
     dolomite: ctx.fresh.dolomite,
@@ -54,9 +91,41 @@ export function freshConstantsAt(
   });
 }
 
+/**
+ * Totals of the ions that form pairs (mol/kg of water), or undefined when the water has none
+ * given: then every carbonate ion is free and the solve is the plain one.
+ */
+export function pairTotals(ctx: FreshContext): PairTotals | undefined {
+  const m = ctx.ionsMolKg;
+  const ca = ctx.calciumMolKg ?? 0;
+  const mg = ctx.magnesiumMolKg ?? 0;
+  if (!(ca > 0 || mg > 0 || m.na > 0 || m.k > 0 || m.so4 > 0)) return undefined;
+  return { ca, mg, na: m.na, k: m.k, so4: m.so4 };
+}
+
+/** True when the constants depend on the solved species (I from them, or ion pairs): each root then needs its own. */
+export function freshIterates(ctx: FreshContext): boolean {
+  return ctx.plan.iterate || pairTotals(ctx) !== undefined;
+}
+
+/** The free carbonate anions of a solved state (its HCO3-, CO3--, OH- are totals with pairs). */
+function freeAnions(s: CarbonateState, k: FreshConstantSet): FreeAnions {
+  const a = k.pairs?.alphas;
+  const oh = k.kw / s.h;
+  return a === undefined
+    ? { hco3: s.hco3, co3: s.co3, oh }
+    : { hco3: s.hco3 / a.hco3, co3: s.co3 / a.co3, oh: oh / a.oh };
+}
+
 /** I implied by a solved state: from the major ions, or from the alkalinity alone. */
 export function ionicStrengthOfState(s: CarbonateState, k: FreshConstantSet, ctx: FreshContext): number {
-  const species = { hco3: s.hco3, co3: s.co3, oh: k.kw / s.h, hFree: s.h * k.freeHFactor };
+  const hFree = s.h * k.freeHFactor;
+  if (ctx.plan.method === 'major-ions' && k.pairs !== undefined) {
+    // Free ions and charged pairs; Cl- (never paired here) and H+ added.
+    const a = freeAnions(s, k);
+    return pairedIonicStrengthTerms(k.pairs.betas, k.pairs.free, a) + 0.5 * (ctx.ionsMolKg.cl + hFree);
+  }
+  const species = { hco3: s.hco3, co3: s.co3, oh: k.kw / s.h, hFree };
   if (ctx.plan.method === 'major-ions') return ionicStrengthFromIons(ctx.ionsMolKg, species);
   // Sodium bicarbonate water: Na+ balances the alkalinity.
   return 0.5 * (Math.max(s.ta, 0) + species.hco3 + 4 * species.co3 + species.oh + species.hFree);
@@ -74,6 +143,8 @@ export function solveAtIonicStrength<T>(
   solveAt: (k: FreshConstantSet) => T,
   stateOf: (r: T) => CarbonateState,
 ): { k: FreshConstantSet; result: T; passes: number; warnings: Issue[] } {
+  const totals = pairTotals(ctx);
+  if (totals !== undefined) return solveWithPairs(cond, ctx, totals, solveAt, stateOf);
   let I = ctx.plan.initial;
   let k = freshConstantsAt(cond, I, ctx);
   let result = solveAt(k);
@@ -110,6 +181,97 @@ export function solveAtIonicStrength<T>(
   };
 }
 
+/**
+ * The solve with ion pairs: free Ca, Mg, Na, K, SO4 and (for I from the major ions) the ionic
+ * strength are iterated with the solved carbonate species. Each pass builds the constants at the
+ * current speciation, solves the pair, takes the free carbonate anions from the solved totals and
+ * makes one Gauss–Seidel sweep of the cation and sulfate balances (`ion-pairs.ts`); it stops when
+ * the free ions and I change by less than 1e-10 relative (absolute floor 1e-15 mol/kg), within 60
+ * passes. The error shrinks about tenfold per pass, alternating in sign (pairs lower I, which
+ * loosens them again), so 4 passes with I given and 10–13 with I from the ions are usual; a secant
+ * on I, an under-relaxed step and Aitken's Δ² every third pass took more passes; settling I and the
+ * pairs at the solved carbonate before each solve (three rounds) cut the passes to 4–6 but cost as
+ * much as it saved, so the plain step stays.
+ */
+function solveWithPairs<T>(
+  cond: Conditions,
+  ctx: FreshContext,
+  totals: PairTotals,
+  solveAt: (k: FreshConstantSet) => T,
+  stateOf: (r: T) => CarbonateState,
+): { k: FreshConstantSet; result: T; passes: number; warnings: Issue[] } {
+  let I = ctx.plan.initial;
+  // First pass with every ion free to pair (the totals); if the measured pair has no solution
+  // there — a DIC–HCO3- pair near its largest HCO3-/DIC ratio can lose it while the speciation is
+  // far from settled — start again from no pairs at all, which the plain model could solve.
+  let free: FreeIons = totals;
+  let k: FreshConstantSet;
+  let result: T;
+  try {
+    k = freshConstantsAt(cond, I, ctx, free);
+    result = solveAt(k);
+  } catch {
+    free = NONE_FREE;
+    k = freshConstantsAt(cond, I, ctx, free);
+    result = solveAt(k);
+  }
+  for (let pass = 2; pass <= PAIR_MAX_PASSES; pass++) {
+    const st = stateOf(result);
+    let next = speciate(k.pairs!.betas, totals, freeAnions(st, k), free);
+    let g = ctx.plan.iterate ? ionicStrengthOfState(st, k, ctx) : I;
+    const moved =
+      changed(free.ca, next.ca) ||
+      changed(free.mg, next.mg) ||
+      changed(free.na, next.na) ||
+      changed(free.k, next.k) ||
+      changed(free.so4, next.so4) ||
+      changed(I, g);
+    if (!moved) return { k, result, passes: pass - 1, warnings: [] };
+    // A step can still land where the measured pair has no solution; then halve it toward the last
+    // speciation, which had one (8 times at most).
+    for (let halving = 0; ; halving++) {
+      try {
+        k = freshConstantsAt(cond, g, ctx, next);
+        result = solveAt(k);
+        break;
+      } catch (e) {
+        if (halving >= 8) throw e;
+        next = halfway(free, next);
+        g = (I + g) / 2;
+      }
+    }
+    free = next;
+    I = g;
+  }
+  return {
+    k,
+    result,
+    passes: PAIR_MAX_PASSES,
+    warnings: [
+      warning(
+        'ion-pairs-not-converged',
+        `The ion pairs and the ionic strength did not settle within ${PAIR_MAX_PASSES} passes; results are approximate.`,
+      ),
+    ],
+  };
+}
+
+export const PAIR_MAX_PASSES = 60;
+const NONE_FREE: FreeIons = Object.freeze({ ca: 0, mg: 0, na: 0, k: 0, so4: 0 });
+function halfway(a: FreeIons, b: FreeIons): FreeIons {
+  return {
+    ca: (a.ca + b.ca) / 2,
+    mg: (a.mg + b.mg) / 2,
+    na: (a.na + b.na) / 2,
+    k: (a.k + b.k) / 2,
+    so4: (a.so4 + b.so4) / 2,
+  };
+}
+
+function changed(a: number, b: number): boolean {
+  return Math.abs(b - a) > 1e-15 + IONIC_STRENGTH_REL_TOL * Math.abs(b);
+}
+
 export const TREATMENT_CAUTION =
   'The saturation indices and the precipitation potential are model estimates. Before dosing acid, lime, soda, CO2 or ' +
   'any conditioner: add it slowly and in steps, re-measure between steps, wear eye and skin protection, keep within ' +
@@ -143,6 +305,7 @@ export function freshOutputs(
   let siCalcite: number | undefined;
   let siAragonite: number | undefined;
   let siDolomite: number | undefined;
+  let siGypsum: number | undefined;
   let phs: number | undefined;
   let ccppMgL: number | undefined;
   let phAfterCcpp: number | undefined;
@@ -154,6 +317,8 @@ export function freshOutputs(
     siAragonite = finiteSi(ca * s.co3, k.kspAragonite);
     const mg = ctx.magnesiumMolKg;
     if (mg !== undefined && mg > 0) siDolomite = finiteSi(ca * mg * s.co3 * s.co3, k.kspDolomite);
+    const so4 = ctx.ionsMolKg.so4;
+    if (so4 > 0) siGypsum = finiteSi(ca * so4, k.kspGypsum);
     phs = phSaturationCalcite(s.ta, ca, k, ctx.minor);
     if (phs === undefined) {
       warnings.push(
@@ -214,6 +379,7 @@ export function freshOutputs(
     saturation_index_calcite: siCalcite,
     saturation_index_aragonite: siAragonite,
     saturation_index_dolomite: siDolomite,
+    saturation_index_gypsum: siGypsum,
     ph_saturation_calcite: phs,
     langelier_index: phs === undefined ? undefined : langelierIndex(ph, phs),
     ryznar_index: phs === undefined ? undefined : ryznarIndex(ph, phs),
@@ -221,6 +387,94 @@ export function freshOutputs(
     ph_after_ccpp: phAfterCcpp,
     treatment_caution: hasCa ? TREATMENT_CAUTION : undefined,
     charge_balance_error_percent: cbe,
+    charge_balance_meq_kg: ctx.plan.method === 'major-ions' ? chargeSums(ctx, s, k) : undefined,
+    ion_pairs: k.pairs === undefined ? undefined : pairFractions(k, s),
+  };
+}
+
+/** Cation and anion equivalents, meq/kg of water (pairs do not change them: see ionic-strength.ts). */
+function chargeSums(
+  ctx: FreshContext,
+  s: CarbonateState,
+  k: FreshConstantSet,
+): { cations: number; anions: number } {
+  const m = ctx.ionsMolKg;
+  return {
+    cations: (2 * m.ca + 2 * m.mg + m.na + m.k + s.h * k.freeHFactor) * 1e3,
+    anions: (m.cl + 2 * m.so4 + s.hco3 + 2 * s.co3 + k.kw / s.h) * 1e3,
+  };
+}
+
+/** Free and paired fractions of each paired family, and the free concentrations, from the solved state. */
+function pairFractions(k: FreshConstantSet, s: CarbonateState): NonNullable<FreshWaterOutputs['ion_pairs']> {
+  const { betas: b, free: f } = k.pairs!;
+  const a = freeAnions(s, k);
+  const ca = [
+    f.ca,
+    b.caHco3 * f.ca * a.hco3,
+    b.caCo3 * f.ca * a.co3,
+    b.caSo4 * f.ca * f.so4,
+    b.caOh * f.ca * a.oh,
+  ] as const;
+  const mg = [
+    f.mg,
+    b.mgHco3 * f.mg * a.hco3,
+    b.mgCo3 * f.mg * a.co3,
+    b.mgSo4 * f.mg * f.so4,
+    b.mgOh * f.mg * a.oh,
+  ] as const;
+  const co3 = [a.co3, ca[2], mg[2], b.naCo3 * f.na * a.co3] as const;
+  const hco3 = [a.hco3, ca[1], mg[1], b.naHco3 * f.na * a.hco3] as const;
+  const so4 = [f.so4, ca[3], mg[3], b.naSo4 * f.na * f.so4, b.kSo4 * f.k * f.so4] as const;
+  const over = (x: number, sum: number): number => (sum > 0 ? x / sum : 0);
+  const sCa = ca[0] + ca[1] + ca[2] + ca[3] + ca[4];
+  const sMg = mg[0] + mg[1] + mg[2] + mg[3] + mg[4];
+  const sCo3 = co3[0] + co3[1] + co3[2] + co3[3];
+  const sHco3 = hco3[0] + hco3[1] + hco3[2] + hco3[3];
+  const sSo4 = so4[0] + so4[1] + so4[2] + so4[3] + so4[4];
+  return {
+    calcium: {
+      free: over(ca[0], sCa),
+      cahco3: over(ca[1], sCa),
+      caco3: over(ca[2], sCa),
+      caso4: over(ca[3], sCa),
+      caoh: over(ca[4], sCa),
+    },
+    magnesium: {
+      free: over(mg[0], sMg),
+      mghco3: over(mg[1], sMg),
+      mgco3: over(mg[2], sMg),
+      mgso4: over(mg[3], sMg),
+      mgoh: over(mg[4], sMg),
+    },
+    carbonate: {
+      free: over(co3[0], sCo3),
+      caco3: over(co3[1], sCo3),
+      mgco3: over(co3[2], sCo3),
+      naco3: over(co3[3], sCo3),
+    },
+    bicarbonate: {
+      free: over(hco3[0], sHco3),
+      cahco3: over(hco3[1], sHco3),
+      mghco3: over(hco3[2], sHco3),
+      nahco3: over(hco3[3], sHco3),
+    },
+    sulfate: {
+      free: over(so4[0], sSo4),
+      caso4: over(so4[1], sSo4),
+      mgso4: over(so4[2], sSo4),
+      naso4: over(so4[3], sSo4),
+      kso4: over(so4[4], sSo4),
+    },
+    free_umol_kg: {
+      ca: f.ca * 1e6,
+      mg: f.mg * 1e6,
+      na: f.na * 1e6,
+      k: f.k * 1e6,
+      so4: f.so4 * 1e6,
+      hco3: a.hco3 * 1e6,
+      co3: a.co3 * 1e6,
+    },
   };
 }
 
@@ -254,6 +508,7 @@ export function assignFreshOutputs(target: Partial<FreshWaterOutputs>, f: FreshW
   target.saturation_index_calcite = f.saturation_index_calcite;
   target.saturation_index_aragonite = f.saturation_index_aragonite;
   target.saturation_index_dolomite = f.saturation_index_dolomite;
+  target.saturation_index_gypsum = f.saturation_index_gypsum;
   target.ph_saturation_calcite = f.ph_saturation_calcite;
   target.langelier_index = f.langelier_index;
   target.ryznar_index = f.ryznar_index;
@@ -261,4 +516,6 @@ export function assignFreshOutputs(target: Partial<FreshWaterOutputs>, f: FreshW
   target.ph_after_ccpp = f.ph_after_ccpp;
   target.treatment_caution = f.treatment_caution;
   target.charge_balance_error_percent = f.charge_balance_error_percent;
+  target.charge_balance_meq_kg = f.charge_balance_meq_kg;
+  target.ion_pairs = f.ion_pairs;
 }

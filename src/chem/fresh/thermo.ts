@@ -78,6 +78,14 @@ export const HARNED_OWEN_1958_RANGE_C: Range = { min: 0, max: 60 };
  * Harned & Owen (1958), The Physical Chemistry of Electrolytic Solutions, 3rd ed., eq. (15-6-5)
  * *(memory of the equation number)*: log Kw = −4470.99/T + 6.0875 − 0.01706 T.
  * Units: T in K; Kw in mol2 kg-2. Valid 0–60 °C. Check: log Kw = −13.995 at 25 °C.
+ *
+ * How well the fit holds its own table (issue 12 §4): against the pKw Harned & Owen tabulate from
+ * 0 to 60 °C (tests/fixtures/harned-owen-1958.ts, memory) this equation (the Harned & Robinson 1940
+ * form they quote) is 0.0003–0.0028 low in pKw, mean 0.0017. The one other published fit we had,
+ * the S-free part of Millero (1995) (ln Kw = 148.9802 − 13847.26/T − 23.6521 ln T), is no closer
+ * (0.0002–0.0024 low, mean 0.0017), so the equation is kept and the difference documented: 0.003
+ * in pKw is 0.7 % in Kw, below 0.001 in any carbonate output under pH 9.5, and inside the 0.01 pKw
+ * standard uncertainty the engine propagates (Orr et al. 2018). The test pins the residuals.
  */
 export function logKwHarnedOwen1958(tK: number): number {
   return -4470.99 / tK + 6.0875 - 0.01706 * tK;

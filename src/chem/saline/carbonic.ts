@@ -152,3 +152,26 @@ export function k2Millero2010SeawaterScale(tK: number, s: number): number {
     ) * LN10,
   );
 }
+
+/**
+ * The default choice of K1 and K2 (`carbonic_constants: auto`) by salinity: Millero (2010) below
+ * S 19, Lueker et al. (2000) from S 25, and between them pK1 and pK2 (and the ln of their pressure
+ * factors) blended as (1 − w)·Millero + w·Lueker with w rising smoothly (smoothstep, zero slope at
+ * both ends) from 0 at S 19 to 1 at S 25.
+ *
+ * Why: Lueker et al. (2000) is fitted for S 19–43 only; extrapolated to S 2 it puts pCO2 46 % above
+ * Millero (2010), the formulation built for estuaries (S 1–50). Between S 19 and 25 both are inside
+ * their data yet differ by up to 0.014 in pK1 and 0.027 in pK2 over 2–35 °C (pCO2 about 1 % at
+ * 15 °C, more in cold water), so a hard switch at S 19 would leave a step; the smoothstep spreads
+ * it over six salinity units (the sweep test checks second differences of ln pCO2), while the open
+ * ocean keeps the marine default every published check value refers to.
+ */
+export const CARBONIC_AUTO_BAND = { from: 19, to: 25 } as const;
+
+/** Weight of Lueker et al. (2000) in the default blend at practical salinity `s` (0 to 1). */
+export function luekerWeight(s: number): number {
+  if (s <= CARBONIC_AUTO_BAND.from) return 0;
+  if (s >= CARBONIC_AUTO_BAND.to) return 1;
+  const x = (s - CARBONIC_AUTO_BAND.from) / (CARBONIC_AUTO_BAND.to - CARBONIC_AUTO_BAND.from);
+  return x * x * (3 - 2 * x);
+}

@@ -20,12 +20,14 @@ import { KNH4_CLEGGWHITFIELD1995_VALIDITY, knh4CleggWhitfield1995 } from './ammo
 import { KB_DICKSON1990B_VALIDITY, kbDickson1990b } from './boric';
 import { KSP_MUCCI1983_VALIDITY, kspAragoniteMucci1983, kspCalciteMucci1983 } from './calcium-carbonate';
 import {
+  CARBONIC_AUTO_BAND,
   K1K2_LUEKER2000_VALIDITY,
   K1K2_MILLERO2010_VALIDITY,
   k1Lueker2000,
   k1Millero2010,
   k2Lueker2000,
   k2Millero2010,
+  luekerWeight,
 } from './carbonic';
 import {
   FUGACITY_WEISS1974_VALIDITY,
@@ -80,7 +82,11 @@ import { KW_MILLERO1995_VALIDITY, kwMillero1995 } from './water';
 export type FluorideConstant = 'perezfraga1987' | 'dicksonriley1979';
 
 export interface SalineOptions {
-  /** K1 and K2: Lueker et al. 2000 (default, marine) or Millero 2010 (estuarine, brackish). */
+  /**
+   * K1 and K2: `auto` (default: Millero 2010 below S 19, Lueker et al. 2000 from S 25, blended in
+   * between, see `CARBONIC_AUTO_BAND`), or one formulation at every salinity: Lueker et al. 2000
+   * (marine) or Millero 2010 (estuarine, brackish).
+   */
   carbonic?: CarbonicConstants;
   /** Total boron from salinity: Lee et al. 2010 (default) or Uppström 1974. */
   boron?: BoronTotal;
@@ -96,6 +102,11 @@ const HARD_LIMITS = {
   salinity: [0, 100],
   pressureDbar: [0, 12000],
 } as const;
+
+/** True when `salineConstants` can be evaluated at this temperature (inside its hard limits). */
+export function salineCanEvaluate(temperatureC: number): boolean {
+  return temperatureC >= HARD_LIMITS.temperatureC[0] && temperatureC <= HARD_LIMITS.temperatureC[1];
+}
 
 const EMPTY_WARNINGS: Issue[] = Object.freeze([]) as unknown as Issue[];
 
@@ -118,16 +129,30 @@ const COMMON_RANGES: readonly ValidityRange[] = [
 
 const formulationCache: (Readonly<Record<string, string>> | undefined)[] = [];
 
+/** K1 and K2 as used: one formulation, or the default blend across S 19–25. */
+type CarbonicUsed = 'lueker2000' | 'millero2010' | 'blend';
+
+const CARBONIC_NAMES: Record<CarbonicUsed, string> = {
+  lueker2000: 'Lueker et al. 2000 (total scale)',
+  millero2010: 'Millero 2010 (total scale)',
+  blend: `Millero 2010 and Lueker et al. 2000 (total scale), pK blended across S ${CARBONIC_AUTO_BAND.from}–${CARBONIC_AUTO_BAND.to}`,
+};
+
 function formulationsFor(
-  millero2010: boolean,
+  used: CarbonicUsed,
   uppstrom: boolean,
   dicksonRiley: boolean,
   calciumGiven: boolean,
 ): Readonly<Record<string, string>> {
-  const key = (millero2010 ? 1 : 0) + (uppstrom ? 2 : 0) + (dicksonRiley ? 4 : 0) + (calciumGiven ? 8 : 0);
+  const key =
+    (used === 'millero2010' ? 1 : used === 'blend' ? 2 : 0) +
+    (uppstrom ? 3 : 0) +
+    (dicksonRiley ? 6 : 0) +
+    (calciumGiven ? 12 : 0);
   const cached = formulationCache[key];
   if (cached !== undefined) return cached;
-  const carbonic = millero2010 ? 'Millero 2010 (total scale)' : 'Lueker et al. 2000 (total scale)';
+  const carbonic = CARBONIC_NAMES[used];
+  const millero2010 = used !== 'lueker2000';
   const made = Object.freeze({
     model: 'saline: stoichiometric constants, total pH scale, mol/kg of seawater',
     k0: 'Weiss 1974, with its partial molar volume of CO2 for pressure',
@@ -147,7 +172,7 @@ function formulationsFor(
     kspCalcite: 'Mucci 1983',
     kspAragonite: 'Mucci 1983',
     pressure: millero2010
-      ? 'Millero 1995 (K1 and K2: Millero 2010); calcite and aragonite after Ingle 1975'
+      ? `Millero 1995 (K1 and K2: ${used === 'blend' ? 'Millero 2010 blended with Millero 1995 like K1 and K2' : 'Millero 2010'}); calcite and aragonite after Ingle 1975`
       : 'Millero 1995; calcite and aragonite after Ingle 1975',
     totalBoron: uppstrom ? 'Uppström 1974' : 'Lee et al. 2010',
     totalSulfate: 'Morris & Riley 1966',
@@ -205,13 +230,13 @@ export function salineConstants(cond: Conditions, opts?: SalineOptions): Constan
     'applied pressure, 0 at the surface',
   );
 
-  const carbonic = opts?.carbonic ?? 'lueker2000';
+  const carbonic = opts?.carbonic ?? 'auto';
   const boron = opts?.boron ?? 'lee2010';
   const fluoride = opts?.fluoride ?? 'perezfraga1987';
-  if (carbonic !== 'lueker2000' && carbonic !== 'millero2010')
+  if (carbonic !== 'lueker2000' && carbonic !== 'millero2010' && carbonic !== 'auto')
     fail(
       OPTION_UNKNOWN,
-      `Unknown carbonic acid constants "${carbonic}": use lueker2000 or millero2010.`,
+      `Unknown carbonic acid constants "${carbonic}": use auto, lueker2000 or millero2010.`,
       'carbonic_constants',
     );
   if (boron !== 'lee2010' && boron !== 'uppstrom1974')
@@ -229,7 +254,9 @@ export function salineConstants(cond: Conditions, opts?: SalineOptions): Constan
       'The measured calcium must be a number of mol/kg, zero or more.',
       'calcium_umol_kg',
     );
-  const m2010 = carbonic === 'millero2010';
+  // Weight of Lueker et al. (2000): 1 or 0 for a named formulation, by salinity for the default.
+  const wL = carbonic === 'auto' ? luekerWeight(s) : carbonic === 'lueker2000' ? 1 : 0;
+  const used: CarbonicUsed = wL === 1 ? 'lueker2000' : wL === 0 ? 'millero2010' : 'blend';
   const dr1979 = fluoride === 'dicksonriley1979';
 
   const tK = tC + T0_K;
@@ -242,8 +269,18 @@ export function salineConstants(cond: Conditions, opts?: SalineOptions): Constan
   const kf0 = dr1979 ? kfDicksonRiley1979(tK, s) : kfPerezFraga1987(tK, s, sqrtS);
 
   let k0 = k0Weiss1974(tK, s);
-  let k1 = m2010 ? k1Millero2010(tK, s, lnT, sqrtS) : k1Lueker2000(tK, s, lnT);
-  let k2 = m2010 ? k2Millero2010(tK, s, lnT, sqrtS) : k2Lueker2000(tK, s, lnT);
+  let k1 =
+    wL === 1
+      ? k1Lueker2000(tK, s, lnT)
+      : wL === 0
+        ? k1Millero2010(tK, s, lnT, sqrtS)
+        : blend(k1Millero2010(tK, s, lnT, sqrtS), k1Lueker2000(tK, s, lnT), wL);
+  let k2 =
+    wL === 1
+      ? k2Lueker2000(tK, s, lnT)
+      : wL === 0
+        ? k2Millero2010(tK, s, lnT, sqrtS)
+        : blend(k2Millero2010(tK, s, lnT, sqrtS), k2Lueker2000(tK, s, lnT), wL);
   let kb = kbDickson1990b(tK, s, lnT, sqrtS);
   let kw = kwMillero1995(tK, s, lnT, sqrtS);
   let k1p = k1pMillero1995(tK, s, lnT, sqrtS);
@@ -267,18 +304,15 @@ export function salineConstants(cond: Conditions, opts?: SalineOptions): Constan
     const swsToTotP = Math.log((1 + st / ks) / (1 + st / ks + ft / kf));
     const scale = totToSws0 + swsToTotP;
     k0 *= k0PressureFactorWeiss1974(tK, pBar);
-    k1 *= Math.exp(
-      scale +
-        (m2010
-          ? lnCarbonicPressureFactorMillero2010(1, s, tC, pBar, tK)
-          : lnPressureFactorMillero1995(PT.k1, tC, pBar, tK)),
-    );
-    k2 *= Math.exp(
-      scale +
-        (m2010
-          ? lnCarbonicPressureFactorMillero2010(2, s, tC, pBar, tK)
-          : lnPressureFactorMillero1995(PT.k2, tC, pBar, tK)),
-    );
+    // The pressure terms follow the K1 and K2 they belong to, blended with the same weight.
+    const lnP1 =
+      (wL < 1 ? (1 - wL) * lnCarbonicPressureFactorMillero2010(1, s, tC, pBar, tK) : 0) +
+      (wL > 0 ? wL * lnPressureFactorMillero1995(PT.k1, tC, pBar, tK) : 0);
+    const lnP2 =
+      (wL < 1 ? (1 - wL) * lnCarbonicPressureFactorMillero2010(2, s, tC, pBar, tK) : 0) +
+      (wL > 0 ? wL * lnPressureFactorMillero1995(PT.k2, tC, pBar, tK) : 0);
+    k1 *= Math.exp(scale + lnP1);
+    k2 *= Math.exp(scale + lnP2);
     kb *= Math.exp(scale + lnPressureFactorMillero1995(PT.kb, tC, pBar, tK));
     kw *= Math.exp(scale + lnPressureFactorMillero1995(PT.kw, tC, pBar, tK));
     k1p *= Math.exp(scale + lnPressureFactorMillero1995(PT.k1p, tC, pBar, tK));
@@ -299,9 +333,11 @@ export function salineConstants(cond: Conditions, opts?: SalineOptions): Constan
   for (const range of COMMON_RANGES) {
     if (!isInside(range, tC, s, pDbar)) warnings = checkValidity(range, tC, s, pDbar, warnings ?? []);
   }
-  const carbonicRange = m2010 ? K1K2_MILLERO2010_VALIDITY : K1K2_LUEKER2000_VALIDITY;
-  if (!isInside(carbonicRange, tC, s, pDbar))
-    warnings = checkValidity(carbonicRange, tC, s, pDbar, warnings ?? []);
+  // In the blend both formulations are used, so both ranges are checked.
+  if (wL < 1 && !isInside(K1K2_MILLERO2010_VALIDITY, tC, s, pDbar))
+    warnings = checkValidity(K1K2_MILLERO2010_VALIDITY, tC, s, pDbar, warnings ?? []);
+  if (wL > 0 && !isInside(K1K2_LUEKER2000_VALIDITY, tC, s, pDbar))
+    warnings = checkValidity(K1K2_LUEKER2000_VALIDITY, tC, s, pDbar, warnings ?? []);
   const fluorideRange = dr1979 ? KF_DICKSONRILEY1979_VALIDITY : KF_PEREZFRAGA1987_VALIDITY;
   if (!isInside(fluorideRange, tC, s, pDbar))
     warnings = checkValidity(fluorideRange, tC, s, pDbar, warnings ?? []);
@@ -331,7 +367,12 @@ export function salineConstants(cond: Conditions, opts?: SalineOptions): Constan
     calcium: calciumGiven ?? calciumRileyTongudai1967(s),
     freeHFactor: scaleFactor.free,
     scaleFactor,
-    formulations: formulationsFor(m2010, boron === 'uppstrom1974', dr1979, calciumGiven !== undefined),
+    formulations: formulationsFor(used, boron === 'uppstrom1974', dr1979, calciumGiven !== undefined),
     warnings: warnings ?? EMPTY_WARNINGS,
   };
+}
+
+/** exp((1 − w) ln a + w ln b): the blend of two constants in log space. */
+function blend(a: number, b: number, w: number): number {
+  return a ** (1 - w) * b ** w;
 }

@@ -18,6 +18,15 @@ export const KF_PEREZFRAGA1987_VALIDITY: ValidityRange = {
  * @param s practical salinity
  * @returns KF in mol kg-1 of seawater (free scale)
  * Valid t 9–33 °C, S 10–40. Check: ln KF = −6.09 at S 35, 25 °C (Dickson et al. 2007, ch. 5).
+ *
+ * pH scale (issue 12 §4): treated as the free scale. What we can confirm: the check value above is
+ * reproduced to the printed digits; the scale itself we could not confirm from the paper (no copy
+ * at hand) — Perez & Fraga measured HF in seawater with a fluoride electrode and, as we recall
+ * (memory), report [H+] as free, and programs that restate the fit use it on the free scale. If it
+ * were on the total scale instead, KF(free) = KF/(1 + ST/KS) would be 1.22 times smaller at S 35
+ * and the seawater scale would sit 0.0028 pH further from the total scale (0.0006 at S 10); the
+ * total and free scales, TA and every carbonate output at the surface do not depend on KF at the
+ * 0.001 level, because HF is negligible above pH 5 (figures computed with the engine).
  */
 export function kfPerezFraga1987(tK: number, s: number, sqrtS: number = Math.sqrt(s)): number {
   return Math.exp(874 / tK - 9.68 + 0.111 * sqrtS);

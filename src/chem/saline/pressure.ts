@@ -79,6 +79,18 @@ export function lnPressureFactorMillero1995(
  * ΔV2 = −15.82 − 0.321 (S − 34.8) − 0.0219 t, Δκ2 = (1.13 − 0.314 (S − 34.8) − 0.1475 t) · 1e−3.
  * At S 34.8 they are the Millero (1995) terms. Computed without building a terms object because
  * the entry point calls it per row.
+ *
+ * Checked for issue 12 §4: the salinity terms look physically backwards. At S 0 they give
+ * ΔV1 = −20.2 and ΔV2 = −4.6 cm3/mol (10 °C), while the ionisation of pure water's carbonic acid has
+ * about −25 and −28 to −29 cm3/mol (Millero 1983, memory): pairing with sea-salt cations makes |ΔV|
+ * smaller in seawater, so |ΔV| should grow toward S 0, not shrink. As far as we recall the paper,
+ * it prints the terms with these signs (memory; no copy was at hand to confirm), so they are used
+ * as printed. Consequence, 1000 dbar, 10 °C: Δlog K2 = 0.010 at S 0 and 0.013 at S 5 against 0.030
+ * with the Millero (1995) seawater terms (K1: 0.037 and 0.038 against 0.045), i.e. up to 0.02 in
+ * pK2 in deep brackish water, which is rare (tests/chem/saline/pressure.test.ts pins these values,
+ * so a corrected transcription shows up there).
+ * Since issue 12 the default K1/K2 below S 19 are Millero (2010), so these terms are the default's
+ * there; between S 19 and 25 they are blended with the Millero (1995) terms like the constants.
  * @param step 1 for K1, 2 for K2
  * @param s practical salinity
  * @param tC temperature, °C

@@ -103,6 +103,7 @@ export function SettingsScreen() {
               set({ carbonic_constants: e.currentTarget.value as Settings['carbonic_constants'] })
             }
           >
+            <option value="auto">by salinity (default)</option>
             <option value="lueker2000">Lueker et al. 2000 (sea, S 19–43)</option>
             <option value="millero2010">Millero 2010 (estuarine, S 1–50)</option>
           </select>

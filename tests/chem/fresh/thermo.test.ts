@@ -16,6 +16,7 @@ import {
   PLUMMER_BUSENBERG_1982_RANGE_C,
 } from '../../../src/chem/fresh/thermo';
 import { rangeWarning } from '../../../src/chem/fresh/validity';
+import { PKW_HARNED_OWEN_1958 } from '../../fixtures/harned-owen-1958';
 import { OTHER_PK_25C, PLUMMER_BUSENBERG_1982_ROWS } from '../../fixtures/plummer-busenberg-1982';
 
 const K = 273.15;
@@ -89,5 +90,19 @@ describe('other thermodynamic constants at 25 °C', () => {
 
   it('Weiss (1974) fugacity factor is 0.9968 at 25 °C and 1 atm (Dickson et al. 2007 ch. 5, memory)', () => {
     expect(fugacityFactorWeiss1974(298.15)).toBeCloseTo(0.9968, 4);
+  });
+});
+
+describe('Harned & Owen (1958) Kw fit against its own table (issue 12 §4)', () => {
+  it('sits 0.0003–0.0028 low in pKw over 0–60 °C, mean 0.0017, as the doc comment says', () => {
+    const residuals = PKW_HARNED_OWEN_1958.map(
+      (row) => -logKwHarnedOwen1958(row.tC + 273.15) - row.pKw, // pKw(fit) − pKw(table)
+    );
+    for (const r of residuals) {
+      expect(r).toBeLessThan(0);
+      expect(r).toBeGreaterThan(-0.003);
+    }
+    const mean = residuals.reduce((a, b) => a + b, 0) / residuals.length;
+    expect(mean).toBeCloseTo(-0.0017, 3);
   });
 });

@@ -50,7 +50,7 @@ const CONSTANT_KEYS = [
 const TOTAL_KEYS = ['totalBoron', 'totalSulfate', 'totalFluoride', 'calcium'] as const;
 
 const OPTION_SETS: SalineOptions[] = [];
-for (const carbonic of ['lueker2000', 'millero2010'] as const)
+for (const carbonic of ['auto', 'lueker2000', 'millero2010'] as const)
   for (const boron of ['lee2010', 'uppstrom1974'] as const)
     for (const fluoride of ['perezfraga1987', 'dicksonriley1979'] as const)
       OPTION_SETS.push({ carbonic, boron, fluoride });
@@ -70,7 +70,7 @@ describe('salineConstants', () => {
     expectTypeOf(salineConstants).returns.toEqualTypeOf<ConstantSet>();
     expectTypeOf(salineConstants).parameter(0).toEqualTypeOf<Conditions>();
     expectTypeOf<SalineOptions>().toEqualTypeOf<{
-      carbonic?: 'lueker2000' | 'millero2010';
+      carbonic?: 'auto' | 'lueker2000' | 'millero2010';
       boron?: 'lee2010' | 'uppstrom1974';
       fluoride?: 'perezfraga1987' | 'dicksonriley1979';
       calcium_mol_kg?: number;

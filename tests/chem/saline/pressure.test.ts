@@ -93,6 +93,20 @@ describe('pressure in salineConstants', () => {
     expect(Math.log(ratio)).toBeCloseTo(lnCarbonicPressureFactorMillero2010(1, s, 5, 300), 12);
   });
 
+  // Issue 12 §4: the Millero 2010 salinity terms shrink |ΔV| toward S 0 (physically backwards, as
+  // printed in the paper as far as we recall). These pin the consequence the doc comment states.
+  it('Millero 2010 terms at S 0: ΔV2 = −4.6 cm3/mol; Δlog K2 at 1000 dbar, 10 °C is 0.010 against 0.030', () => {
+    const dlog = (step: 1 | 2, s: number) =>
+      lnCarbonicPressureFactorMillero2010(step, s, 10, 100) / Math.LN10;
+    expect(dlog(2, 0)).toBeCloseTo(0.01, 3);
+    expect(dlog(2, 5)).toBeCloseTo(0.0128, 3);
+    expect(dlog(1, 0)).toBeCloseTo(0.0367, 3);
+    expect(dlog(2, 34.8)).toBeCloseTo(
+      lnPressureFactorMillero1995(PRESSURE_TERMS_MILLERO1995.k2, 10, 100) / Math.LN10,
+      12,
+    );
+  });
+
   it('K0 carries the Weiss 1974 partial molar volume term', () => {
     const f = at(1000, 25).k0 / at(0, 25).k0;
     expect(f).toBeCloseTo(k0PressureFactorWeiss1974(25 + T0_K, 100), 14);

@@ -99,12 +99,19 @@ describe('salineConstants warns but computes', () => {
     expect(Object.isFrozen(a.warnings)).toBe(true);
   });
 
+  // Lueker 2000 is named: since issue 12 the default takes Millero 2010 below S 19.
   it('brackish water with Lueker 2000 warns about K1/K2 with the salinity field, and still gives numbers', () => {
-    const c = salineConstants({ temperatureC: 20, salinity: 8, pressureDbar: 0 });
+    const c = salineConstants({ temperatureC: 20, salinity: 8, pressureDbar: 0 }, { carbonic: 'lueker2000' });
     const lueker = c.warnings.filter((w) => w.message.includes('Lueker'));
     expect(lueker).toHaveLength(1);
     expect(lueker[0]).toMatchObject({ code: OUTSIDE_VALIDITY, field: FIELD_SALINITY });
     expect(Number.isFinite(c.k1) && c.k1 > 0).toBe(true);
+  });
+
+  it('the same water with the default (Millero 2010 below S 19) does not warn about K1/K2', () => {
+    const c = salineConstants({ temperatureC: 20, salinity: 8, pressureDbar: 0 });
+    expect(c.warnings.some((w) => w.message.includes('K1 and K2'))).toBe(false);
+    expect(c.formulations.k1).toBe('Millero 2010 (total scale)');
   });
 
   it('the same water with Millero 2010 does not warn about K1/K2', () => {
@@ -124,7 +131,15 @@ describe('salineConstants warns but computes', () => {
     const c = salineConstants({ temperatureC: 20, salinity: 0, pressureDbar: 0 });
     const labels = c.warnings.map((w) => w.message.split(': fitted')[0]);
     expect(new Set(labels).size).toBe(labels.length);
-    for (const name of ['Lueker', 'Dickson 1990b', 'Dickson 1990a', 'Perez & Fraga', 'Mucci', 'Takahashi']) {
+    // The default K1/K2 at S 0 is Millero 2010 (fitted from S 1), not Lueker 2000 as before issue 12.
+    for (const name of [
+      'Millero 2010',
+      'Dickson 1990b',
+      'Dickson 1990a',
+      'Perez & Fraga',
+      'Mucci',
+      'Takahashi',
+    ]) {
       expect(labels.some((l) => l?.includes(name))).toBe(true);
     }
     expect(labels.some((l) => l?.includes('KW'))).toBe(false);

@@ -8,7 +8,9 @@ import type { Issue } from './errors';
 import type { TradeOutputs } from './trades/solveOutputs';
 
 export type ModelChoice = 'saline' | 'fresh' | 'auto';
+export const MODEL_CHOICES: readonly ModelChoice[] = ['saline', 'fresh', 'auto'];
 export type PhScaleName = 'total' | 'free' | 'seawater' | 'nbs';
+export const PH_SCALE_CHOICES: readonly PhScaleName[] = ['total', 'free', 'seawater', 'nbs'];
 /**
  * K1 and K2 of the saline model: `auto` (the default) takes Millero (2010) below S 19 and
  * Lueker et al. (2000) from S 25, blended in between (`saline/carbonic.ts`); the others are used at
@@ -17,6 +19,7 @@ export type PhScaleName = 'total' | 'free' | 'seawater' | 'nbs';
 export type CarbonicConstants = 'auto' | 'lueker2000' | 'millero2010';
 export const CARBONIC_CONSTANT_CHOICES: readonly CarbonicConstants[] = ['auto', 'lueker2000', 'millero2010'];
 export type BoronTotal = 'lee2010' | 'uppstrom1974';
+export const BORON_TOTAL_CHOICES: readonly BoronTotal[] = ['lee2010', 'uppstrom1974'];
 
 /** The eight carbonate parameters a pair can be chosen from (input key names). */
 export const CARBONATE_KEYS = [

@@ -5,13 +5,14 @@
  * (`units`) stay on the device.
  */
 
+import { BORON_TOTAL_CHOICES, CARBONIC_CONSTANT_CHOICES, MODEL_CHOICES, PH_SCALE_CHOICES } from '../chem/api';
 import type { SiteDefaults } from '../store/schema';
 
 const CHOICES: Record<string, readonly string[]> = {
-  model: ['saline', 'fresh', 'auto'],
-  carbonic_constants: ['lueker2000', 'millero2010'],
-  boron_total: ['lee2010', 'uppstrom1974'],
-  ph_scale: ['total', 'free', 'seawater', 'nbs'],
+  model: MODEL_CHOICES,
+  carbonic_constants: CARBONIC_CONSTANT_CHOICES,
+  boron_total: BORON_TOTAL_CHOICES,
+  ph_scale: PH_SCALE_CHOICES,
 };
 /** Numeric defaults with their physical bounds (as the importer's quantity limits). */
 const NUMBERS: Record<string, [number, number]> = {

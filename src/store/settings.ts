@@ -1,15 +1,26 @@
 /** The user's preferences, stored one key per record in the `settings` store, with defaults. */
 
+import {
+  BORON_TOTAL_CHOICES,
+  type BoronTotal,
+  CARBONIC_CONSTANT_CHOICES,
+  type CarbonicConstants,
+  MODEL_CHOICES,
+  type ModelChoice,
+  PH_SCALE_CHOICES,
+  type PhScaleName,
+} from '../chem/api';
+
 export type ThemeChoice = 'system' | 'light' | 'dark' | 'contrast';
 
 export interface Settings {
   /** Preferred unit per quantity id (see `src/ui/quantities.ts`). */
   units: Record<string, string>;
-  carbonic_constants: 'auto' | 'lueker2000' | 'millero2010';
-  boron_total: 'lee2010' | 'uppstrom1974';
+  carbonic_constants: CarbonicConstants;
+  boron_total: BoronTotal;
   /** Scale pH is entered on by default (most field and aquarium meters use NBS buffers). */
-  ph_scale: 'total' | 'free' | 'seawater' | 'nbs';
-  model: 'auto' | 'saline' | 'fresh';
+  ph_scale: PhScaleName;
+  model: ModelChoice;
   /** Atmospheric pCO2 for air-equilibrium comparisons, µatm. */
   atmospheric_pco2_uatm: number;
   /** Standard uncertainty of a pH reading, propagated to every output on the reading page. */
@@ -80,10 +91,10 @@ export const SETTING_CHECKS: { [K in keyof Settings]: SettingCheck } = {
         return `has an invalid entry for "${k.slice(0, 40)}"`;
     return undefined;
   },
-  carbonic_constants: oneOf('lueker2000', 'millero2010'),
-  boron_total: oneOf('lee2010', 'uppstrom1974'),
-  ph_scale: oneOf('total', 'free', 'seawater', 'nbs'),
-  model: oneOf('auto', 'saline', 'fresh'),
+  carbonic_constants: oneOf(...CARBONIC_CONSTANT_CHOICES),
+  boron_total: oneOf(...BORON_TOTAL_CHOICES),
+  ph_scale: oneOf(...PH_SCALE_CHOICES),
+  model: oneOf(...MODEL_CHOICES),
   // Bounds wide enough for any air a field team meets (indoor air, greenhouses), not a plausibility check.
   atmospheric_pco2_uatm: finiteIn(1, 100_000, 'a number of µatm'),
   ph_uncertainty: finiteIn(0, 2, 'a pH difference'),

@@ -5,7 +5,7 @@
  * types. `designDoc()` turns them into the `_design/tufa-team` document `tufa team setup` writes.
  */
 
-import type { BoronTotal, CarbonicConstants, ModelChoice, PhScaleName } from '../chem/api';
+import { BORON_TOTAL_CHOICES, CARBONIC_CONSTANT_CHOICES, MODEL_CHOICES, PH_SCALE_CHOICES } from '../chem/api';
 import { QUANTITIES } from '../io/quantities';
 import { SITE_KINDS } from '../store/schema';
 import { ROLES } from './roles';
@@ -18,10 +18,11 @@ export { ROLE_NAMES, ROLES, type Role } from './roles';
 /** ISO 8601 instant with a zone (`Z` or an offset), as `Date.prototype.toISOString` writes it. */
 export const ISO_INSTANT = /^\d{4}-\d\d-\d\dT\d\d:\d\d(:\d\d(\.\d{1,9})?)?(Z|[+-]\d\d:\d\d)$/;
 
-const MODELS: ModelChoice[] = ['saline', 'fresh', 'auto'];
-const CARBONIC: CarbonicConstants[] = ['lueker2000', 'millero2010'];
-const BORON: BoronTotal[] = ['lee2010', 'uppstrom1974'];
-const SCALES: PhScaleName[] = ['total', 'free', 'seawater', 'nbs'];
+// The engine's own lists of choices (src/chem/api.ts): one home, so the server accepts what it does.
+const MODELS = MODEL_CHOICES;
+const CARBONIC = CARBONIC_CONSTANT_CHOICES;
+const BORON = BORON_TOTAL_CHOICES;
+const SCALES = PH_SCALE_CHOICES;
 
 /**
  * Limits of each quantity in each of its units. The table gives them in the engine key's unit;

@@ -144,7 +144,7 @@ export function headlineRows(
     if (co2 !== undefined)
       out.push({ id: 'co2-mg-l', label: 'Free CO₂', value: mgL(co2, rho, M.CO2), unit: 'mg/L', digits: 2 });
     // Unionized ammonia only when the engine reports it (never estimated here).
-    const nh3 = num(r, 'nh3_mg_l_n') ?? num(r, 'ammonia_unionized_mg_l_n');
+    const nh3 = num(r, 'unionized_ammonia_n_mg_l');
     if (nh3 !== undefined)
       out.push({ id: 'nh3', label: 'Unionized ammonia', value: nh3, unit: 'mg/L as N', digits: 2 });
   }

@@ -242,7 +242,7 @@ const defaultsArb: fc.Arbitrary<SiteDefaults> = fc.record(
     salinity: fc.double({ min: 0, max: 36, noNaN: true }),
     specific_conductance_us_cm: fc.double({ min: 50, max: 3000, noNaN: true }),
     ph_scale: fc.constantFrom('total', 'nbs'),
-    carbonic_constants: fc.constantFrom('lueker2000', 'millero2010'),
+    carbonic_constants: fc.constantFrom('auto', 'lueker2000', 'millero2010'),
   },
   { requiredKeys: [] },
 ) as fc.Arbitrary<SiteDefaults>;
@@ -250,7 +250,7 @@ const defaultsArb: fc.Arbitrary<SiteDefaults> = fc.record(
 const settingsArb: fc.Arbitrary<RequestSettings> = fc.record({
   model: fc.constantFrom('auto', 'saline', 'fresh'),
   ph_scale: fc.constantFrom('total', 'free', 'seawater', 'nbs'),
-  carbonic_constants: fc.constantFrom('lueker2000', 'millero2010'),
+  carbonic_constants: fc.constantFrom('auto', 'lueker2000', 'millero2010'),
   boron_total: fc.constantFrom('lee2010', 'uppstrom1974'),
   atmospheric_pco2_uatm: fc.double({ min: 300, max: 600, noNaN: true }),
   ph_uncertainty: fc.double({ min: 0.001, max: 0.05, noNaN: true }),

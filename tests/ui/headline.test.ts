@@ -45,8 +45,10 @@ describe('the answer first, in the trade’s units', () => {
     expect(by['alkalinity-meq_l']).toBeCloseTo(4.6, 9);
     const air = rec(airEquilibriumInput(r, 420)!);
     expect(air.pco2_uatm as number).toBeCloseTo(420, 6);
-    // The air solve keeps alkalinity and reaches the engine's own pH at equilibrium with air.
-    expect(air.ph as number).toBeCloseTo(r.ph_air_equilibrium as number, 2);
+    // The air solve keeps alkalinity and lands near the engine's pH at equilibrium with air. Not
+    // closer: the engine's figure keeps the sample's ion-pair speciation (src/chem/fresh/README.md),
+    // the full solve at air pCO2 re-speciates (0.045 pH apart for this hard spring water).
+    expect(Math.abs((air.ph as number) - (r.ph_air_equilibrium as number))).toBeLessThan(0.06);
     const s = degassingSentence(r, air, (x, d) => formatNumber(x, 'en-GB', { decimals: d }))!;
     expect(s).toMatch(
       /^Losing CO₂ to air, this water would reach pH 8\.7 and SI calcite \+1\.\d: expect calcite to precipitate downstream\.$/,

@@ -9,6 +9,7 @@ import type { TufaDoc } from '../io/docs';
 import type { CouchClient, CouchDoc } from './couch-client';
 import { fromCouch, sameContent, toCouch } from './doc-codec';
 import type { SetAsideDoc } from './quarantine';
+import { keepRefused } from './refused';
 import type { SyncRunResult, SyncStatus } from './sync-engine';
 import { rejectedDocIssue, SyncError, syncIssue } from './sync-issues';
 import type { SyncStore } from './sync-store';
@@ -97,6 +98,7 @@ async function pushBatch(
   const ok: Pushed[] = [];
   const missing: string[] = [];
   const fresh: TufaDoc[] = [];
+  const refused: { doc: TufaDoc; reason: string | undefined }[] = [];
   const clashing = sent.filter((d) => byId.get(d.id)?.error === 'conflict').map((d) => d.id);
   const onServer = clashing.length ? await ctx.client.getDocs(clashing) : new Map<string, CouchDoc>();
   for (const d of sent) {
@@ -152,9 +154,14 @@ async function pushBatch(
         }
       }
     } else {
+      if (row.error === 'forbidden' || row.error === 'unauthorized')
+        refused.push({ doc: d, reason: row.reason });
       rejected.push(rejectedDocIssue(d.type, d.id, row.error, row.reason));
     }
   }
+  // Refused by the server's rules: kept as conflicts beside the server's version, out of the outbox.
+  await keepRefused(ctx, refused);
+  total.conflicts += refused.length;
   if (fresh.length) {
     // The server has no trace of these: send them as new documents.
     const again = await ctx.client.bulkDocs(

@@ -8,7 +8,8 @@
  *
  * Conflicts are kept in the repository's `conflicts` store (one record per other version,
  * id `${docId}@${rev}`); kind, base revision and branches to delete go to `syncMeta` under
- * `conflict:${docId}`.
+ * `conflict:${docId}`. A refused change with no server copy has no other version to store: its
+ * id is listed under `conflicts:bare` so it is still found.
  */
 
 import type { BackupStore, KeyValue } from '../io/backup';
@@ -18,6 +19,8 @@ import type { ConflictRecord as StoredConflict, TufaDoc } from '../store/schema'
 import type { ConflictRecord, OutboxEntry, SyncStore } from './sync-store';
 
 const KIND_KEY = (docId: string) => `conflict:${docId}`;
+const BARE_KEY = 'conflicts:bare';
+type ConflictMeta = Pick<ConflictRecord, 'kind' | 'baseRev' | 'deleteRevs' | 'reason'>;
 
 export class RepositoryStore implements SyncStore, ImportTarget, BackupStore {
   constructor(readonly repo: Repository) {}
@@ -111,22 +114,23 @@ export class RepositoryStore implements SyncStore, ImportTarget, BackupStore {
     const stored = await this.repo.listConflicts();
     const byDoc = new Map<string, StoredConflict[]>();
     for (const c of stored) byDoc.set(c.docId, [...(byDoc.get(c.docId) ?? []), c]);
+    for (const id of (await this.repo.getSyncMeta<string[]>(BARE_KEY)) ?? [])
+      byDoc.set(id, byDoc.get(id) ?? []);
     const docs = await this.getDocs([...byDoc.keys()]);
     const out: ConflictRecord[] = [];
     for (const [docId, records] of byDoc) {
       const local = docs.get(docId);
       if (!local) continue;
-      const meta = await this.repo.getSyncMeta<Pick<ConflictRecord, 'kind' | 'baseRev' | 'deleteRevs'>>(
-        KIND_KEY(docId),
-      );
+      const meta = await this.repo.getSyncMeta<ConflictMeta & { detectedAt?: string }>(KIND_KEY(docId));
       out.push({
         docId,
         kind: meta?.kind ?? 'edit',
-        baseRev: meta?.baseRev ?? records[0]!.rev,
+        ...(meta?.reason === undefined ? {} : { reason: meta.reason }),
+        baseRev: meta?.baseRev ?? records[0]?.rev,
         deleteRevs: meta?.deleteRevs ?? [],
         local,
         others: records.map((r) => ({ rev: r.rev, doc: r.doc })),
-        detectedAt: records[0]!.keptAt,
+        detectedAt: records[0]?.keptAt ?? meta?.detectedAt ?? local.updatedAt,
       });
     }
     return out;
@@ -147,11 +151,23 @@ export class RepositoryStore implements SyncStore, ImportTarget, BackupStore {
       kind: c.kind,
       baseRev: c.baseRev,
       deleteRevs: c.deleteRevs,
+      ...(c.reason === undefined ? {} : { reason: c.reason }),
+      detectedAt: c.detectedAt,
     });
+    if (c.others.length === 0) {
+      const bare = (await this.repo.getSyncMeta<string[]>(BARE_KEY)) ?? [];
+      if (!bare.includes(c.docId)) await this.repo.setSyncMeta(BARE_KEY, [...bare, c.docId]);
+    }
   }
 
   async deleteConflict(docId: string): Promise<void> {
     for (const r of await this.repo.listConflicts(docId)) await this.repo.dropConflict(r.id);
+    const bare = (await this.repo.getSyncMeta<string[]>(BARE_KEY)) ?? [];
+    if (bare.includes(docId))
+      await this.repo.setSyncMeta(
+        BARE_KEY,
+        bare.filter((id) => id !== docId),
+      );
   }
 
   // ---- backup ----

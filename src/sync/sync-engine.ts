@@ -28,6 +28,7 @@ import { fromCouch } from './doc-codec';
 import { planPulled, whyUnusable } from './pull-plan';
 import { pushOutbox } from './push';
 import { asJsonText, keepSetAside, listSetAside, type SetAsideDoc, setAsideIssue } from './quarantine';
+import { heldIds, type RefusedChoice, settleRefused } from './refused';
 import { SyncError } from './sync-issues';
 import type { OtherVersion, SyncStore } from './sync-store';
 
@@ -348,13 +349,21 @@ export class SyncEngine {
     local: Map<string, TufaDoc>,
     total: SyncRunResult,
   ): Promise<void> {
-    const [queue, open] = await Promise.all([this.store.outbox(), this.store.conflicts()]);
+    const [queue, open, held] = await Promise.all([
+      this.store.outbox(),
+      this.store.conflicts(),
+      heldIds(this.store),
+    ]);
     const pendingIds = new Set([...queue.map((e) => e.docId), ...open.map((c) => c.docId)]);
+    const refusedWhy = new Map(open.filter((c) => c.kind === 'refused').map((c) => [c.docId, c.reason]));
+    // A doc kept on this device only is as unsent as a queued one: a server change to it is a conflict.
+    const isPending = (id: string) =>
+      pendingIds.has(id) || (held.has(id) && held.get(id) === local.get(id)?.updatedAt);
     const now = this.o.now();
     const { apply, seen, confirmed, edits, serverBranches, setAside } = planPulled(
       remoteDocs,
       local,
-      (id) => pendingIds.has(id),
+      isPending,
       now,
     );
     await this.putAside(setAside);
@@ -372,9 +381,12 @@ export class SyncEngine {
     const branched = new Set(serverBranches.map((b) => b._id));
     for (const { mine, theirs } of edits) {
       if (branched.has(mine.id)) continue;
+      const refused = refusedWhy.has(mine.id); // still refused; the server's newer version beside it
+      const reason = refusedWhy.get(mine.id);
       await this.store.putConflict({
         docId: mine.id,
-        kind: 'edit',
+        kind: refused ? 'refused' : 'edit',
+        ...(reason === undefined ? {} : { reason }),
         local: mine,
         others: [{ rev: theirs.rev!, doc: theirs }],
         baseRev: theirs.rev,
@@ -422,6 +434,14 @@ export class SyncEngine {
       detectedAt: now.toISOString(),
     });
     return true;
+  }
+
+  /** Ends a `refused` conflict with the user's choice (`refused.ts`); false if that choice is not possible. */
+  async settleRefused(docId: string, choice: RefusedChoice): Promise<boolean> {
+    const c = (await this.store.conflicts()).find((x) => x.docId === docId && x.kind === 'refused');
+    const done = c ? await settleRefused(this.store, c, choice) : false;
+    await this.refreshStatus();
+    return done;
   }
 
   /**

@@ -26,7 +26,7 @@ export type SyncCode =
   | 'sync-no-progress'
   /** Something failed inside Tufa itself during sync; the data on this device is untouched. */
   | 'sync-internal'
-  /** The server refused a change for this user's role (HTTP 403); it stays on the device. */
+  /** The server refused a change for this user's role (HTTP 403); it stays on the device as a conflict. */
   | 'sync-doc-forbidden';
 
 export class SyncError extends Error {
@@ -52,7 +52,8 @@ export function syncIssue(code: SyncCode, message: string, field?: string): Issu
 /**
  * A document the server refused in a `_bulk_docs` row. `forbidden` is a team server's rule (role,
  * authorship or document shape: `src/team/validate-source.ts`), said plainly with the server's
- * reason; the change stays on this device and in the outbox, so nothing typed is lost.
+ * reason; the change stays on this device as a `refused` conflict (`refused.ts`), out of the
+ * outbox until the user decides, so nothing typed is lost.
  */
 export function rejectedDocIssue(
   type: string,
@@ -63,7 +64,7 @@ export function rejectedDocIssue(
   if (error === 'forbidden' || error === 'unauthorized')
     return syncIssue(
       'sync-doc-forbidden',
-      `The server did not accept your change to this ${type}: ${(reason ?? 'your role does not allow it').replace(/\.$/, '')}. Your change is kept on this device; ask a lead of your team, or undo it.`,
+      `The server did not accept your change to this ${type}: ${(reason ?? 'your role does not allow it').replace(/\.$/, '')}. Your change is kept on this device and not sent again until you choose, under Conflicts to decide.`,
     );
   return syncIssue(
     'sync-doc-rejected',

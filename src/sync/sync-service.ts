@@ -13,6 +13,7 @@ import type { Issue } from '../chem/errors';
 import type { TufaDoc } from '../io/docs';
 import { type Auth, CouchClient, type Fetch } from './couch-client';
 import { pullSelector } from './partial-sync';
+import { heldHere, type RefusedChoice, sendHeld } from './refused';
 import { checkDbName, checkServerUrl } from './server-url';
 import { SyncEngine, type SyncStatus } from './sync-engine';
 import { syncIssue } from './sync-issues';
@@ -203,6 +204,24 @@ export class SyncService {
 
   conflicts(): Promise<ConflictRecord[]> {
     return this.store.conflicts();
+  }
+
+  /** A refused change settled by the user (`refused.ts`), then a sync so the result shows. */
+  async settleRefused(docId: string, choice: RefusedChoice): Promise<void> {
+    if (!this.engine && !(await this.start())) return;
+    await this.engine!.settleRefused(docId, choice);
+    await this.syncNow();
+  }
+
+  /** Docs the user chose to keep on this device only (not sent), as they are now. */
+  heldHere(): Promise<TufaDoc[]> {
+    return heldHere(this.store);
+  }
+
+  /** Sends a doc kept on this device only again. */
+  async sendHeld(docId: string): Promise<void> {
+    await sendHeld(this.store, docId);
+    await this.syncNow();
   }
 
   async resolve(docId: string, choice: 'local' | { rev: string } | { merged: TufaDoc }): Promise<void> {

@@ -25,10 +25,16 @@ export interface OtherVersion {
  * `edit`: this device changed a doc the server also changed; `local` is this device's version
  * (still queued, not pushed), `others[0]` the server's. `server`: the server holds several
  * branches; `local` is the winning one (what this device shows), `others` the losing branches.
+ * `refused`: the server refused this device's change (its rules: role, authorship, shape);
+ * `local` is the refused version (out of the outbox while the conflict is open), `others[0]` the
+ * server's current version, or none when the server has no copy (a refused create); `reason` is
+ * the server's reason.
  */
 export interface ConflictRecord {
   docId: string;
-  kind: 'edit' | 'server';
+  kind: 'edit' | 'server' | 'refused';
+  /** For `refused`: the server's reason, in its words. */
+  reason?: string;
   local: TufaDoc;
   others: OtherVersion[];
   /** The server's winning revision: the resolution is written on top of it. */

@@ -131,7 +131,7 @@ function roleChecks(label: string, target: () => { url: string; db: string }) {
       expect(r.body.reason).toBe('reading bad-1: values[0].value (ph in nbs) must be a number, not "7.9".');
     });
 
-    it('through the app: A syncs a reading, B edits it offline, the server refuses it and B keeps the edit', async () => {
+    it('through the app: A syncs a reading, B edits it offline, the server refuses it and B keeps the edit as a conflict', async () => {
       const { url, db } = target();
       const a = await teamDevice(url, db, 'anna', 'anna-pw');
       const site = await a.repo.createSite(siteInput('Spring below the quarry'));
@@ -151,7 +151,9 @@ function roleChecks(label: string, target: () => { url: string; db: string }) {
       expect(rejected.join('\n')).toMatch(
         /^sync-doc-forbidden The server did not accept your change to this reading: .*created by anna/m,
       );
-      expect(await b.repo.outboxSize()).toBe(1); // kept, not lost
+      // Kept, not lost: a conflict beside the server's version, out of the outbox until B chooses.
+      expect(await b.repo.outboxSize()).toBe(0);
+      expect(await b.store.conflicts()).toMatchObject([{ docId: reading.id, kind: 'refused' }]);
       expect((await b.repo.getReading(reading.id))?.notes).toBe('ben was here');
 
       const lead = await teamDevice(url, db, 'lea', 'lea-pw');

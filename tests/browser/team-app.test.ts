@@ -1,7 +1,8 @@
 /**
  * A team member in the built app against `tufa server`: the sync panel says who is signed in and
  * what the role allows; the lead's site and reading show who entered them, with a line instead of
- * the actions a member cannot do; a change the server refuses is a plain message, kept on the device.
+ * the actions a member cannot do; a change the server refuses is a plain message and a conflict the
+ * member resolves (keep it on the device, send again, or take the server's version).
  */
 
 import type { Browser, Page } from 'playwright-core';
@@ -10,8 +11,9 @@ import { main } from '../../src/cli/main';
 import { readingInput, siteInput } from '../sync/devices';
 import { basic } from '../team/team-devices';
 import { TufaServer } from '../team/tufa-server';
-import { launch, newContext, openApp, screenshot } from './browser';
+import { ARTIFACTS, launch, newContext, openApp, screenshot } from './browser';
 import { injectAppModules } from './bundle';
+import { audit } from './phone-audit';
 
 const base = inject('baseUrl');
 const ADMIN = 'root:field-admin-pass';
@@ -117,14 +119,55 @@ describe('a member of a team in the app', () => {
       .toMatch(
         /The server did not accept your change to this reading: A member changes or deletes only what they created; reading reading-lea was created by lea\. Ask a lead\. Your change is kept on this device.*sync-doc-forbidden/,
       );
-    expect(await sync.textContent()).toMatch(/Waiting to be sent1 change/);
+    // A conflict to resolve, with the server's reason; out of the outbox, so not sent at every sync.
+    const card = sync.locator('article.refused');
+    await expect.poll(() => card.count()).toBe(1);
+    expect(await card.textContent()).toMatch(/was created by lea\. Ask a lead\./);
+    expect(await card.textContent()).toMatch(/This deviceServer.*anna was herereading 2/);
+    expect(await sync.textContent()).toMatch(/Waiting to be sent0 changes/);
+    await page.setViewportSize({ width: 390, height: 844 });
+    await card.scrollIntoViewIfNeeded();
+    expect(await audit(page, 'refused change')).toEqual([]);
     await screenshot(page, 'team-refused');
-    const onServer = (await (
-      await fetch(`${server.url}team/reading-lea`, { headers: basic('lea', 'lea-pw') })
-    ).json()) as {
-      notes: string;
-    };
-    expect(onServer.notes).toBe('reading 2');
+    await sync.screenshot({ path: new URL('team-refused-panel.png', ARTIFACTS).pathname });
+    const serverNotes = async () =>
+      (
+        (await (
+          await fetch(`${server.url}team/reading-lea`, { headers: basic('lea', 'lea-pw') })
+        ).json()) as {
+          notes: string;
+        }
+      ).notes;
+    const localNotes = () =>
+      page.evaluate(async () => {
+        type M = typeof import('../bench/browser-entry');
+        const repo = await (window as unknown as { TufaModules: M }).TufaModules.openRepository();
+        const r = await repo.getReading('reading-lea');
+        repo.close();
+        return r?.notes;
+      });
+    expect(await serverNotes()).toBe('reading 2');
+
+    // Keep it on this device only: listed as such, unsent, the edit still here.
+    await card.getByRole('button', { name: 'Keep mine on this device only' }).click();
+    const held = sync.locator('section[aria-labelledby="held-h"]');
+    await expect.poll(() => held.textContent()).toMatch(/Kept on this device only \(1\)/);
+    expect(await card.count()).toBe(0);
+    expect(await localNotes()).toBe('anna was here');
+    expect(await audit(page, 'kept on this device')).toEqual([]);
+    await held.screenshot({ path: new URL('team-refused-held.png', ARTIFACTS).pathname });
+
+    // Send again: still a member, so refused again and back as a conflict.
+    await held.getByRole('button', { name: 'Send again' }).click();
+    await expect.poll(() => card.count(), { timeout: 20_000 }).toBe(1);
+    expect(await held.count()).toBe(0);
+
+    // Take the server's version: the edit is dropped, the reading is the server's copy.
+    await card.getByRole('button', { name: /Use the server’s version/ }).click();
+    await expect.poll(() => card.count(), { timeout: 20_000 }).toBe(0);
+    expect(await localNotes()).toBe('reading 2');
+    expect(await serverNotes()).toBe('reading 2');
+    await page.setViewportSize({ width: 1100, height: 900 });
   });
 
   it('a new phone fetches only the sites it chooses', async () => {

@@ -9,8 +9,9 @@ import type { TufaDoc } from '../../store/schema';
 import type { SyncStatus } from '../../sync/sync-engine';
 import { type ConnectionSettings, checkConnection, type SyncService } from '../../sync/sync-service';
 import type { ConflictRecord } from '../../sync/sync-store';
-import { differingFields, fieldLabel, mergeVersions, showValue } from './conflict-fields';
+import { differingFields, docTitle, fieldLabel, mergeVersions, showValue } from './conflict-fields';
 import { KeepSites } from './KeepSites';
+import { HeldHere, RefusedCard } from './RefusedCard';
 import { SYNC_PANEL_HASH } from './SyncBadge';
 import { TeamRole } from './TeamRole';
 
@@ -46,16 +47,6 @@ function IssueLine({ issue, kind }: { issue: Issue; kind: 'warn' | 'error' }) {
       {issue.message} <code>{issue.code}</code>
     </p>
   );
-}
-
-function docTitle(d: TufaDoc, locale?: string): string {
-  if (d.type === 'site') return `Site “${d.name}”`;
-  const local = new Date(d.takenAt).toLocaleString(locale, {
-    dateStyle: 'medium',
-    timeStyle: 'short',
-    timeZone: d.timeZone,
-  });
-  return `Reading of ${local} (${d.timeZone})`;
 }
 
 function ConflictCard({
@@ -154,7 +145,9 @@ export function SyncPanel({
   const [busy, setBusy] = useState(false);
   const [connected, setConnected] = useState<ConnectionSettings>();
 
-  const reloadConflicts = () => service.conflicts().then(setConflicts);
+  const [held, setHeld] = useState<TufaDoc[]>([]);
+  const reloadConflicts = () =>
+    Promise.all([service.conflicts().then(setConflicts), service.heldHere().then(setHeld)]);
   useEffect(() => {
     service.connection().then((c) => {
       if (c) setForm({ ...c, password: c.password });
@@ -204,11 +197,13 @@ export function SyncPanel({
     setBusy(false);
     onDataChanged?.();
   };
-  const resolve = async (docId: string, choice: Parameters<SyncService['resolve']>[1]) => {
-    await service.resolve(docId, choice);
+  const settle = async (act: () => Promise<void>) => {
+    await act();
     await reloadConflicts();
     onDataChanged?.();
   };
+  const resolve = (docId: string, choice: Parameters<SyncService['resolve']>[1]) =>
+    settle(() => service.resolve(docId, choice));
 
   return (
     <section aria-labelledby="sync-h" class="stack" ref={section}>
@@ -269,16 +264,26 @@ export function SyncPanel({
       {conflicts.length > 0 && (
         <section aria-labelledby="conflicts-h">
           <h3 id="conflicts-h">Conflicts to decide ({conflicts.length})</h3>
-          {conflicts.map((c) => (
-            <ConflictCard
-              key={c.docId}
-              c={c}
-              locale={locale}
-              onResolve={(choice) => resolve(c.docId, choice)}
-            />
-          ))}
+          {conflicts.map((c) =>
+            c.kind === 'refused' ? (
+              <RefusedCard
+                key={c.docId}
+                c={c}
+                locale={locale}
+                onSettle={(choice) => settle(() => service.settleRefused(c.docId, choice))}
+              />
+            ) : (
+              <ConflictCard
+                key={c.docId}
+                c={c}
+                locale={locale}
+                onResolve={(choice) => resolve(c.docId, choice)}
+              />
+            ),
+          )}
         </section>
       )}
+      <HeldHere docs={held} locale={locale} onSend={(id) => settle(() => service.sendHeld(id))} />
       {connected && (
         <KeepSites
           key={`${connected.url}|${connected.db}`}

@@ -21,6 +21,17 @@ const LABELS: Record<string, string> = {
   plan: 'Plan',
 };
 
+/** A record as a person names it: the site's name, or the reading's local time and zone. */
+export function docTitle(d: TufaDoc, locale?: string): string {
+  if (d.type === 'site') return `Site “${d.name}”`;
+  const local = new Date(d.takenAt).toLocaleString(locale, {
+    dateStyle: 'medium',
+    timeStyle: 'short',
+    timeZone: d.timeZone,
+  });
+  return `Reading of ${local} (${d.timeZone})`;
+}
+
 export function fieldLabel(key: string): string {
   return LABELS[key] ?? key;
 }

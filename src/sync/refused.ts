@@ -75,6 +75,7 @@ export async function settleRefused(
     await store.dropOutbox([c.docId]);
     await unhold(store, [c.docId]);
   } else if (choice === 'here') {
+    await store.dropOutbox([c.docId]); // an edit made while the conflict was open stays here too
     const held = (await store.getMeta<Record<string, string>>(HELD)) ?? {};
     await store.setMeta(HELD, { ...held, [c.docId]: c.local.updatedAt });
   } else {

@@ -135,6 +135,29 @@ describe('a refused change becomes a conflict the user resolves', () => {
     }
   });
 
+  it("a refused delete: taking the server's version brings the reading back", async () => {
+    const { b, id } = await refusedEdit('delete');
+    await b.engine.settleRefused(id, 'retry');
+    await b.repo.deleteReading(id);
+    expect((await b.engine.sync()).conflicts).toBe(1);
+    const [c] = await b.store.conflicts();
+    expect(c).toMatchObject({ kind: 'refused', local: { deleted: true } });
+    expect(await b.engine.settleRefused(id, 'server')).toBe(true);
+    expect(await b.repo.getReading(id)).toMatchObject({ deleted: false, notes: 'anna, first visit' });
+    expect(await b.repo.outboxSize()).toBe(0);
+  });
+
+  it('an edit made while the conflict is open is what "keep it here" keeps, unsent', async () => {
+    const { b, id } = await refusedEdit('again');
+    await b.repo.updateReading(id, { notes: 'ben typed more' });
+    expect(await b.engine.sync()).toMatchObject({ pushed: 0, conflicts: 0 }); // open: not sent
+    expect(await b.engine.settleRefused(id, 'here')).toBe(true);
+    expect(await b.repo.outboxSize()).toBe(0);
+    expect(await b.engine.sync()).toMatchObject({ pushed: 0, conflicts: 0 });
+    expect(await notesOf(b, id)).toBe('ben typed more');
+    expect((await heldHere(b.store)).map((d) => d.id)).toEqual([id]);
+  });
+
   it('a refused create has "not on the server" on the other side; it cannot be swapped for nothing', async () => {
     const v = await teamDevice(server.url, 'team', 'vera', 'vera-pw');
     const site = await v.repo.createSite(siteInput('Tank row C (viewer tried)'));

@@ -9,7 +9,7 @@
 import { basename } from 'node:path';
 import { isSolveError } from '../chem/api';
 import { solve } from '../chem/solve';
-import { csvRecord } from '../io/csv-write';
+import { csvField, csvRecord } from '../io/csv-write';
 import { COMPUTED_COLUMNS } from '../io/export-csv';
 import { formatNumber } from '../io/numbers';
 import { QUANTITIES } from '../io/quantities';
@@ -100,6 +100,13 @@ export async function runRecompute(args: string[], io: CliIo): Promise<number> {
   out.add(`${csvRecord(header)}\r\n`);
   let computed = 0;
   let failed = 0;
+  // Output rows are written field by field (numbers need no quoting); cells that repeat from row
+  // to row (sites, times, measured values, warnings) are formatted once and looked up after.
+  const text = memo(csvField);
+  const valueCells = table.valueKeys.map(() => memo(formatNumber));
+  let takenText = '';
+  let takenKey = '';
+  const noResult = `${','.repeat(COMPUTED_COLUMNS.length)},`;
   for await (const batch of table.rows)
     for (const r of batch) {
       rows++;
@@ -109,29 +116,32 @@ export async function runRecompute(args: string[], io: CliIo): Promise<number> {
         continue;
       }
       const res = solve(r.input);
-      const row = [
-        String(r.line),
-        r.site,
-        r.takenAt !== undefined ? formatWithOffset(Date.parse(r.takenAt), r.zone) : '',
-        r.zone,
-        ...(table.hasPh ? [r.options.ph_scale ?? String(o.sets.ph_scale ?? '')] : []),
-        ...table.valueKeys.map((k) => formatNumber(r.values[k])),
-      ];
+      if (r.takenAt === undefined) takenText = takenKey = '';
+      else if (`${r.takenAt} ${r.zone}` !== takenKey) {
+        takenKey = `${r.takenAt} ${r.zone}`;
+        takenText = formatWithOffset(Date.parse(r.takenAt), r.zone);
+      }
+      let line = `${r.line},${text(r.site)},${takenText},${text(r.zone)}`;
+      if (table.hasPh) line += `,${text(r.options.ph_scale ?? String(o.sets.ph_scale ?? ''))}`;
+      for (let k = 0; k < valueCells.length; k++) line += `,${valueCells[k]!(r.values[table.valueKeys[k]!])}`;
       if (isSolveError(res)) {
         failed++;
-        row.push(...COMPUTED_COLUMNS.map(() => ''), '', `${res.error.code}: ${res.error.message}`);
+        line += `${noResult},${csvField(`${res.error.code}: ${res.error.message}`)}`;
         io.stderr.write(`line ${r.line}: ${res.error.code}: ${res.error.message}\n`);
       } else {
         computed++;
-        row.push(
-          ...COMPUTED_COLUMNS.map((c) =>
-            formatNumber(typeof res[c] === 'number' ? (res[c] as number) : undefined),
-          ),
-          res.model,
-          res.warnings.map((w) => `${w.code}: ${w.message}`).join(' | '),
-        );
+        for (const c of COMPUTED_COLUMNS) {
+          const v = res[c];
+          line += `,${formatNumber(typeof v === 'number' ? v : undefined)}`;
+        }
+        let issues = '';
+        for (let w = 0; w < res.warnings.length; w++) {
+          const warning = res.warnings[w]!;
+          issues += `${w > 0 ? ' | ' : ''}${warning.code}: ${warning.message}`;
+        }
+        line += `,${text(res.model)},${text(issues)}`;
       }
-      if (out.add(`${csvRecord(row)}\r\n`)) await out.flush();
+      if (out.add(`${line}\r\n`)) await out.flush();
     }
   await out.flush();
   const count = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
@@ -141,6 +151,20 @@ export async function runRecompute(args: string[], io: CliIo): Promise<number> {
       `${failed ? `, ${count(failed, 'row', 'rows')} not solvable` : ''}.\n`,
   );
   return problems > 0 || failed > 0 ? EXIT_ROW_FAILED : EXIT_OK;
+}
+
+/** A formatter with a bounded cache of its recent arguments. */
+function memo<T>(f: (x: T) => string): (x: T) => string {
+  const cache = new Map<T | undefined, string>();
+  return (x) => {
+    let s = cache.get(x);
+    if (s === undefined) {
+      s = f(x);
+      if (cache.size >= 4096) cache.clear();
+      cache.set(x, s);
+    }
+    return s;
+  };
 }
 
 function where(i: { row: number; column?: string }): string {

@@ -299,7 +299,10 @@ export async function openTable(
   const read = rowReader(header, mapping, decimalComma, {
     timeRequired: false,
     limits: readerOptions.limits,
+    contentValues: false,
   });
+  const sets = Object.entries(o.sets);
+  const isPassthrough = extras.map(([, name]) => (PASSTHROUGH as readonly string[]).includes(name));
 
   const toRow = ([cells, line]: [string[], number]): TableRow => {
     if (cells.length !== header.length) {
@@ -324,17 +327,18 @@ export async function openTable(
     const { values, options } = engineValues({ values: r.measured });
     // The app's one request function; --set and extra engine columns fill what the row leaves open.
     const req = readingRequest({ values: r.measured }, undefined);
-    const input: Record<string, unknown> = { ...req.input };
-    const fill = (k: string, v: unknown) => {
-      if (req.sources[k] !== 'typed' && req.sources[k] !== 'titration') input[k] = v;
-    };
-    for (const [k, v] of Object.entries(o.sets)) fill(k, v);
+    // The request is made afresh for this row, so its input is completed in place.
+    const input: Record<string, unknown> = req.input;
+    const sources = req.sources;
+    for (const [k, v] of sets) if (sources[k] !== 'typed' && sources[k] !== 'titration') input[k] = v;
     const passthrough: Record<string, string> = {};
-    for (const [i, name] of extras) {
+    for (let e = 0; e < extras.length; e++) {
+      const [i, name] = extras[e]!;
       const cell = cells[i]!.trim();
       if (cell === '') continue;
-      if ((PASSTHROUGH as readonly string[]).includes(name)) passthrough[name] = cell;
-      else fill(name, TEXT_KEYS.has(name) ? cell : (parseNumber(cell, decimalComma) ?? cell));
+      if (isPassthrough[e]) passthrough[name] = cell;
+      else if (sources[name] !== 'typed' && sources[name] !== 'titration')
+        input[name] = TEXT_KEYS.has(name) ? cell : (parseNumber(cell, decimalComma) ?? cell);
     }
     const row: TableRow = {
       line,

@@ -101,8 +101,8 @@ export async function runRecompute(args: string[], io: CliIo): Promise<number> {
   let computed = 0;
   let failed = 0;
   // Output rows are written field by field (numbers need no quoting); cells that repeat from row
-  // to row (sites, times, measured values, warnings) are formatted once and looked up after.
-  const text = memo(csvField);
+  // to row (times, measured values) are formatted once and looked up after.
+  const text = csvField;
   const valueCells = table.valueKeys.map(() => memo(formatNumber));
   let takenText = '';
   let takenKey = '';
@@ -155,7 +155,7 @@ export async function runRecompute(args: string[], io: CliIo): Promise<number> {
 
 /** A formatter with a bounded cache of its recent arguments. */
 function memo<T>(f: (x: T) => string): (x: T) => string {
-  const cache = new Map<T | undefined, string>();
+  const cache = new Map<T, string>();
   return (x) => {
     let s = cache.get(x);
     if (s === undefined) {

@@ -70,8 +70,9 @@ let lastSpan: Span = { lo: 0, hi: 0, offset: 0 };
  * Intl is slow enough to matter for 100 000 rows, so offsets are cached: per UTC day when the
  * offset is the same at both ends of the day (no change that day), else per quarter hour, since
  * offsets are whole quarter hours and change on quarter-hour instants (true of the time zone
- * database since the 1970s). The day or quarter hour last used per zone is remembered as a span,
- * so rows in time order cost two comparisons and no Map lookup; answers are those of the caches.
+ * database since the 1970s). Per zone, the run of neighbouring days (or quarter hours) last found
+ * to share one offset is remembered as a span, so rows in time order cost two comparisons and no
+ * Map lookup; its answers are those of the caches it was made from.
  */
 export function zoneOffsetMinutes(timeZone: string, epochMs: number): number {
   let span = timeZone === lastZone ? lastSpan : spans.get(timeZone);
@@ -100,6 +101,11 @@ export function zoneOffsetMinutes(timeZone: string, epochMs: number): number {
   if (span === undefined) {
     span = { lo, hi, offset };
     spans.set(timeZone, span);
+  } else if (offset === span.offset && (hi === span.lo || lo === span.hi)) {
+    // A neighbour with the same offset: the span grows (to a whole season as rows go by), so a
+    // look-up a day either side of the last one, as wallClockToEpoch makes, hits it too.
+    span.lo = Math.min(lo, span.lo);
+    span.hi = Math.max(hi, span.hi);
   } else {
     span.lo = lo;
     span.hi = hi;

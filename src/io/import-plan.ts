@@ -218,6 +218,26 @@ const PH_SCALE_CODES = ['ph', 'nbs', 'total', 'free', 'seawater'];
 const cellOf = (row: readonly string[], i: number) => (i >= 0 ? (row[i] ?? '').trim() : '');
 
 /**
+ * `parseNumber` of a trimmed cell, with a short way for what loggers write (an optional minus,
+ * digits, at most one decimal mark of the file's kind): the same number, without the text
+ * replacements and pattern test. Anything else goes to `parseNumber`.
+ */
+export function cellNumber(raw: string, decimalComma: boolean): number | undefined {
+  const mark = decimalComma ? 44 : 46;
+  let at = -1;
+  let digits = 0;
+  for (let i = raw.charCodeAt(0) === 45 ? 1 : 0; i < raw.length; i++) {
+    const c = raw.charCodeAt(i);
+    if (c >= 48 && c <= 57) digits++;
+    else if (c === mark && at < 0) at = i;
+    else return parseNumber(raw, decimalComma);
+  }
+  if (digits === 0) return parseNumber(raw, decimalComma);
+  const v = Number(decimalComma && at >= 0 ? `${raw.slice(0, at)}.${raw.slice(at + 1)}` : raw);
+  return Number.isFinite(v) ? v : undefined;
+}
+
+/**
  * Reads rows of one file under one mapping: the single home of how a cell becomes a time or a
  * measured value, shared by the app's import (`planImport`) and the command line's table reader.
  */
@@ -298,7 +318,7 @@ export function rowReader(
     for (const { index, q, unit, titration } of valueCols) {
       const raw = cell(index);
       if (raw === '') continue;
-      const x = parseNumber(raw, decimalComma);
+      const x = cellNumber(raw, decimalComma);
       if (x === undefined) {
         errors.push(
           rowIssue(

@@ -1,7 +1,9 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { defaultMapping } from '../../src/io/column-mapping';
 import { parseCsv } from '../../src/io/csv-parse';
-import { rowReader } from '../../src/io/import-plan';
+import { cellNumber, rowReader } from '../../src/io/import-plan';
+import { parseNumber } from '../../src/io/numbers';
 
 // Invented logger rows from our own demo stations: several rows share a time (one per station),
 // a time zone column changes while the time text stays the same, and a bad time repeats.
@@ -51,5 +53,38 @@ describe('row reader', () => {
     expect(without.values).toEqual({});
     expect(without.measured).toEqual(withIds.measured);
     expect(without.takenAt).toBe(withIds.takenAt);
+  });
+});
+
+describe('cellNumber', () => {
+  it('reads every cell as parseNumber does, in both decimal modes', () => {
+    const cells = fc.oneof(
+      fc.stringMatching(/^-?[0-9]{0,5}[.,]?[0-9]{0,5}$/),
+      fc.stringMatching(/^[-+ 0-9.,eE'\u2212]{0,10}$/),
+      fc.double({ noNaN: true }).map(String),
+      fc.string({ maxLength: 8 }),
+    );
+    fc.assert(
+      fc.property(cells, fc.boolean(), (cell, comma) => {
+        const raw = cell.trim();
+        expect(cellNumber(raw, comma)).toBe(parseNumber(raw, comma));
+      }),
+      { numRuns: 5000 },
+    );
+    for (const raw of [
+      '',
+      '-',
+      ',',
+      '.',
+      '-,5',
+      '-.5',
+      '5,',
+      '5.',
+      '1,2,3',
+      '1.2.3',
+      '9'.repeat(400),
+      '0,000',
+    ])
+      for (const comma of [true, false]) expect(cellNumber(raw, comma)).toBe(parseNumber(raw, comma));
   });
 });

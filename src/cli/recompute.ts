@@ -106,6 +106,19 @@ export async function runRecompute(args: string[], io: CliIo): Promise<number> {
   const valueCells = table.valueKeys.map(() => memo(formatNumber));
   let takenText = '';
   let takenKey = '';
+  // Rows in a run mostly carry the same warnings: their cell is made again only when they change.
+  let lastWarnings: readonly { code: string; message: string }[] = [];
+  let lastIssues = '';
+  const issuesCell = (warnings: readonly { code: string; message: string }[]) => {
+    const same =
+      warnings.length === lastWarnings.length &&
+      warnings.every((w, i) => w.code === lastWarnings[i]!.code && w.message === lastWarnings[i]!.message);
+    if (!same) {
+      lastWarnings = warnings;
+      lastIssues = csvField(warnings.map((w) => `${w.code}: ${w.message}`).join(' | '));
+    }
+    return lastIssues;
+  };
   const noResult = `${','.repeat(COMPUTED_COLUMNS.length)},`;
   for await (const batch of table.rows)
     for (const r of batch) {
@@ -134,12 +147,7 @@ export async function runRecompute(args: string[], io: CliIo): Promise<number> {
           const v = res[c];
           line += `,${formatNumber(typeof v === 'number' ? v : undefined)}`;
         }
-        let issues = '';
-        for (let w = 0; w < res.warnings.length; w++) {
-          const warning = res.warnings[w]!;
-          issues += `${w > 0 ? ' | ' : ''}${warning.code}: ${warning.message}`;
-        }
-        line += `,${text(res.model)},${text(issues)}`;
+        line += `,${text(res.model)},${issuesCell(res.warnings)}`;
       }
       if (out.add(`${line}\r\n`)) await out.flush();
     }

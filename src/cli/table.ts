@@ -17,7 +17,6 @@ import { rowReader } from '../io/import-plan';
 import { type RowIssue, rowIssue } from '../io/io-issues';
 import { parseNumber } from '../io/numbers';
 import { KEY_ORDER, quantityById } from '../io/quantities';
-import { engineValues } from '../io/solve-input';
 import { isKnownTimeZone } from '../io/timestamps';
 import { readingRequest } from '../reading/request';
 
@@ -324,12 +323,20 @@ export async function openTable(
       };
     }
     const r = read(cells, line);
-    const { values, options } = engineValues({ values: r.measured });
     // The app's one request function; --set and extra engine columns fill what the row leaves open.
     const req = readingRequest({ values: r.measured }, undefined);
     // The request is made afresh for this row, so its input is completed in place.
     const input: Record<string, unknown> = req.input;
     const sources = req.sources;
+    // The measured values in engine keys, and the options their units imply (ph_scale), as typed.
+    const values: Record<string, number> = {};
+    const options: Record<string, string> = {};
+    for (const k in sources) {
+      if (sources[k] !== 'typed') continue;
+      const v = input[k];
+      if (typeof v === 'number') values[k] = v;
+      else if (typeof v === 'string') options[k] = v;
+    }
     for (const [k, v] of sets) if (sources[k] !== 'typed' && sources[k] !== 'titration') input[k] = v;
     const passthrough: Record<string, string> = {};
     for (let e = 0; e < extras.length; e++) {

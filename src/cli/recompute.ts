@@ -14,7 +14,7 @@ import { COMPUTED_COLUMNS } from '../io/export-csv';
 import { formatNumber } from '../io/numbers';
 import { QUANTITIES } from '../io/quantities';
 import { formatWithOffset } from '../io/timestamps';
-import { type CliIo, EXIT_OK, EXIT_ROW_FAILED, EXIT_USAGE, Output } from './io';
+import { ByteOutput, type CliIo, EXIT_OK, EXIT_ROW_FAILED, EXIT_USAGE } from './io';
 import { openTable, TABLE_OPTIONS_HELP, tableDefaults, tableOption } from './table';
 
 export const RECOMPUTE_HELP = `tufa recompute — compute the carbonate system for every row of a logger or spreadsheet CSV
@@ -71,7 +71,7 @@ export async function runRecompute(args: string[], io: CliIo): Promise<number> {
   }
   if (!file) return usage('--csv FILE is required');
   if (o.siteName === undefined) o.siteName = basename(file);
-  const out = new Output(io.stdout);
+  const out = new ByteOutput(io.stdout);
   let problems = 0;
   let rows = 0;
   const table = await openTable(
@@ -108,14 +108,16 @@ export async function runRecompute(args: string[], io: CliIo): Promise<number> {
   let takenKey = '';
   // Rows in a run mostly carry the same warnings: their cell is made again only when they change.
   let lastWarnings: readonly { code: string; message: string }[] = [];
-  let lastIssues = '';
+  let lastIssues = Buffer.from(',\r\n');
   const issuesCell = (warnings: readonly { code: string; message: string }[]) => {
     const same =
       warnings.length === lastWarnings.length &&
       warnings.every((w, i) => w.code === lastWarnings[i]!.code && w.message === lastWarnings[i]!.message);
     if (!same) {
       lastWarnings = warnings;
-      lastIssues = csvField(warnings.map((w) => `${w.code}: ${w.message}`).join(' | '));
+      lastIssues = Buffer.from(
+        `,${csvField(warnings.map((w) => `${w.code}: ${w.message}`).join(' | '))}\r\n`,
+      );
     }
     return lastIssues;
   };
@@ -147,7 +149,9 @@ export async function runRecompute(args: string[], io: CliIo): Promise<number> {
           const v = res[c];
           line += `,${formatNumber(typeof v === 'number' ? v : undefined)}`;
         }
-        line += `,${text(res.model)},${issuesCell(res.warnings)}`;
+        out.add(`${line},${text(res.model)}`);
+        if (out.addBytes(issuesCell(res.warnings))) await out.flush();
+        continue;
       }
       if (out.add(`${line}\r\n`)) await out.flush();
     }

@@ -147,8 +147,8 @@ export interface Table {
   /** Engine keys of the mapped value columns, in catalogue order. */
   valueKeys: string[];
   hasPh: boolean;
-  /** The rows, in batches as they are read. */
-  rows: AsyncGenerator<TableRow[]>;
+  /** The rows, in batches as they are read; each row is made when its batch is iterated. */
+  rows: AsyncGenerator<Iterable<TableRow>>;
 }
 
 /** Decoded text of a file in pieces: UTF-8, or Windows-1252 from the first piece that is not UTF-8. */
@@ -361,10 +361,15 @@ export async function openTable(
     return row;
   };
 
-  async function* rows(): AsyncGenerator<TableRow[]> {
-    if (pending.length > 0) yield pending.map(toRow);
+  // Rows are made as they are used, not a batch (thousands) ahead: each row's objects then die
+  // young, which the garbage collector handles at a fraction of the cost.
+  function* each(batch: [string[], number][]): Generator<TableRow> {
+    for (const record of batch) yield toRow(record);
+  }
+  async function* rows(): AsyncGenerator<Iterable<TableRow>> {
+    if (pending.length > 0) yield each(pending);
     if (ended) return;
-    for await (const batch of it) yield batch.map(toRow);
+    for await (const batch of it) yield each(batch);
   }
   return {
     header,

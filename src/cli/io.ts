@@ -7,7 +7,7 @@ export interface CliIo {
 
 /** A writable end: a Node stream (write returns false when full, then emits 'drain') or a test buffer. */
 export interface Sink {
-  write(chunk: string): unknown;
+  write(chunk: string | Uint8Array): unknown;
   once?(event: 'drain', listener: () => void): unknown;
 }
 
@@ -47,6 +47,56 @@ export class Output {
     this.buffer = '';
     const sink = this.sink;
     if (sink.write(text) === false && sink.once) {
+      await new Promise<void>((resolve) => sink.once!('drain', resolve));
+    }
+  }
+}
+
+/**
+ * Output like `Output`, encoded as it is added: text goes into a byte buffer, and bytes that
+ * repeat (a cell made once) are copied in as bytes, so a long text with a character beyond
+ * Latin-1 (an en dash in a warning) is not encoded to UTF-8 again on every row.
+ */
+export class ByteOutput {
+  private bytes: Buffer;
+  private at = 0;
+  constructor(
+    private readonly sink: Sink,
+    private readonly chunkSize = 64 * 1024,
+  ) {
+    this.bytes = Buffer.allocUnsafe(2 * chunkSize);
+  }
+
+  private room(n: number): void {
+    if (this.at + n <= this.bytes.length) return;
+    const bigger = Buffer.allocUnsafe(Math.max(2 * this.bytes.length, this.at + n));
+    this.bytes.copy(bigger, 0, 0, this.at);
+    this.bytes = bigger;
+  }
+
+  /** Adds text; true when the caller should `await flush()` before going on. */
+  add(text: string): boolean {
+    this.room(3 * text.length);
+    this.at += this.bytes.write(text, this.at, 'utf8');
+    return this.at >= this.chunkSize;
+  }
+
+  /** Adds encoded text (UTF-8); true when the caller should `await flush()`. */
+  addBytes(b: Uint8Array): boolean {
+    this.room(b.length);
+    this.bytes.set(b, this.at);
+    this.at += b.length;
+    return this.at >= this.chunkSize;
+  }
+
+  async flush(): Promise<void> {
+    if (this.at === 0) return;
+    // The sink may hold the chunk until it is written: the next one goes into a new buffer.
+    const chunk = this.bytes.subarray(0, this.at);
+    this.bytes = Buffer.allocUnsafe(this.bytes.length);
+    this.at = 0;
+    const sink = this.sink;
+    if (sink.write(chunk) === false && sink.once) {
       await new Promise<void>((resolve) => sink.once!('drain', resolve));
     }
   }

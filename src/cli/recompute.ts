@@ -9,12 +9,12 @@
 import { basename } from 'node:path';
 import { isSolveError } from '../chem/api';
 import { solve } from '../chem/solve';
-import { csvRecord } from '../io/csv-write';
+import { csvField, csvRecord } from '../io/csv-write';
 import { COMPUTED_COLUMNS } from '../io/export-csv';
 import { formatNumber } from '../io/numbers';
 import { QUANTITIES } from '../io/quantities';
 import { formatWithOffset } from '../io/timestamps';
-import { type CliIo, EXIT_OK, EXIT_ROW_FAILED, EXIT_USAGE, Output } from './io';
+import { ByteOutput, type CliIo, EXIT_OK, EXIT_ROW_FAILED, EXIT_USAGE } from './io';
 import { openTable, TABLE_OPTIONS_HELP, tableDefaults, tableOption } from './table';
 
 export const RECOMPUTE_HELP = `tufa recompute — compute the carbonate system for every row of a logger or spreadsheet CSV
@@ -71,7 +71,7 @@ export async function runRecompute(args: string[], io: CliIo): Promise<number> {
   }
   if (!file) return usage('--csv FILE is required');
   if (o.siteName === undefined) o.siteName = basename(file);
-  const out = new Output(io.stdout);
+  const out = new ByteOutput(io.stdout);
   let problems = 0;
   let rows = 0;
   const table = await openTable(
@@ -100,6 +100,28 @@ export async function runRecompute(args: string[], io: CliIo): Promise<number> {
   out.add(`${csvRecord(header)}\r\n`);
   let computed = 0;
   let failed = 0;
+  // Output rows are written field by field (numbers need no quoting); cells that repeat from row
+  // to row (times, measured values) are formatted once and looked up after.
+  const text = csvField;
+  const valueCells = table.valueKeys.map(() => memo(formatNumber));
+  let takenText = '';
+  let takenKey = '';
+  // Rows in a run mostly carry the same warnings: their cell is made again only when they change.
+  let lastWarnings: readonly { code: string; message: string }[] = [];
+  let lastIssues = Buffer.from(',\r\n');
+  const issuesCell = (warnings: readonly { code: string; message: string }[]) => {
+    const same =
+      warnings.length === lastWarnings.length &&
+      warnings.every((w, i) => w.code === lastWarnings[i]!.code && w.message === lastWarnings[i]!.message);
+    if (!same) {
+      lastWarnings = warnings;
+      lastIssues = Buffer.from(
+        `,${csvField(warnings.map((w) => `${w.code}: ${w.message}`).join(' | '))}\r\n`,
+      );
+    }
+    return lastIssues;
+  };
+  const noResult = `${','.repeat(COMPUTED_COLUMNS.length)},`;
   for await (const batch of table.rows)
     for (const r of batch) {
       rows++;
@@ -109,29 +131,29 @@ export async function runRecompute(args: string[], io: CliIo): Promise<number> {
         continue;
       }
       const res = solve(r.input);
-      const row = [
-        String(r.line),
-        r.site,
-        r.takenAt !== undefined ? formatWithOffset(Date.parse(r.takenAt), r.zone) : '',
-        r.zone,
-        ...(table.hasPh ? [r.options.ph_scale ?? String(o.sets.ph_scale ?? '')] : []),
-        ...table.valueKeys.map((k) => formatNumber(r.values[k])),
-      ];
+      if (r.takenAt === undefined) takenText = takenKey = '';
+      else if (`${r.takenAt} ${r.zone}` !== takenKey) {
+        takenKey = `${r.takenAt} ${r.zone}`;
+        takenText = formatWithOffset(Date.parse(r.takenAt), r.zone);
+      }
+      let line = `${r.line},${text(r.site)},${takenText},${text(r.zone)}`;
+      if (table.hasPh) line += `,${text(r.options.ph_scale ?? String(o.sets.ph_scale ?? ''))}`;
+      for (let k = 0; k < valueCells.length; k++) line += `,${valueCells[k]!(r.values[table.valueKeys[k]!])}`;
       if (isSolveError(res)) {
         failed++;
-        row.push(...COMPUTED_COLUMNS.map(() => ''), '', `${res.error.code}: ${res.error.message}`);
+        line += `${noResult},${csvField(`${res.error.code}: ${res.error.message}`)}`;
         io.stderr.write(`line ${r.line}: ${res.error.code}: ${res.error.message}\n`);
       } else {
         computed++;
-        row.push(
-          ...COMPUTED_COLUMNS.map((c) =>
-            formatNumber(typeof res[c] === 'number' ? (res[c] as number) : undefined),
-          ),
-          res.model,
-          res.warnings.map((w) => `${w.code}: ${w.message}`).join(' | '),
-        );
+        for (const c of COMPUTED_COLUMNS) {
+          const v = res[c];
+          line += `,${formatNumber(typeof v === 'number' ? v : undefined)}`;
+        }
+        out.add(`${line},${text(res.model)}`);
+        if (out.addBytes(issuesCell(res.warnings))) await out.flush();
+        continue;
       }
-      if (out.add(`${csvRecord(row)}\r\n`)) await out.flush();
+      if (out.add(`${line}\r\n`)) await out.flush();
     }
   await out.flush();
   const count = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
@@ -141,6 +163,20 @@ export async function runRecompute(args: string[], io: CliIo): Promise<number> {
       `${failed ? `, ${count(failed, 'row', 'rows')} not solvable` : ''}.\n`,
   );
   return problems > 0 || failed > 0 ? EXIT_ROW_FAILED : EXIT_OK;
+}
+
+/** A formatter with a bounded cache of its recent arguments. */
+function memo<T>(f: (x: T) => string): (x: T) => string {
+  const cache = new Map<T, string>();
+  return (x) => {
+    let s = cache.get(x);
+    if (s === undefined) {
+      s = f(x);
+      if (cache.size >= 4096) cache.clear();
+      cache.set(x, s);
+    }
+    return s;
+  };
 }
 
 function where(i: { row: number; column?: string }): string {

@@ -17,7 +17,6 @@ import { rowReader } from '../io/import-plan';
 import { type RowIssue, rowIssue } from '../io/io-issues';
 import { parseNumber } from '../io/numbers';
 import { KEY_ORDER, quantityById } from '../io/quantities';
-import { engineValues } from '../io/solve-input';
 import { isKnownTimeZone } from '../io/timestamps';
 import { readingRequest } from '../reading/request';
 
@@ -148,8 +147,8 @@ export interface Table {
   /** Engine keys of the mapped value columns, in catalogue order. */
   valueKeys: string[];
   hasPh: boolean;
-  /** The rows, in batches as they are read. */
-  rows: AsyncGenerator<TableRow[]>;
+  /** The rows, in batches as they are read; each row is made when its batch is iterated. */
+  rows: AsyncGenerator<Iterable<TableRow>>;
 }
 
 /** Decoded text of a file in pieces: UTF-8, or Windows-1252 from the first piece that is not UTF-8. */
@@ -299,7 +298,10 @@ export async function openTable(
   const read = rowReader(header, mapping, decimalComma, {
     timeRequired: false,
     limits: readerOptions.limits,
+    contentValues: false,
   });
+  const sets = Object.entries(o.sets);
+  const isPassthrough = extras.map(([, name]) => (PASSTHROUGH as readonly string[]).includes(name));
 
   const toRow = ([cells, line]: [string[], number]): TableRow => {
     if (cells.length !== header.length) {
@@ -321,20 +323,29 @@ export async function openTable(
       };
     }
     const r = read(cells, line);
-    const { values, options } = engineValues({ values: r.measured });
     // The app's one request function; --set and extra engine columns fill what the row leaves open.
     const req = readingRequest({ values: r.measured }, undefined);
-    const input: Record<string, unknown> = { ...req.input };
-    const fill = (k: string, v: unknown) => {
-      if (req.sources[k] !== 'typed' && req.sources[k] !== 'titration') input[k] = v;
-    };
-    for (const [k, v] of Object.entries(o.sets)) fill(k, v);
+    // The request is made afresh for this row, so its input is completed in place.
+    const input: Record<string, unknown> = req.input;
+    const sources = req.sources;
+    // The measured values in engine keys, and the options their units imply (ph_scale), as typed.
+    const values: Record<string, number> = {};
+    const options: Record<string, string> = {};
+    for (const k in sources) {
+      if (sources[k] !== 'typed') continue;
+      const v = input[k];
+      if (typeof v === 'number') values[k] = v;
+      else if (typeof v === 'string') options[k] = v;
+    }
+    for (const [k, v] of sets) if (sources[k] !== 'typed' && sources[k] !== 'titration') input[k] = v;
     const passthrough: Record<string, string> = {};
-    for (const [i, name] of extras) {
+    for (let e = 0; e < extras.length; e++) {
+      const [i, name] = extras[e]!;
       const cell = cells[i]!.trim();
       if (cell === '') continue;
-      if ((PASSTHROUGH as readonly string[]).includes(name)) passthrough[name] = cell;
-      else fill(name, TEXT_KEYS.has(name) ? cell : (parseNumber(cell, decimalComma) ?? cell));
+      if (isPassthrough[e]) passthrough[name] = cell;
+      else if (sources[name] !== 'typed' && sources[name] !== 'titration')
+        input[name] = TEXT_KEYS.has(name) ? cell : (parseNumber(cell, decimalComma) ?? cell);
     }
     const row: TableRow = {
       line,
@@ -350,10 +361,15 @@ export async function openTable(
     return row;
   };
 
-  async function* rows(): AsyncGenerator<TableRow[]> {
-    if (pending.length > 0) yield pending.map(toRow);
+  // Rows are made as they are used, not a batch (thousands) ahead: each row's objects then die
+  // young, which the garbage collector handles at a fraction of the cost.
+  function* each(batch: [string[], number][]): Generator<TableRow> {
+    for (const record of batch) yield toRow(record);
+  }
+  async function* rows(): AsyncGenerator<Iterable<TableRow>> {
+    if (pending.length > 0) yield each(pending);
     if (ended) return;
-    for await (const batch of it) yield batch.map(toRow);
+    for await (const batch of it) yield each(batch);
   }
   return {
     header,

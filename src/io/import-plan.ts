@@ -197,7 +197,7 @@ export interface RowRead {
   takenAt?: string;
   zone: string;
   measured: MeasuredValue[];
-  /** Engine keys and values (plus `ph_scale_code`), as the content id sees them. */
+  /** Engine keys and values (plus `ph_scale_code`), as the content id sees them (empty without `contentValues`). */
   values: Record<string, number>;
   notes: string;
   errors: RowIssue[];
@@ -208,6 +208,33 @@ export interface RowReaderOptions {
   timeRequired: boolean;
   /** Refuse values outside the quantity's physical limits (false leaves them to the engine's own codes). */
   limits: boolean;
+  /** Fill `values` (engine keys as the content id sees them); a reader that does not store needs none. */
+  contentValues?: boolean;
+}
+
+const PH_SCALES = ['total', 'free', 'seawater', 'nbs'] as const;
+const PH_SCALE_CODES = ['ph', 'nbs', 'total', 'free', 'seawater'];
+
+const cellOf = (row: readonly string[], i: number) => (i >= 0 ? (row[i] ?? '').trim() : '');
+
+/**
+ * `parseNumber` of a trimmed cell, with a short way for what loggers write (an optional minus,
+ * digits, at most one decimal mark of the file's kind): the same number, without the text
+ * replacements and pattern test. Anything else goes to `parseNumber`.
+ */
+export function cellNumber(raw: string, decimalComma: boolean): number | undefined {
+  const mark = decimalComma ? 44 : 46;
+  let at = -1;
+  let digits = 0;
+  for (let i = raw.charCodeAt(0) === 45 ? 1 : 0; i < raw.length; i++) {
+    const c = raw.charCodeAt(i);
+    if (c >= 48 && c <= 57) digits++;
+    else if (c === mark && at < 0) at = i;
+    else return parseNumber(raw, decimalComma);
+  }
+  if (digits === 0) return parseNumber(raw, decimalComma);
+  const v = Number(decimalComma && at >= 0 ? `${raw.slice(0, at)}.${raw.slice(at + 1)}` : raw);
+  return Number.isFinite(v) ? v : undefined;
 }
 
 /**
@@ -235,10 +262,16 @@ export function rowReader(
       { index: i, q, unit: q.units.find((x) => x.id === c.unit)!, titration: c.role === 'titration-value' },
     ];
   });
+  const contentValues = options.contentValues ?? true;
   let knownZone: string | undefined;
+  // Rows of a logger often share a time (one per station): the last time read is reused.
+  let lastDate = '';
+  let lastTime = '';
+  let lastZone = '';
+  let lastTaken: string | { reason: string } = { reason: '' };
   return (row, line) => {
     const errors: RowIssue[] = [];
-    const cell = (i: number) => (i >= 0 ? (row[i] ?? '').trim() : '');
+    const cell = (i: number) => cellOf(row, i);
     // Time
     const zone = cZone >= 0 && cell(cZone) !== '' ? cell(cZone) : mapping.timeZone;
     // Rows of a file nearly always share one zone: check it once, not per row.
@@ -253,17 +286,23 @@ export function rowReader(
       if (hasTime || options.timeRequired)
         errors.push(rowIssue(line, 'time-missing', 'The sampling time is empty.', timeColumn));
     } else if (knownZone !== undefined) {
-      const t = parseTimestamp(dateText, cTimestamp >= 0 ? undefined : cell(cTime), zone, mapping.dateOrder);
-      if ('reason' in t) errors.push(rowIssue(line, 'time-unreadable', t.reason, timeColumn));
-      else takenAt = new Date(t.epochMs).toISOString();
+      const timeText = cTimestamp >= 0 ? '' : cell(cTime);
+      if (dateText !== lastDate || timeText !== lastTime || zone !== lastZone) {
+        const t = parseTimestamp(dateText, cTimestamp >= 0 ? undefined : timeText, zone, mapping.dateOrder);
+        lastTaken = 'reason' in t ? t : new Date(t.epochMs).toISOString();
+        lastDate = dateText;
+        lastTime = timeText;
+        lastZone = zone;
+      }
+      if (typeof lastTaken === 'string') takenAt = lastTaken;
+      else errors.push(rowIssue(line, 'time-unreadable', lastTaken.reason, timeColumn));
     }
 
     // Values: kept as written (quantity, number, unit); the id uses the converted engine values.
     const scaleText = cScale >= 0 ? cell(cScale).toLowerCase() : '';
     let scale = mapping.phScale;
     if (scaleText !== '') {
-      if ((['total', 'free', 'seawater', 'nbs'] as const).some((x) => x === scaleText))
-        scale = scaleText as typeof scale;
+      if (PH_SCALES.some((x) => x === scaleText)) scale = scaleText as typeof scale;
       else
         errors.push(
           rowIssue(
@@ -279,7 +318,7 @@ export function rowReader(
     for (const { index, q, unit, titration } of valueCols) {
       const raw = cell(index);
       if (raw === '') continue;
-      const x = parseNumber(raw, decimalComma);
+      const x = cellNumber(raw, decimalComma);
       if (x === undefined) {
         errors.push(
           rowIssue(
@@ -308,15 +347,15 @@ export function rowReader(
       if (titration) {
         // A titration's result: kept apart from typed values, and part of the content id as such.
         measured.push({ quantity: q.id, value: stored.value, unit: stored.unit, source: 'titration' });
-        values[`titration_${unit.key}`] = k;
+        if (contentValues) values[`titration_${unit.key}`] = k;
         continue;
       }
       if (q.id === 'ph' && scale) stored.unit = scale;
       measured.push({ quantity: q.id, value: stored.value, unit: stored.unit });
+      if (!contentValues) continue;
       values[unit.key] = k;
       // The pH scale is part of what the number means, so it is part of the content id.
-      if (q.id === 'ph')
-        values.ph_scale_code = ['ph', 'nbs', 'total', 'free', 'seawater'].indexOf(stored.unit);
+      if (q.id === 'ph') values.ph_scale_code = PH_SCALE_CODES.indexOf(stored.unit);
     }
     if (valueCols.length > 0 && measured.length === 0 && errors.length === 0) {
       errors.push(rowIssue(line, 'row-no-values', 'This row has no measured values.'));

@@ -55,21 +55,65 @@ function cached(cache: OffsetCache, timeZone: string, key: number, f: () => numb
   return v;
 }
 
+/** Per zone, the last span of instants [lo, hi) known to share one offset: most lookups end here. */
+interface Span {
+  lo: number;
+  hi: number;
+  offset: number;
+}
+const spans = new Map<string, Span>();
+let lastZone = '';
+let lastSpan: Span = { lo: 0, hi: 0, offset: 0 };
+
 /**
  * Offset of a zone from UTC at an instant, in minutes (east positive). Throws on unknown zones.
  * Intl is slow enough to matter for 100 000 rows, so offsets are cached: per UTC day when the
  * offset is the same at both ends of the day (no change that day), else per quarter hour, since
  * offsets are whole quarter hours and change on quarter-hour instants (true of the time zone
- * database since the 1970s).
+ * database since the 1970s). Per zone, the run of neighbouring days (or quarter hours) last found
+ * to share one offset is remembered as a span, so rows in time order cost two comparisons and no
+ * Map lookup; its answers are those of the caches it was made from.
  */
 export function zoneOffsetMinutes(timeZone: string, epochMs: number): number {
+  let span = timeZone === lastZone ? lastSpan : spans.get(timeZone);
+  if (span !== undefined && epochMs >= span.lo && epochMs < span.hi) {
+    lastZone = timeZone;
+    lastSpan = span;
+    return span.offset;
+  }
   const day = Math.floor(epochMs / DAY_MS);
   // Keys 2·day and 2·day + 1: the offsets at the start and at the end of a UTC day.
   const start = cached(dayEnds, timeZone, 2 * day, () => intlOffset(timeZone, day * DAY_MS));
   const end = cached(dayEnds, timeZone, 2 * day + 1, () => intlOffset(timeZone, (day + 1) * DAY_MS - 1000));
-  if (start === end) return start;
-  const q = Math.floor(epochMs / QUARTER_HOUR_MS);
-  return cached(quarters, timeZone, q, () => intlOffset(timeZone, q * QUARTER_HOUR_MS));
+  let lo: number;
+  let hi: number;
+  let offset: number;
+  if (start === end) {
+    lo = day * DAY_MS;
+    hi = lo + DAY_MS;
+    offset = start;
+  } else {
+    const q = Math.floor(epochMs / QUARTER_HOUR_MS);
+    lo = q * QUARTER_HOUR_MS;
+    hi = lo + QUARTER_HOUR_MS;
+    offset = cached(quarters, timeZone, q, () => intlOffset(timeZone, q * QUARTER_HOUR_MS));
+  }
+  if (span === undefined) {
+    span = { lo, hi, offset };
+    spans.set(timeZone, span);
+  } else if (offset === span.offset && (hi === span.lo || lo === span.hi)) {
+    // A neighbour with the same offset: the span grows (to a whole season as rows go by), so a
+    // look-up a day either side of the last one, as wallClockToEpoch makes, hits it too.
+    span.lo = Math.min(lo, span.lo);
+    span.hi = Math.max(hi, span.hi);
+  } else {
+    span.lo = lo;
+    span.hi = hi;
+    span.offset = offset;
+  }
+  lastZone = timeZone;
+  lastSpan = span;
+  return offset;
 }
 
 const formatters = new Map<string, Intl.DateTimeFormat>();
@@ -108,14 +152,17 @@ export function isKnownTimeZone(timeZone: string): boolean {
  */
 export function wallClockToEpoch(w: WallClock, timeZone: string): number {
   const naive = Date.UTC(w.year, w.month - 1, w.day, w.hour, w.minute, w.second, w.ms);
-  const day = 86400000;
   // Offsets a day before and after bracket any change near this time (changes are rarer than daily).
-  const candidates = [naive - day, naive, naive + day].map(
-    (t) => naive - zoneOffsetMinutes(timeZone, t) * 60000,
-  );
-  const valid = candidates.filter((e) => naive - zoneOffsetMinutes(timeZone, e) * 60000 === e);
+  const before = naive - zoneOffsetMinutes(timeZone, naive - DAY_MS) * 60000;
+  const at = naive - zoneOffsetMinutes(timeZone, naive) * 60000;
+  const after = naive - zoneOffsetMinutes(timeZone, naive + DAY_MS) * 60000;
+  const valid = (e: number) => naive - zoneOffsetMinutes(timeZone, e) * 60000 === e;
+  // The usual case: one offset all round, and the wall clock exists.
+  if (before === at && at === after && valid(at)) return at;
   // Several valid: the repeated autumn hour, take the first occurrence. None: the spring gap.
-  return valid.length > 0 ? Math.min(...valid) : Math.max(...candidates);
+  let first = Number.POSITIVE_INFINITY;
+  for (const e of [before, at, after]) if (e < first && valid(e)) first = e;
+  return first !== Number.POSITIVE_INFINITY ? first : Math.max(before, at, after);
 }
 
 function validWallClock(w: WallClock): boolean {

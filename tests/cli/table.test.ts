@@ -102,3 +102,50 @@ describe('one table reader for solve --csv and recompute --csv', () => {
     expect(s.rows[1]).toMatchObject({ id: 'B', line: '3', error_code: 'negative-alkalinity' });
   });
 });
+
+describe('recompute output rows', () => {
+  it('every row has the header’s fields, and the issues cell follows the warnings as they change', async () => {
+    // Invented: a cold sample (outside a constant's fitted range) between two warm ones.
+    const file = join(dir, 'warnings.csv');
+    writeFileSync(
+      file,
+      [
+        'Temp (°C);Salinity;pH;Alkalinity (µmol/kg)',
+        '20,0;35,0;8,05;2300',
+        '4,0;35,0;8,00;2300',
+        '4,0;35,0;8,00;2300',
+        '25,0;35,0;8,00;2300',
+      ].join('\n'),
+    );
+    let out = '';
+    const code = await runRecompute(['--csv', file, '--map', 'pH=ph:total'], {
+      stdin: Readable.from([]),
+      stdout: {
+        write: (s: string | Uint8Array) => (out += typeof s === 'string' ? s : Buffer.from(s).toString()),
+      },
+      stderr: { write: () => true },
+    });
+    expect(code).toBe(0);
+    const t = parseCsv(out, { delimiter: ',' }).table;
+    expect(t.rows).toHaveLength(4);
+    for (const r of t.rows) expect(r).toHaveLength(t.header.length);
+    const issues = t.rows.map((r) => r[t.header.indexOf('computed_issues')]!);
+    const expected = [20, 4, 4, 25].map((temperature_c) => {
+      const res = solve({
+        temperature_c,
+        salinity: 35,
+        ph: temperature_c === 20 ? 8.05 : 8,
+        ph_scale: 'total',
+        alkalinity_umol_kg: 2300,
+        air_pco2_uatm: 420,
+        model: 'auto',
+        carbonic_constants: 'auto',
+        boron_total: 'lee2010',
+      });
+      return 'error' in res ? 'error' : res.warnings.map((w) => `${w.code}: ${w.message}`).join(' | ');
+    });
+    expect(issues).toEqual(expected);
+    expect(issues[1]).not.toBe('');
+    expect(issues[0]).toBe(issues[3]);
+  });
+});

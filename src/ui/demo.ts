@@ -87,7 +87,7 @@ const SCENARIOS: Scenario[] = [
     site: {
       id: `${DEMO_PREFIX}site-garage-reef`,
       name: 'Garage reef tank (demo)',
-      kind: 'tank',
+      kind: 'reef',
       defaults: { model: 'saline', ph_scale: 'nbs', salinity: 35, units: { alkalinity: 'dkh' } },
       notes: 'Invented 600 L reef tank; alkalinity drifts down between weekly top-ups.',
     },

@@ -159,9 +159,8 @@ let lastGamma:
   | undefined;
 
 /**
- * Activity coefficients at (t, I): the last set is kept, because the ion-pair iteration with a
- * given ionic strength asks for the same one on every pass (and the pair constants are cached on
- * the identity of this object). Treat the returned object as read-only.
+ * Activity coefficients at (t, I): the last set is kept, because a solve asks for the same one
+ * several times. Treat the returned object as read-only.
  */
 export function activityCoefficients(
   tC: number,
@@ -180,6 +179,44 @@ export function activityCoefficients(
     return c.g;
   const g = activityCoefficientsAt(tC, ionicStrength, model, saltingOut);
   lastGamma = { tC, i: ionicStrength, model, saltingOut, g };
+  return g;
+}
+
+/**
+ * The same coefficients written into `g` (the ion-pair iteration rewrites one set per solve);
+ * Davies fills every ion from three powers, the other equations go through `activityCoefficientsAt`.
+ */
+export function activityCoefficientsInto(
+  g: ActivityCoefficients,
+  tC: number,
+  ionicStrength: number,
+  model: ActivityModel,
+  saltingOut: boolean,
+): ActivityCoefficients {
+  if (model !== 'davies') return Object.assign(g, activityCoefficients(tC, ionicStrength, model, saltingOut));
+  const l1 = logGammaDavies(1, ionicStrength, debyeHuckelAB(tC).a);
+  const g1 = 10 ** l1;
+  const g2 = 10 ** (4 * l1);
+  g.neutral = 10 ** logGammaNeutral(ionicStrength, saltingOut);
+  g.PO4 = 10 ** (9 * l1);
+  g.H = g1;
+  g.OH = g1;
+  g.HCO3 = g1;
+  g.CO3 = g2;
+  g.Ca = g2;
+  g.Mg = g2;
+  g.Na = g1;
+  g.K = g1;
+  g.Cl = g1;
+  g.SO4 = g2;
+  g.HSO4 = g1;
+  g.F = g1;
+  g.BOH4 = g1;
+  g.NH4 = g1;
+  g.H2PO4 = g1;
+  g.HPO4 = g2;
+  g.H3SiO4 = g1;
+  g.HS = g1;
   return g;
 }
 

@@ -15,16 +15,18 @@ import {
   ACTIVITY_RANGE_MOL_KG,
   type ActivityCoefficients,
   type ActivityModel,
-  activityCoefficients,
+  activityCoefficientsInto,
+  ION_NAMES,
 } from './activity';
 import {
-  conditionalBetas,
+  conditionalBetasInto,
   type FreeIons,
   logKspGypsumNordstrom1990,
   type PairAlphas,
   type PairBeta,
-  pairAlphas,
-  pairLogK,
+  type PairLogK,
+  pairAlphasInto,
+  pairKAt,
 } from './ion-pairs';
 import {
   BATES_PHOSPHATE_RANGE_C,
@@ -55,6 +57,23 @@ import {
 import { pushRange } from './validity';
 
 const NO_PAIRS: PairAlphas = Object.freeze({ hco3: 1, co3: 1, oh: 1, so4: 1, ca: 1, mg: 1 });
+const NO_GAMMA = Object.freeze(
+  Object.fromEntries([...ION_NAMES, 'neutral'].map((n) => [n, 1])),
+) as ActivityCoefficients;
+const NO_BETAS: PairBeta = Object.freeze({
+  caHco3: 0,
+  caCo3: 0,
+  caSo4: 0,
+  caOh: 0,
+  mgHco3: 0,
+  mgCo3: 0,
+  mgSo4: 0,
+  mgOh: 0,
+  naCo3: 0,
+  naHco3: 0,
+  naSo4: 0,
+  kSo4: 0,
+});
 
 export interface FreshOptions {
   /** Ionic strength, mol/kg of water (≥ 0). */
@@ -233,15 +252,12 @@ function thermodynamicAt(tK: number, dolomite: 'ordered' | 'disordered'): Thermo
 
 /** Builds the fresh-water ConstantSet at the given conditions and ionic strength. */
 export function freshConstants(cond: Conditions, opts: FreshOptions): FreshConstantSet {
-  const tC = cond.temperatureC;
-  if (!Number.isFinite(tC) || tC <= -T0_K) {
-    fail(
-      'bad-temperature',
-      `Temperature must be a number above absolute zero (got ${String(tC)}).`,
-      'temperature_c',
-    );
-  }
-  const I = opts.ionicStrength;
+  const b = new FreshConstantsBuilder(cond, opts);
+  b.at(opts.ionicStrength, opts.freeIons);
+  return b.finish();
+}
+
+function checkIonicStrength(I: number): void {
   if (!Number.isFinite(I) || I < 0) {
     fail(
       'bad-ionic-strength',
@@ -249,72 +265,143 @@ export function freshConstants(cond: Conditions, opts: FreshOptions): FreshConst
       'ionic_strength_mol_kg',
     );
   }
-  const model = opts.activity ?? 'davies';
-  const saltingOut = opts.saltingOut ?? true;
-  const tK = tC + T0_K;
-  const g = activityCoefficients(tC, I, model, saltingOut);
+}
 
-  const { th, K, fugacity } = thermodynamicAt(tK, opts.dolomite ?? 'ordered');
-  const gn = g.neutral;
-  const calcium = opts.calcium ?? 0;
-  const magnesium = opts.magnesium ?? 0;
-  // Ion pairs folded into the constants (ion-pairs.ts): α = total / free for each family.
-  let a: PairAlphas = NO_PAIRS;
-  let pairs: FreshConstantSet['pairs'];
-  if (opts.freeIons !== undefined) {
-    const betas = conditionalBetas(pairLogK(tK, th.kw), g);
-    a = pairAlphas(betas, opts.freeIons, calcium, magnesium);
-    pairs = { betas, free: opts.freeIons, alphas: a };
+/**
+ * One fresh constant set re-evaluated in place at a new ionic strength and speciation: the
+ * passes of the ion-pair iteration (`solve-fresh.ts`) move only I and the free ions, so the
+ * temperature terms (thermodynamic K, pair K, fugacity, formulation names) are computed once and
+ * every pass rewrites the same objects (set, γ, β, α) instead of building new ones. `at` returns
+ * the set (the same object each time: a caller keeping one pass's values must copy them);
+ * `finish` adds the validity warnings for the last ionic strength and returns it.
+ */
+export class FreshConstantsBuilder {
+  readonly set: FreshConstantSet;
+  private readonly tC: number;
+  private readonly model: ActivityModel;
+  private readonly saltingOut: boolean;
+  private readonly K: ThermodynamicLogK;
+  private readonly pairK: PairLogK | undefined;
+  private readonly opts: FreshOptions;
+  private readonly g: ActivityCoefficients;
+  private readonly betas: PairBeta | undefined;
+  private readonly alphas: PairAlphas;
+
+  constructor(cond: Conditions, opts: FreshOptions) {
+    const tC = cond.temperatureC;
+    if (!Number.isFinite(tC) || tC <= -T0_K) {
+      fail(
+        'bad-temperature',
+        `Temperature must be a number above absolute zero (got ${String(tC)}).`,
+        'temperature_c',
+      );
+    }
+    checkIonicStrength(opts.ionicStrength);
+    this.tC = tC;
+    this.opts = opts;
+    this.model = opts.activity ?? 'davies';
+    this.saltingOut = opts.saltingOut ?? true;
+    const tK = tC + T0_K;
+    const dolomite = opts.dolomite ?? 'ordered';
+    const { th, K, fugacity } = thermodynamicAt(tK, dolomite);
+    this.K = K;
+    const withPairs = opts.freeIons !== undefined;
+    this.pairK = withPairs ? pairKAt(tK, th.kw) : undefined;
+    this.g = { ...NO_GAMMA };
+    this.betas = withPairs ? { ...NO_BETAS } : undefined;
+    this.alphas = { ...NO_PAIRS };
+    const totalSulfate = opts.totalSulfate ?? 0;
+    const totalFluoride = opts.totalFluoride ?? 0;
+    this.set = {
+      model: 'fresh',
+      conditions: cond,
+      k0: 0,
+      fugacityFactor: fugacity,
+      k1: 0,
+      k2: 0,
+      kw: 0,
+      kb: 0,
+      ks: 0,
+      kf: 0,
+      k1p: 0,
+      k2p: 0,
+      k3p: 0,
+      ksi: 0,
+      knh4: 0,
+      kh2s: 0,
+      kspCalcite: 0,
+      kspAragonite: 0,
+      kspDolomite: 0,
+      kspGypsum: 0,
+      totalBoron: opts.totalBoron ?? 0,
+      totalSulfate,
+      totalFluoride,
+      calcium: opts.calcium ?? 0,
+      magnesium: opts.magnesium ?? 0,
+      freeHFactor: 1,
+      scaleFactor: { nbs: 1, free: 1, total: 1, seawater: 1 },
+      ionicStrength: opts.ionicStrength,
+      activityModel: this.model,
+      gamma: this.g,
+      thermodynamic: th,
+      formulations: formulationsFor(this.model, this.saltingOut, dolomite, withPairs),
+      warnings: [],
+      pairs: undefined,
+    };
   }
-  const ks = ((K.ks * g.HSO4) / (g.H * g.SO4)) * a.so4;
-  const kf = (K.kf * gn) / (g.H * g.F);
-  const totalSulfate = opts.totalSulfate ?? 0;
-  const totalFluoride = opts.totalFluoride ?? 0;
-  const free = 1 / g.H;
 
-  const warnings = freshValidity(tC, cond.pressureDbar, I, model, opts);
+  /** The set at ionic strength I with free ions `free` (their pairs folded in; absent: all free). */
+  at(I: number, free: FreeIons | undefined): FreshConstantSet {
+    checkIonicStrength(I);
+    const k = this.set;
+    const g = this.g;
+    activityCoefficientsInto(g, this.tC, I, this.model, this.saltingOut);
+    const K = this.K;
+    const gn = g.neutral;
+    // Ion pairs folded into the constants (ion-pairs.ts): α = total / free for each family.
+    let a: PairAlphas = NO_PAIRS;
+    if (free !== undefined && this.betas !== undefined && this.pairK !== undefined) {
+      conditionalBetasInto(this.betas, this.pairK, g);
+      a = pairAlphasInto(this.alphas, this.betas, free, k.calcium, k.magnesium);
+      const p = k.pairs;
+      if (p === undefined) k.pairs = { betas: this.betas, free, alphas: a };
+      else p.free = free;
+    } else k.pairs = undefined;
+    const ks = ((K.ks * g.HSO4) / (g.H * g.SO4)) * a.so4;
+    const kf = (K.kf * gn) / (g.H * g.F);
+    const fr = 1 / g.H;
+    k.ionicStrength = I;
+    k.k0 = K.k0 / gn;
+    k.k1 = ((K.k1 * gn) / g.HCO3) * a.hco3;
+    k.k2 = ((K.k2 * g.HCO3) / g.CO3) * (a.co3 / a.hco3);
+    k.kw = (K.kw / g.OH) * a.oh;
+    k.kb = (K.kb * gn) / g.BOH4;
+    k.ks = ks;
+    k.kf = kf;
+    k.k1p = (K.k1p * gn) / g.H2PO4;
+    k.k2p = (K.k2p * g.H2PO4) / g.HPO4;
+    k.k3p = (K.k3p * g.HPO4) / g.PO4;
+    k.ksi = (K.ksi * gn) / g.H3SiO4;
+    k.knh4 = (K.knh4 * g.NH4) / gn;
+    k.kh2s = (K.kh2s * gn) / g.HS;
+    k.kspCalcite = (K.kspCalcite / (g.Ca * g.CO3)) * a.ca * a.co3;
+    k.kspAragonite = (K.kspAragonite / (g.Ca * g.CO3)) * a.ca * a.co3;
+    k.kspDolomite = (K.kspDolomite / (g.Ca * g.Mg * g.CO3 * g.CO3)) * a.ca * a.mg * a.co3 * a.co3;
+    k.kspGypsum = (K.kspGypsum / (g.Ca * g.SO4)) * a.ca * a.so4;
+    k.freeHFactor = fr;
+    const sf = k.scaleFactor;
+    sf.free = fr;
+    sf.total = fr * (1 + k.totalSulfate / ks);
+    sf.seawater = fr * (1 + k.totalSulfate / ks + k.totalFluoride / kf);
+    return k;
+  }
 
-  return {
-    model: 'fresh',
-    conditions: cond,
-    k0: K.k0 / gn,
-    fugacityFactor: fugacity,
-    k1: ((K.k1 * gn) / g.HCO3) * a.hco3,
-    k2: ((K.k2 * g.HCO3) / g.CO3) * (a.co3 / a.hco3),
-    kw: (K.kw / g.OH) * a.oh,
-    kb: (K.kb * gn) / g.BOH4,
-    ks,
-    kf,
-    k1p: (K.k1p * gn) / g.H2PO4,
-    k2p: (K.k2p * g.H2PO4) / g.HPO4,
-    k3p: (K.k3p * g.HPO4) / g.PO4,
-    ksi: (K.ksi * gn) / g.H3SiO4,
-    knh4: (K.knh4 * g.NH4) / gn,
-    kh2s: (K.kh2s * gn) / g.HS,
-    kspCalcite: (K.kspCalcite / (g.Ca * g.CO3)) * a.ca * a.co3,
-    kspAragonite: (K.kspAragonite / (g.Ca * g.CO3)) * a.ca * a.co3,
-    kspDolomite: (K.kspDolomite / (g.Ca * g.Mg * g.CO3 * g.CO3)) * a.ca * a.mg * a.co3 * a.co3,
-    kspGypsum: (K.kspGypsum / (g.Ca * g.SO4)) * a.ca * a.so4,
-    totalBoron: opts.totalBoron ?? 0,
-    totalSulfate,
-    totalFluoride,
-    calcium,
-    magnesium,
-    freeHFactor: free,
-    scaleFactor: {
-      nbs: 1,
-      free,
-      total: free * (1 + totalSulfate / ks),
-      seawater: free * (1 + totalSulfate / ks + totalFluoride / kf),
-    },
-    ionicStrength: I,
-    activityModel: model,
-    gamma: g,
-    thermodynamic: th,
-    formulations: formulationsFor(model, saltingOut, opts.dolomite ?? 'ordered', pairs !== undefined),
-    warnings,
-    pairs,
-  };
+  /** The set with the validity warnings of its (last) ionic strength. */
+  finish(): FreshConstantSet {
+    const k = this.set;
+    k.warnings = freshValidity(this.tC, k.conditions.pressureDbar, k.ionicStrength, this.model, this.opts);
+    return k;
+  }
 }
 
 const ACTIVITY_LABEL: Record<ActivityModel, string> = {

@@ -157,31 +157,38 @@ export function pairLogK(tK: number, logKw: number): PairLogK {
   return k;
 }
 
+/** The formation constants as K = 10^log K at temperature tK (see `pairLogK`). */
+export function pairKAt(tK: number, logKw: number): PairLogK {
+  return pairK(pairLogK(tK, logKw));
+}
+
 /** Conditional formation constants (concentrations, mol/kg of water) at one ionic strength. */
 export type PairBeta = PairLogK;
 
-let lastBetas: { lk: PairLogK; g: ActivityCoefficients; b: PairBeta } | undefined;
-
+/** Conditional formation constants from log K at activity coefficients g (a new record). */
 export function conditionalBetas(lk: PairLogK, g: ActivityCoefficients): PairBeta {
-  // With I fixed the pass-by-pass solve asks for the same set again (same objects, cached upstream).
-  if (lastBetas !== undefined && lastBetas.lk === lk && lastBetas.g === g) return lastBetas.b;
-  const g1 = g.HCO3; // charged pairs: charge 1, the 4 Å of HCO3-
   const K = pairK(lk);
-  const b: PairBeta = {
-    caHco3: (K.caHco3 * g.Ca * g.HCO3) / g1,
-    caCo3: K.caCo3 * g.Ca * g.CO3,
-    caSo4: K.caSo4 * g.Ca * g.SO4,
-    caOh: (K.caOh * g.Ca * g.OH) / g1,
-    mgHco3: (K.mgHco3 * g.Mg * g.HCO3) / g1,
-    mgCo3: K.mgCo3 * g.Mg * g.CO3,
-    mgSo4: K.mgSo4 * g.Mg * g.SO4,
-    mgOh: (K.mgOh * g.Mg * g.OH) / g1,
-    naCo3: (K.naCo3 * g.Na * g.CO3) / g1,
-    naHco3: K.naHco3 * g.Na * g.HCO3,
-    naSo4: (K.naSo4 * g.Na * g.SO4) / g1,
-    kSo4: (K.kSo4 * g.K * g.SO4) / g1,
-  };
-  lastBetas = { lk, g, b };
+  return conditionalBetasInto({ ...K }, K, g);
+}
+
+/**
+ * The conditional constants at activity coefficients g, written into `b` (one record per solve,
+ * rewritten on every pass of the pair iteration); K = 10^log K from `pairKAt`.
+ */
+export function conditionalBetasInto(b: PairBeta, K: PairLogK, g: ActivityCoefficients): PairBeta {
+  const g1 = g.HCO3; // charged pairs: charge 1, the 4 Å of HCO3-
+  b.caHco3 = (K.caHco3 * g.Ca * g.HCO3) / g1;
+  b.caCo3 = K.caCo3 * g.Ca * g.CO3;
+  b.caSo4 = K.caSo4 * g.Ca * g.SO4;
+  b.caOh = (K.caOh * g.Ca * g.OH) / g1;
+  b.mgHco3 = (K.mgHco3 * g.Mg * g.HCO3) / g1;
+  b.mgCo3 = K.mgCo3 * g.Mg * g.CO3;
+  b.mgSo4 = K.mgSo4 * g.Mg * g.SO4;
+  b.mgOh = (K.mgOh * g.Mg * g.OH) / g1;
+  b.naCo3 = (K.naCo3 * g.Na * g.CO3) / g1;
+  b.naHco3 = K.naHco3 * g.Na * g.HCO3;
+  b.naSo4 = (K.naSo4 * g.Na * g.SO4) / g1;
+  b.kSo4 = (K.kSo4 * g.K * g.SO4) / g1;
   return b;
 }
 
@@ -206,17 +213,23 @@ export interface PairAlphas {
 
 /**
  * The factors α = total / free: anions from the free cations; Ca and Mg from their totals (the
- * cation factors carry the anions through the free cations the speciation settled on).
+ * cation factors carry the anions through the free cations the speciation settled on), written
+ * into `a`.
  */
-export function pairAlphas(b: PairBeta, f: FreeIons, calcium: number, magnesium: number): PairAlphas {
-  return {
-    hco3: 1 + b.caHco3 * f.ca + b.mgHco3 * f.mg + b.naHco3 * f.na,
-    co3: 1 + b.caCo3 * f.ca + b.mgCo3 * f.mg + b.naCo3 * f.na,
-    oh: 1 + b.caOh * f.ca + b.mgOh * f.mg,
-    so4: 1 + b.caSo4 * f.ca + b.mgSo4 * f.mg + b.naSo4 * f.na + b.kSo4 * f.k,
-    ca: f.ca > 0 ? calcium / f.ca : 1,
-    mg: f.mg > 0 ? magnesium / f.mg : 1,
-  };
+export function pairAlphasInto(
+  a: PairAlphas,
+  b: PairBeta,
+  f: FreeIons,
+  calcium: number,
+  magnesium: number,
+): PairAlphas {
+  a.hco3 = 1 + b.caHco3 * f.ca + b.mgHco3 * f.mg + b.naHco3 * f.na;
+  a.co3 = 1 + b.caCo3 * f.ca + b.mgCo3 * f.mg + b.naCo3 * f.na;
+  a.oh = 1 + b.caOh * f.ca + b.mgOh * f.mg;
+  a.so4 = 1 + b.caSo4 * f.ca + b.mgSo4 * f.mg + b.naSo4 * f.na + b.kSo4 * f.k;
+  a.ca = f.ca > 0 ? calcium / f.ca : 1;
+  a.mg = f.mg > 0 ? magnesium / f.mg : 1;
+  return a;
 }
 
 /** Totals of the paired ions, mol/kg of water. */
@@ -248,6 +261,18 @@ export function speciate(b: PairBeta, t: PairTotals, a: FreeAnions, f: FreeIons)
     mg: t.mg / (1 + b.mgHco3 * a.hco3 + b.mgCo3 * a.co3 + b.mgSo4 * so4 + b.mgOh * a.oh),
     na: t.na / (1 + b.naHco3 * a.hco3 + b.naCo3 * a.co3 + b.naSo4 * so4),
     k: t.k / (1 + b.kSo4 * so4),
+  };
+}
+
+/**
+ * The free carbonate anions at free cations `f` from their totals (the solver's HCO3-, CO3--,
+ * OH-): each total over its α (`pairAlphasInto`).
+ */
+export function freeAnionsOf(b: PairBeta, f: FreeIons, hco3: number, co3: number, oh: number): FreeAnions {
+  return {
+    hco3: hco3 / (1 + b.caHco3 * f.ca + b.mgHco3 * f.mg + b.naHco3 * f.na),
+    co3: co3 / (1 + b.caCo3 * f.ca + b.mgCo3 * f.mg + b.naCo3 * f.na),
+    oh: oh / (1 + b.caOh * f.ca + b.mgOh * f.mg),
   };
 }
 

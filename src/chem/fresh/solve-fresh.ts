@@ -9,9 +9,9 @@ import type { FreshWaterOutputs } from '../api';
 import { type Issue, toIssue, warning } from '../errors';
 import { MOLAR_MASS_G_PER_MOL } from '../physical';
 import { type SalineOptions, salineCanEvaluate, salineConstants } from '../saline/constants';
-import type { CarbonateState, Conditions, MinorTotals } from '../types';
+import type { CarbonateState, Conditions, ConstantSet, MinorTotals } from '../types';
 import { alkalinityFromEqKg } from '../units';
-import { type FreshConstantSet, freshConstants } from './constants';
+import { type FreshConstantSet, FreshConstantsBuilder, type FreshOptions, freshConstants } from './constants';
 import { blendTowardSaline } from './handover';
 import {
   langelierIndex,
@@ -24,6 +24,7 @@ import {
 import {
   type FreeAnions,
   type FreeIons,
+  freeAnionsOf,
   type PairTotals,
   pairedIonicStrengthTerms,
   speciate,
@@ -79,7 +80,11 @@ function freshOwnConstantsAt(
   ctx: FreshContext,
   free: FreeIons | undefined,
 ): FreshConstantSet {
-  return freshConstants(cond, {
+  return freshConstants(cond, freshOptions(ionicStrength, ctx, free));
+}
+
+function freshOptions(ionicStrength: number, ctx: FreshContext, free: FreeIons | undefined): FreshOptions {
+  return {
     freeIons: free,
     ionicStrength,
     activity: ctx.fresh.activity,
@@ -88,7 +93,38 @@ function freshOwnConstantsAt(
     calcium: ctx.calciumMolKg ?? 0,
     magnesium: ctx.magnesiumMolKg ?? 0,
     minorTotals: ctx.minor,
-  });
+  };
+}
+
+/**
+ * The constants of the passes of one iteration: one set re-evaluated in place (`FreshConstantsBuilder`),
+ * blended toward the saline set when the handover applies (the saline set depends on temperature
+ * only, so it is built once). `finish` adds the validity warnings of the last pass.
+ */
+class PassConstants {
+  private readonly b: FreshConstantsBuilder;
+  private readonly saline: ConstantSet | undefined;
+  private readonly weight: number;
+  constructor(cond: Conditions, ctx: FreshContext, I: number, free: FreeIons | undefined) {
+    this.b = new FreshConstantsBuilder(cond, freshOptions(I, ctx, free));
+    const h = ctx.handover;
+    this.weight = h?.weight ?? 0;
+    this.saline =
+      h !== undefined && h.weight > 0 && salineCanEvaluate(cond.temperatureC)
+        ? salineConstants(
+            { temperatureC: cond.temperatureC, salinity: h.salinity, pressureDbar: 0 },
+            h.saline,
+          )
+        : undefined;
+  }
+  at(I: number, free: FreeIons | undefined): FreshConstantSet {
+    const k = this.b.at(I, free);
+    return this.saline === undefined ? k : blendTowardSaline(k, this.saline, this.weight);
+  }
+  finish(): FreshConstantSet {
+    const k = this.b.finish();
+    return this.saline === undefined ? k : blendTowardSaline(k, this.saline, this.weight);
+  }
 }
 
 /**
@@ -183,15 +219,16 @@ export function solveAtIonicStrength<T>(
 
 /**
  * The solve with ion pairs: free Ca, Mg, Na, K, SO4 and (for I from the major ions) the ionic
- * strength are iterated with the solved carbonate species. Each pass builds the constants at the
- * current speciation, solves the pair, takes the free carbonate anions from the solved totals and
- * makes one Gauss–Seidel sweep of the cation and sulfate balances (`ion-pairs.ts`); it stops when
- * the free ions and I change by less than 1e-10 relative (absolute floor 1e-15 mol/kg), within 60
- * passes. The error shrinks about tenfold per pass, alternating in sign (pairs lower I, which
- * loosens them again), so 4 passes with I given and 10–13 with I from the ions are usual; a secant
- * on I, an under-relaxed step and Aitken's Δ² every third pass took more passes; settling I and the
- * pairs at the solved carbonate before each solve (three rounds) cut the passes to 4–6 but cost as
- * much as it saved, so the plain step stays.
+ * strength are iterated with the solved carbonate species. Each pass re-evaluates the constants
+ * in place at the current speciation (`FreshConstantsBuilder`: the temperature terms are computed
+ * once per solve), solves the pair, takes the free carbonate anions from the solved totals, makes
+ * two Gauss–Seidel sweeps of the cation and sulfate balances (`ion-pairs.ts`), takes I from the
+ * new free ions, and stretches the step by the measured rate (below); it stops when one plain
+ * pass moves the free ions and I by less than 1e-10 relative (absolute floor 1e-15 mol/kg),
+ * within 60 passes. Before: one sweep with I from the previous pass's ions, which lagged I one
+ * pass behind the pairs, made the error alternate and shrink about tenfold per pass (10–13 passes
+ * with I from the ions). Now the bench's waters take 5.4 passes on average (6.7 without the
+ * extrapolation), the gypsum spring of the tests 9.
  */
 function solveWithPairs<T>(
   cond: Conditions,
@@ -205,20 +242,31 @@ function solveWithPairs<T>(
   // there — a DIC–HCO3- pair near its largest HCO3-/DIC ratio can lose it while the speciation is
   // far from settled — start again from no pairs at all, which the plain model could solve.
   let free: FreeIons = totals;
+  const pc = new PassConstants(cond, ctx, I, free);
   let k: FreshConstantSet;
   let result: T;
   try {
-    k = freshConstantsAt(cond, I, ctx, free);
+    k = pc.at(I, free);
     result = solveAt(k);
   } catch {
     free = NONE_FREE;
-    k = freshConstantsAt(cond, I, ctx, free);
+    k = pc.at(I, free);
     result = solveAt(k);
   }
+  let dPrev = 0;
+  let lambda = 0;
   for (let pass = 2; pass <= PAIR_MAX_PASSES; pass++) {
     const st = stateOf(result);
-    let next = speciate(k.pairs!.betas, totals, freeAnions(st, k), free);
-    let g = ctx.plan.iterate ? ionicStrengthOfState(st, k, ctx) : I;
+    const b = k.pairs!.betas;
+    const ohT = k.kw / st.h;
+    // Two sweeps of the cation and sulfate balances at the solved carbonate totals (the second with
+    // the free anions re-divided by the α of the first), then I from the new free ions.
+    let next = speciate(b, totals, freeAnions(st, k), free);
+    next = speciate(b, totals, freeAnionsOf(b, next, st.hco3, st.co3, ohT), next);
+    let g = ctx.plan.iterate
+      ? pairedIonicStrengthTerms(b, next, freeAnionsOf(b, next, st.hco3, st.co3, ohT)) +
+        0.5 * (ctx.ionsMolKg.cl + st.h * k.freeHFactor)
+      : I;
     const moved =
       changed(free.ca, next.ca) ||
       changed(free.mg, next.mg) ||
@@ -226,12 +274,31 @@ function solveWithPairs<T>(
       changed(free.k, next.k) ||
       changed(free.so4, next.so4) ||
       changed(I, g);
-    if (!moved) return { k, result, passes: pass - 1, warnings: [] };
+    if (!moved) return { k: pc.finish(), result, passes: pass - 1, warnings: [] };
+    // The rest of the error then shrinks by one ratio λ per pass, every ion and I alike: λ is
+    // measured once from the first two plain steps, and each later step is stretched by λ/(1 − λ)
+    // toward the limit of that geometric series (a shared-rate Aitken extrapolation). The test
+    // above stays on the plain step, so the answer is a fixed point of the unaccelerated passes.
+    const d = stepSize(free, next, I, g);
+    if (lambda === 0 && dPrev !== 0) {
+      const r = d / dPrev;
+      lambda = r > 0 && r < 0.5 ? r : Number.NaN;
+    }
+    dPrev = d;
+    if (lambda > 0) {
+      const c = lambda / (1 - lambda);
+      const x = extrapolate(free, next, c);
+      const gx = g + c * (g - I);
+      if (x !== undefined && gx > 0) {
+        next = x;
+        g = gx;
+      }
+    }
     // A step can still land where the measured pair has no solution; then halve it toward the last
     // speciation, which had one (8 times at most).
     for (let halving = 0; ; halving++) {
       try {
-        k = freshConstantsAt(cond, g, ctx, next);
+        k = pc.at(g, next);
         result = solveAt(k);
         break;
       } catch (e) {
@@ -244,7 +311,7 @@ function solveWithPairs<T>(
     I = g;
   }
   return {
-    k,
+    k: pc.finish(),
     result,
     passes: PAIR_MAX_PASSES,
     warnings: [
@@ -266,6 +333,26 @@ function halfway(a: FreeIons, b: FreeIons): FreeIons {
     k: (a.k + b.k) / 2,
     so4: (a.so4 + b.so4) / 2,
   };
+}
+
+/** Sum of the relative steps of the free ions and I: one number for the dominant mode of the iteration. */
+function stepSize(a: FreeIons, b: FreeIons, iA: number, iB: number): number {
+  const rel = (x: number, y: number): number => (y > 0 ? (y - x) / y : 0);
+  return (
+    rel(a.ca, b.ca) + rel(a.mg, b.mg) + rel(a.na, b.na) + rel(a.k, b.k) + rel(a.so4, b.so4) + rel(iA, iB)
+  );
+}
+
+/** b + c·(b − a) for every free ion, or undefined if one would not stay positive. */
+function extrapolate(a: FreeIons, b: FreeIons, c: number): FreeIons | undefined {
+  const x = {
+    ca: b.ca + c * (b.ca - a.ca),
+    mg: b.mg + c * (b.mg - a.mg),
+    na: b.na + c * (b.na - a.na),
+    k: b.k + c * (b.k - a.k),
+    so4: b.so4 + c * (b.so4 - a.so4),
+  };
+  return x.ca < 0 || x.mg < 0 || x.na < 0 || x.k < 0 || x.so4 < 0 ? undefined : x;
 }
 
 function changed(a: number, b: number): boolean {

@@ -225,3 +225,74 @@ describe('solved speciation', () => {
     expect(out(HARD_WELL).formulations.ion_pairs).toContain('Plummer & Busenberg 1982');
   });
 });
+
+describe("the pair iteration's residual", () => {
+  // Straight through the iteration, so the test reads the solved state and the constants it
+  // stopped at, not the rounded outputs: every balance it iterates must close at the end.
+  for (const [name, water, ta, dic] of [
+    ['gypsum spring', GYPSUM_SPRING, 4.4e-3, 4.9e-3],
+    ['hard well', HARD_WELL, 6e-3, 6.3e-3],
+  ] as const) {
+    it(`${name}: mass balances and ionic strength close to 1e-9, constants are those of the last I`, async () => {
+      const { parseSolveInput } = await import('../../../src/chem/input');
+      const { freshContext } = await import('../../../src/chem/fresh/setup');
+      const { solveAtIonicStrength } = await import('../../../src/chem/fresh/solve-fresh');
+      const { solvePair } = await import('../../../src/chem/solver/pairs');
+      const { activityCoefficients } = await import('../../../src/chem/fresh/activity');
+      const { conditionalBetas } = await import('../../../src/chem/fresh/ion-pairs');
+      const ctx = freshContext(parseSolveInput({ ...water }));
+      expect(ctx.plan.method).toBe('major-ions');
+      const tC = water.temperature_c;
+      const cond = { temperatureC: tC, salinity: 0, pressureDbar: 0 };
+      const r = solveAtIonicStrength(
+        cond,
+        ctx,
+        (k) => solvePair('ta', ta, 'dic', dic, k, ctx.minor)[0]!,
+        (s) => s,
+      );
+      expect(r.warnings).toEqual([]);
+      // 5–9 passes (10–13 before): a pin on the method, not a timing.
+      expect(r.passes).toBeLessThanOrEqual(10);
+      const { k, result: s } = r;
+      const I = k.ionicStrength;
+      const tK = tC + T0_K;
+      const g = activityCoefficients(tC, I, 'davies', true);
+      const b = conditionalBetas(pairLogK(tK, logKwHarnedOwen1958(tK)), g);
+      for (const key of Object.keys(b) as (keyof typeof b)[]) {
+        expect(Math.abs(k.pairs!.betas[key] / b[key] - 1)).toBeLessThan(1e-12);
+      }
+      const f = k.pairs!.free;
+      const ohTotal = k.kw / s.h;
+      const hco3 = s.hco3 / (1 + b.caHco3 * f.ca + b.mgHco3 * f.mg + b.naHco3 * f.na);
+      const co3 = s.co3 / (1 + b.caCo3 * f.ca + b.mgCo3 * f.mg + b.naCo3 * f.na);
+      const oh = ohTotal / (1 + b.caOh * f.ca + b.mgOh * f.mg);
+      const m = ctx.ionsMolKg;
+      const rel = (a: number, t: number): number => Math.abs(a - t) / t;
+      const caPairs = b.caHco3 * hco3 + b.caCo3 * co3 + b.caSo4 * f.so4 + b.caOh * oh;
+      const mgPairs = b.mgHco3 * hco3 + b.mgCo3 * co3 + b.mgSo4 * f.so4 + b.mgOh * oh;
+      expect(rel(f.ca * (1 + caPairs), ctx.calciumMolKg!)).toBeLessThan(1e-9);
+      expect(rel(f.mg * (1 + mgPairs), ctx.magnesiumMolKg!)).toBeLessThan(1e-9);
+      expect(rel(f.na * (1 + b.naHco3 * hco3 + b.naCo3 * co3 + b.naSo4 * f.so4), m.na)).toBeLessThan(1e-9);
+      expect(rel(f.k * (1 + b.kSo4 * f.so4), m.k)).toBeLessThan(1e-9);
+      const so4Pairs = b.caSo4 * f.ca + b.mgSo4 * f.mg + b.naSo4 * f.na + b.kSo4 * f.k;
+      expect(rel(f.so4 * (1 + so4Pairs), m.so4)).toBeLessThan(1e-9);
+      // The solver's totals are free anion plus its pairs.
+      expect(rel(hco3 * (1 + b.caHco3 * f.ca + b.mgHco3 * f.mg + b.naHco3 * f.na), s.hco3)).toBeLessThan(
+        1e-12,
+      );
+      // I = ½ Σ z² m over free ions, charged pairs (charge 1), Cl- and free H+, written out here.
+      const charged =
+        b.caHco3 * f.ca * hco3 +
+        b.caOh * f.ca * oh +
+        b.mgHco3 * f.mg * hco3 +
+        b.mgOh * f.mg * oh +
+        b.naCo3 * f.na * co3 +
+        b.naSo4 * f.na * f.so4 +
+        b.kSo4 * f.k * f.so4;
+      const iSpecies =
+        0.5 *
+        (4 * f.ca + 4 * f.mg + f.na + f.k + 4 * f.so4 + hco3 + 4 * co3 + oh + charged + m.cl + s.h / g.H);
+      expect(rel(iSpecies, I)).toBeLessThan(1e-9);
+    });
+  }
+});

@@ -166,25 +166,28 @@ export function hardnessMgLCaCO3(
   return (caMgL * M.CaCO3) / M.Ca + (mg * M.CaCO3) / M.Mg;
 }
 
-/** The same water brought to equilibrium with air: alkalinity kept, pCO₂ of air (engine request). */
-export function airEquilibriumInput(r: Rec, airPco2Uatm: number): SolveInput | undefined {
+/** Input keys of the carbonate system itself (any unit): replaced by the pair of the air state. */
+const CARBONATE_INPUT = /^(alkalinity_|dic_|ph$|pco2_|fco2_|co2_|hco3_|co3_)/;
+
+/**
+ * The same water at equilibrium with air: the reading's own request (the one request function,
+ * `src/reading/request.ts`, so model choice, ions, conductance and constants are the same), with
+ * its carbonate measurements replaced by its alkalinity and the air's pCO2, at the result's
+ * temperature. Undefined when the result has no alkalinity.
+ */
+export function airEquilibriumInput(
+  request: SolveInput,
+  r: Rec,
+  airPco2Uatm: number,
+): SolveInput | undefined {
   const ta = num(r, 'alkalinity_umol_kg');
-  if (ta === undefined || r.model === undefined) return undefined;
-  const { t, s } = conditions(r);
-  const input: SolveInput = {
-    model: r.model as SolveInput['model'],
-    temperature_c: t,
-    alkalinity_umol_kg: ta,
-    pco2_uatm: airPco2Uatm,
-  };
-  if (r.model === 'saline') input.salinity = s;
-  else {
-    const i = num(r, 'ionic_strength_mol_kg');
-    if (i !== undefined) input.ionic_strength_mol_kg = i;
-    const totals = (r.totals_umol_kg ?? {}) as Rec;
-    const ca = num(totals, 'calcium');
-    if (ca !== undefined && ca > 0) input.calcium_umol_kg = ca;
-  }
+  if (ta === undefined) return undefined;
+  const input: SolveInput = {};
+  for (const [k, v] of Object.entries(request))
+    if (!CARBONATE_INPUT.test(k) && k !== 'uncertainty' && k !== 'output_temperature_c') input[k] = v;
+  input.temperature_c = conditions(r).t;
+  input.alkalinity_umol_kg = ta;
+  input.pco2_uatm = airPco2Uatm;
   return input;
 }
 

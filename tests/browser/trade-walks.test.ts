@@ -159,7 +159,8 @@ for (const size of SIZES) {
           }));
           const site = { kind: walk.kind, defaults: { model: 'auto' } } as unknown as SiteDoc;
           const profile = siteProfile(site);
-          const expected = solve(readingRequest({ values }, site, DEFAULT_SETTINGS).input);
+          const request = readingRequest({ values }, site, DEFAULT_SETTINGS).input;
+          const expected = solve(request);
           if (isSolveError(expected)) throw new Error(JSON.stringify(expected.error));
           const record = expected as unknown as Record<string, unknown>;
           const alkUnit = values.find((v) => v.quantity === 'alkalinity')!.unit;
@@ -181,7 +182,7 @@ for (const size of SIZES) {
             ).toBe(h.unit ? ` ${h.unit}` : '');
           }
           if (walk.trade === 'field') {
-            const air = solve(airEquilibriumInput(record, DEFAULT_SETTINGS.atmospheric_pco2_uatm)!);
+            const air = solve(airEquilibriumInput(request, record, DEFAULT_SETTINGS.atmospheric_pco2_uatm)!);
             if (isSolveError(air)) throw new Error(JSON.stringify(air.error));
             const sentence = degassingSentence(record, air as unknown as Record<string, unknown>, (x, d) =>
               formatNumber(x, 'en-GB', { decimals: d }),

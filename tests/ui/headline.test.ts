@@ -30,25 +30,25 @@ describe('the answer first, in the trade’s units', () => {
     expect(by['omega-aragonite']!.value).toBe(r.omega_aragonite);
   });
   it('gives a hydrologist pCO2, log pCO2, DIC in mmol/L and mg C/L from the same result', () => {
-    const r = rec({
+    const request = {
       temperature_c: 11.2,
       ph: 7.21,
       alkalinity_meq_l: 4.6,
       specific_conductance_us_cm: 612,
       calcium_mg_l: 95,
       air_pco2_uatm: 420,
-    });
+    };
+    const r = rec(request);
     const rows = headlineRows(siteProfile({ kind: 'spring', defaults: {} }), r, [], 'meq_l');
     const by = Object.fromEntries(rows.map((x) => [x.id, x.value]));
     expect(by['log-pco2']).toBeCloseTo(Math.log10((r.pco2_uatm as number) / 1e6), 12);
     expect(by['dic-mg-c-l']! / by['dic-mmol-l']!).toBeCloseTo(12.011, 9); // IUPAC 2021, carbon
     expect(by['alkalinity-meq_l']).toBeCloseTo(4.6, 9);
-    const air = rec(airEquilibriumInput(r, 420)!);
+    const air = rec(airEquilibriumInput(request, r, 420)!);
     expect(air.pco2_uatm as number).toBeCloseTo(420, 6);
-    // The air solve keeps alkalinity and lands near the engine's pH at equilibrium with air. Not
-    // closer: the engine's figure keeps the sample's ion-pair speciation (src/chem/fresh/README.md),
-    // the full solve at air pCO2 re-speciates (0.045 pH apart for this hard spring water).
-    expect(Math.abs((air.ph as number) - (r.ph_air_equilibrium as number))).toBeLessThan(0.06);
+    // The air solve is the reading's own request with the air's pair, so it reaches the engine's pH
+    // at equilibrium with air (which keeps the sample's ion pairs: a few 1e-5 pH for this water).
+    expect(air.ph as number).toBeCloseTo(r.ph_air_equilibrium as number, 3);
     const s = degassingSentence(r, air, (x, d) => formatNumber(x, 'en-GB', { decimals: d }))!;
     expect(s).toMatch(
       /^Losing CO₂ to air, this water would reach pH 8\.7 and SI calcite \+1\.\d: expect calcite to precipitate downstream\.$/,

@@ -4,7 +4,7 @@
  */
 
 import { useEffect, useMemo, useRef, useState } from 'preact/hooks';
-import type { SolveResult } from '../../chem/api';
+import type { SolveInput, SolveResult } from '../../chem/api';
 import { isSolveError } from '../../chem/api';
 import type { Issue } from '../../chem/errors';
 import type { TitrateOutcome } from '../../chem/titration/titrate';
@@ -91,6 +91,7 @@ export function ReadingEntryScreen(props: { siteId?: string; readingId?: string 
   const [when, setWhen] = useState(() => toLocalInput(new Date()));
   const [notes, setNotes] = useState('');
   const [result, setResult] = useState<SolveResult>();
+  const [request, setRequest] = useState<SolveInput>();
   const [busy, setBusy] = useState(false);
   const [saveIssue, setSaveIssue] = useState<Issue>();
   const [loaded, setLoaded] = useState(false);
@@ -176,6 +177,7 @@ export function ReadingEntryScreen(props: { siteId?: string; readingId?: string 
       const reduced = request.titration;
       if (mine !== seq.current) return; // a newer keystroke won
       setToutcome(reduced);
+      setRequest(request.input);
       setResult(r);
       setBusy(false);
     }, 120);
@@ -417,7 +419,7 @@ export function ReadingEntryScreen(props: { siteId?: string; readingId?: string 
             <textarea rows={2} value={notes} onInput={(e) => setNotes(e.currentTarget.value)} />
           </label>
         </fieldset>
-        <ResultsPanel result={result} busy={busy} profile={profile} values={values} />
+        <ResultsPanel result={result} busy={busy} profile={profile} values={values} request={request} />
       </div>
       {saveIssue && (
         <p class="issue error" role="alert">

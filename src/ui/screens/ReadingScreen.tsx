@@ -225,6 +225,7 @@ export function ReadingScreen(props: { readingId: string }) {
           profile={siteProfile(site)}
           values={reading.values}
           daySwing={swing}
+          request={request?.input}
         />
         {request && <InputsUsed request={request} />}
       </section>

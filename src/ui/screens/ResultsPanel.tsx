@@ -5,7 +5,7 @@
  */
 
 import { useEffect, useState } from 'preact/hooks';
-import type { OutputUncertainty, SolveResult } from '../../chem/api';
+import type { OutputUncertainty, SolveInput, SolveResult } from '../../chem/api';
 import { isSolveError } from '../../chem/api';
 import type { Profile } from '../../quantities';
 import { quantityForKey } from '../../quantities';
@@ -45,13 +45,19 @@ export function ResultsPanel(props: {
   values?: MeasuredValue[];
   /** The pH range of the reading's day at this site (two readings or more). */
   daySwing?: { lo: number; hi: number; n: number } | undefined;
+  /** The engine request the result came from (the same water in air is solved from it). */
+  request?: SolveInput | undefined;
 }) {
   const { locale, settings } = useApp();
   const { result, profile } = props;
   const [air, setAir] = useState<Record<string, unknown>>();
   const airInput =
-    result && !isSolveError(result) && profile?.trade === 'field'
-      ? airEquilibriumInput(result as unknown as Record<string, unknown>, settings.atmospheric_pco2_uatm)
+    result && !isSolveError(result) && profile?.trade === 'field' && props.request
+      ? airEquilibriumInput(
+          props.request,
+          result as unknown as Record<string, unknown>,
+          settings.atmospheric_pco2_uatm,
+        )
       : undefined;
   const airKey = JSON.stringify(airInput ?? null);
   useEffect(() => {

@@ -145,7 +145,6 @@ export function PlanPanel({
     setProblem('problem' in r ? r.problem : undefined);
   };
   // A saved plan is shown again, computed now from this reading's request (its "before" is today's truth).
-  // biome-ignore lint/correctness/useExhaustiveDependencies: once, for the plan the panel opened with
   useEffect(() => {
     if (savedPlan) void runPlan(reading, form, trade, engine).then(showRun);
   }, []);

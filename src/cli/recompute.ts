@@ -12,8 +12,8 @@ import { solve } from '../chem/solve';
 import { csvField, csvRecord } from '../io/csv-write';
 import { COMPUTED_COLUMNS } from '../io/export-csv';
 import { formatNumber } from '../io/numbers';
-import { QUANTITIES } from '../io/quantities';
 import { formatWithOffset } from '../io/timestamps';
+import { QUANTITIES } from '../quantities';
 import { ByteOutput, type CliIo, EXIT_OK, EXIT_ROW_FAILED, EXIT_USAGE } from './io';
 import { openTable, TABLE_OPTIONS_HELP, tableDefaults, tableOption } from './table';
 

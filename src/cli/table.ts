@@ -16,8 +16,8 @@ import { CsvSplitter } from '../io/csv-records';
 import { rowReader } from '../io/import-plan';
 import { type RowIssue, rowIssue } from '../io/io-issues';
 import { parseNumber } from '../io/numbers';
-import { KEY_ORDER, quantityById } from '../io/quantities';
 import { isKnownTimeZone } from '../io/timestamps';
+import { KEY_ORDER, quantityById } from '../quantities';
 import { readingRequest } from '../reading/request';
 
 export interface TableOptions {

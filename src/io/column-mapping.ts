@@ -5,8 +5,8 @@
  */
 
 import type { PhScaleName } from '../chem/api';
+import { QUANTITIES, quantityById } from '../quantities';
 import { type RowIssue, rowIssue } from './io-issues';
-import { QUANTITIES, quantityById } from './quantities';
 import type { DateOrder } from './timestamps';
 
 export type ColumnRole =

@@ -6,11 +6,11 @@
  */
 
 import { isSolveError, type SolveResult } from '../chem/api';
+import { KEY_ORDER } from '../quantities';
 import { type ReadingRequest, type RequestSettings, readingRequest, sourcesText } from '../reading/request';
 import { safeTextCell, writeCsv } from './csv-write';
 import type { ReadingDoc, SiteDoc } from './docs';
 import { formatNumber } from './numbers';
-import { KEY_ORDER } from './quantities';
 import { siteDefaultsText } from './site-defaults-text';
 import { engineValues, type Solver } from './solve-input';
 import { formatWithOffset, isKnownTimeZone } from './timestamps';

@@ -4,6 +4,7 @@
  * in one transaction, and only when it has no errors.
  */
 
+import { quantityById, storedForm } from '../quantities';
 import { SITE_KINDS } from '../store/schema';
 import type { ColumnMapping } from './column-mapping';
 import { checkMapping } from './column-mapping';
@@ -12,7 +13,6 @@ import type { ParsedCsv } from './csv-parse';
 import type { MeasuredValue, ReadingDoc, SiteDoc } from './docs';
 import { type RowIssue, rowIssue } from './io-issues';
 import { parseNumber } from './numbers';
-import { quantityById, storedForm } from './quantities';
 import { parseSiteDefaults } from './site-defaults-text';
 import { isKnownTimeZone, parseTimestamp } from './timestamps';
 

@@ -6,8 +6,8 @@
  */
 
 import type { PhScaleName } from '../chem/api';
+import { quantityById } from '../quantities';
 import type { ColumnMapping, ColumnRole } from './column-mapping';
-import { quantityById } from './quantities';
 import type { DateOrder } from './timestamps';
 
 export function roleToString(r: ColumnRole): string {

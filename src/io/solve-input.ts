@@ -5,8 +5,8 @@
  */
 
 import type { SolveInput, SolveResult } from '../chem/api';
+import { unitOf } from '../quantities';
 import type { ReadingDoc } from './docs';
-import { unitOf } from './quantities';
 
 export type Solver = (input: SolveInput) => SolveResult;
 

@@ -17,7 +17,7 @@ import type { Issue } from '../chem/errors';
 import { freshTitrationConstants } from '../chem/titration/reduceTitration';
 import { type TitrateOutcome, titrate } from '../chem/titration/titrate';
 import type { TitrationInput, TitrationMethod, TitrationResult } from '../chem/titration/types';
-import { unitOf } from '../io/quantities';
+import { unitOf } from '../quantities';
 import type { MeasuredValue, ReadingDoc, SiteDoc, TitrationRecord } from '../store/schema';
 import { DEFAULT_SETTINGS, type Settings } from '../store/settings';
 

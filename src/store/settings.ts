@@ -14,7 +14,7 @@ import {
 export type ThemeChoice = 'system' | 'light' | 'dark' | 'contrast';
 
 export interface Settings {
-  /** Preferred unit per quantity id (see `src/ui/quantities.ts`). */
+  /** Preferred unit per quantity id (see `src/quantities`). */
   units: Record<string, string>;
   carbonic_constants: CarbonicConstants;
   boron_total: BoronTotal;

@@ -1,12 +1,12 @@
 /**
  * What the team server accepts, generated from the app's own tables so the server and the app
- * cannot drift: quantities, units and physical limits from `src/io/quantities.ts` (the limits a
+ * cannot drift: quantities, units and physical limits from `src/quantities` (the limits a
  * CSV import already refuses), site kinds from the store schema, option names from the engine's
  * types. `designDoc()` turns them into the `_design/tufa-team` document `tufa team setup` writes.
  */
 
 import { BORON_TOTAL_CHOICES, CARBONIC_CONSTANT_CHOICES, MODEL_CHOICES, PH_SCALE_CHOICES } from '../chem/api';
-import { QUANTITIES } from '../io/quantities';
+import { QUANTITIES } from '../quantities';
 import { SITE_KINDS } from '../store/schema';
 import { ROLES } from './roles';
 import { validateSource } from './validate-source';

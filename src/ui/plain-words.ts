@@ -3,7 +3,7 @@
  * a user should read the quantity and unit they type in the form instead.
  */
 
-import { QUANTITIES } from '../io/quantities';
+import { QUANTITIES } from '../quantities';
 
 const KEY_WORDS: ReadonlyMap<string, string> = (() => {
   const m = new Map<string, string>();

@@ -4,10 +4,10 @@
  */
 
 import { describe, expect, it } from 'vitest';
+import { QUANTITIES as FORM_QUANTITIES } from '../../src/quantities';
 import { toCouch } from '../../src/sync/doc-codec';
 import { designDoc, quantityLimits, securityObject } from '../../src/team/doc-rules';
 import { roleOf, teamRefusal } from '../../src/team/roles';
-import { QUANTITIES as FORM_QUANTITIES } from '../../src/ui/quantities';
 
 type Validate = (n: unknown, o: unknown, u: unknown, s: unknown) => void;
 const validate = new Function(`return (${designDoc().validate_doc_update})`)() as Validate;
@@ -111,7 +111,7 @@ describe('shape', () => {
   it('refuses values outside the limits the import refuses, in the unit they are written in', () => {
     const hot = (value: number, unit: string) =>
       outcome(reading('anna', { values: [{ quantity: 'temperature', value, unit }] }), null, a);
-    // src/io/quantities.ts: temperature limits −10 to 150 °C, i.e. 14 to 302 °F.
+    // src/quantities: temperature limits −10 to 150 °C, i.e. 14 to 302 °F.
     expect(hot(150, 'c')).toBe('ok');
     expect(hot(302, 'f')).toBe('ok');
     expect(hot(303, 'f')).toMatch(/is 303, outside 14 to 302\./);

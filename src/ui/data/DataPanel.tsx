@@ -12,8 +12,8 @@ import { backupToJson, createBackup, parseBackup, restoreBackup } from '../../io
 import { type ColumnMapping, type ColumnRole, defaultMapping, layoutKey } from '../../io/column-mapping';
 import type { ImportReport, PreviewRow } from '../../io/import-commit';
 import { mappingFromRecord, mappingToRecord, roleFromString, roleToString } from '../../io/layout-memory';
-import { QUANTITIES } from '../../io/quantities';
 import { formatWithOffset } from '../../io/timestamps';
+import { QUANTITIES } from '../../quantities';
 import type { RequestSettings } from '../../reading/request';
 import { storeIssue } from '../../store/errors';
 import type { Repository } from '../../store/repository';

@@ -1,10 +1,10 @@
 /** Preferences (units, constants, pH scale, air pCO2, theme) and the state of on-device storage. */
 
 import { useEffect, useState } from 'preact/hooks';
+import { QUANTITIES } from '../../quantities';
 import type { Settings, ThemeChoice } from '../../store/settings';
 import { useApp } from '../app-context';
 import { formatNumber, parseDecimal } from '../numbers';
-import { QUANTITIES } from '../quantities';
 import {
   askPersistence,
   evictionWarning,

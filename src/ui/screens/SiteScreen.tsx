@@ -4,6 +4,7 @@
  */
 
 import { useEffect, useRef, useState } from 'preact/hooks';
+import { quantityById as quantity } from '../../quantities';
 import { storeIssue } from '../../store/errors';
 import type { ReadingDoc, SiteDoc } from '../../store/schema';
 import { teamRefusal } from '../../team/roles';
@@ -14,7 +15,6 @@ import type { TimeChart } from '../charts/time-chart';
 import { resultColumns, solveReadingsInWorker } from '../engine-client';
 import { formatDateTime, formatNumber } from '../numbers';
 import { OUTPUTS } from '../outputs';
-import { quantity } from '../quantities';
 import { go } from '../router';
 import { useTeamIdentity } from '../sync/TeamRole';
 import { kindLabel } from './SitesScreen';

@@ -1,6 +1,6 @@
 /** Which fields of the versions of a doc in conflict differ, and how each reads to a person. */
 
-import { quantityById, unitOf } from '../../io/quantities';
+import { quantityById, unitOf } from '../../quantities';
 import type { MeasuredValue, TufaDoc } from '../../store/schema';
 import { formatNumber } from '../numbers';
 

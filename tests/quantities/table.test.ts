@@ -1,13 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { QUANTITIES, quantityForKey } from '../../src/ui/quantities';
+import { QUANTITIES, quantityForKey } from '../../src/quantities';
 
-describe('measured quantities of the reading form', () => {
-  it('knows every pH unit id the importer writes', async () => {
-    const io = await import('../../src/io/quantities');
-    const ui = QUANTITIES.find((q) => q.id === 'ph')!.units.map((u) => u.id);
-    const imported = io.QUANTITIES.find((q) => q.id === 'ph')!.units.map((u) => u.id);
-    expect(ui.sort()).toEqual(imported.sort());
-  });
+describe('the one table of measured quantities', () => {
   it('finds the row an engine warning is about', () => {
     expect(quantityForKey('temperature_c')).toBe('temperature');
     expect(quantityForKey('alkalinity_mg_l_caco3')).toBe('alkalinity');

@@ -83,25 +83,36 @@ export function propagateUncertainty(
   const result: Record<string, OutputUncertainty> = {};
   for (const key of names) {
     const byInput = variance.get(key)!;
-    let total = 0;
-    let dominant = '';
-    let largest = -1;
-    const contributions: Record<string, number> = {};
-    for (const input of inputs) {
-      const v = byInput.get(input.name) ?? 0;
-      contributions[input.name] = Math.sqrt(v);
-      total += v;
-      if (v > largest) {
-        largest = v;
-        dominant = input.name;
-      }
-    }
-    // An output no input moves (e.g. a setting echoed back) has no dominant input.
-    result[key] = {
-      standard_uncertainty: Math.sqrt(total),
-      dominant_input: total > 0 ? dominant : 'none',
-      contributions,
-    };
+    result[key] = combineVariances(inputs, (name) => byInput.get(name) ?? 0);
   }
   return result;
+}
+
+/**
+ * One output's uncertainty from the variance each input contributes (uncorrelated inputs): the
+ * root of the sum, each contribution as a standard uncertainty, and the input that dominates.
+ */
+export function combineVariances(
+  inputs: readonly { name: string }[],
+  varianceOf: (name: string) => number,
+): OutputUncertainty {
+  let total = 0;
+  let dominant = '';
+  let largest = -1;
+  const contributions: Record<string, number> = {};
+  for (const { name } of inputs) {
+    const v = varianceOf(name);
+    contributions[name] = Math.sqrt(v);
+    total += v;
+    if (v > largest) {
+      largest = v;
+      dominant = name;
+    }
+  }
+  // An output no input moves (e.g. a setting echoed back) has no dominant input.
+  return {
+    standard_uncertainty: Math.sqrt(total),
+    dominant_input: total > 0 ? dominant : 'none',
+    contributions,
+  };
 }

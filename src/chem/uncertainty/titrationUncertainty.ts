@@ -16,6 +16,7 @@ import {
   type TitrationUncertaintyKey,
 } from '../titration/types';
 import {
+  combineVariances,
   type Evaluate,
   type OutputUncertainty,
   propagateUncertainty,
@@ -176,25 +177,10 @@ function mergeContributions(
   perInput: { inp: UncertainInput; variances: Record<string, number> }[],
 ): Record<string, OutputUncertainty> {
   for (const [key, entry] of Object.entries(result)) {
-    const contributions: Record<string, number> = {};
-    let total = 0;
-    let dominant = '';
-    let largest = -1;
-    for (const inp of inputs) {
-      const extra = perInput.find((x) => x.inp === inp);
-      const v = extra ? (extra.variances[key] ?? 0) : (entry.contributions[inp.name] ?? 0) ** 2;
-      contributions[inp.name] = Math.sqrt(v);
-      total += v;
-      if (v > largest) {
-        largest = v;
-        dominant = inp.name;
-      }
-    }
-    result[key] = {
-      standard_uncertainty: Math.sqrt(total),
-      dominant_input: total > 0 ? dominant : 'none',
-      contributions,
-    };
+    result[key] = combineVariances(inputs, (name) => {
+      const extra = perInput.find((x) => x.inp.name === name);
+      return extra ? (extra.variances[key] ?? 0) : (entry.contributions[name] ?? 0) ** 2;
+    });
   }
   return result;
 }

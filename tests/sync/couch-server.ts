@@ -11,7 +11,8 @@ import { join } from 'node:path';
 
 const BIN = join(process.cwd(), 'node_modules', 'pouchdb-server', 'bin', 'pouchdb-server');
 
-async function freePort(): Promise<number> {
+/** A port nothing listens on at 127.0.0.1 right now. */
+export async function freePort(): Promise<number> {
   return new Promise((resolve, reject) => {
     const s = createServer();
     s.once('error', reject);

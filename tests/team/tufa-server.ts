@@ -1,25 +1,13 @@
 /**
- * Starts `tufa server` (the real command, one Node process running tsx) on a free loopback port
+ * Starts `tufa server` (the real command, `bin/tufa.mjs`) on a free loopback port
  * and a temporary folder, so a test can kill it (SIGKILL) and start it again on the same data.
  */
 
 import { type ChildProcess, spawn } from 'node:child_process';
 import { mkdtempSync, rmSync } from 'node:fs';
-import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-
-export async function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const s = createServer();
-    s.once('error', reject);
-    s.listen(0, '127.0.0.1', () => {
-      const addr = s.address();
-      const port = typeof addr === 'object' && addr ? addr.port : 0;
-      s.close(() => resolve(port));
-    });
-  });
-}
+import { freePort } from '../sync/couch-server';
 
 export class TufaServer {
   private child: ChildProcess | undefined;

@@ -18,7 +18,7 @@ import { type RowIssue, rowIssue } from '../io/io-issues';
 import { parseNumber } from '../io/numbers';
 import { isKnownTimeZone } from '../io/timestamps';
 import { KEY_ORDER, quantityById } from '../quantities';
-import { readingRequest } from '../reading/request';
+import { readingRequest, typedValues } from '../reading/request';
 
 export interface TableOptions {
   delimiter?: Delimiter;
@@ -329,14 +329,7 @@ export async function openTable(
     const input: Record<string, unknown> = req.input;
     const sources = req.sources;
     // The measured values in engine keys, and the options their units imply (ph_scale), as typed.
-    const values: Record<string, number> = {};
-    const options: Record<string, string> = {};
-    for (const k in sources) {
-      if (sources[k] !== 'typed') continue;
-      const v = input[k];
-      if (typeof v === 'number') values[k] = v;
-      else if (typeof v === 'string') options[k] = v;
-    }
+    const { values, options } = typedValues(req);
     for (const [k, v] of sets) if (sources[k] !== 'typed' && sources[k] !== 'titration') input[k] = v;
     const passthrough: Record<string, string> = {};
     for (let e = 0; e < extras.length; e++) {

@@ -7,12 +7,18 @@
 
 import { isSolveError, type SolveResult } from '../chem/api';
 import { KEY_ORDER } from '../quantities';
-import { type ReadingRequest, type RequestSettings, readingRequest, sourcesText } from '../reading/request';
+import {
+  type ReadingRequest,
+  type RequestSettings,
+  readingRequest,
+  sourcesText,
+  typedValues,
+} from '../reading/request';
 import { safeTextCell, writeCsv } from './csv-write';
 import type { ReadingDoc, SiteDoc } from './docs';
 import { formatNumber } from './numbers';
 import { siteDefaultsText } from './site-defaults-text';
-import { engineValues, type Solver } from './solve-input';
+import type { Solver } from './solve-input';
 import { formatWithOffset, isKnownTimeZone } from './timestamps';
 
 /**
@@ -77,15 +83,15 @@ export function exportReadingsCsv(
     .sort((a, b) =>
       a.siteId === b.siteId ? a.takenAt.localeCompare(b.takenAt) : a.siteId.localeCompare(b.siteId),
     );
-  const converted = rows.map((r) => engineValues(r));
-  const present = new Set(converted.flatMap((c) => Object.keys(c.values)));
-  const valueKeys = KEY_ORDER.filter((k) => present.has(k));
-  const hasScale = present.has('ph');
-  const computing = options.results !== undefined || options.solve !== undefined;
   // Every reading's request comes from the one request function (src/reading/request.ts).
   const requests = rows.map(
     (r) => options.requests?.get(r.id) ?? readingRequest(r, byId.get(r.siteId), options.settings),
   );
+  const converted = requests.map(typedValues);
+  const present = new Set(converted.flatMap((c) => Object.keys(c.values)));
+  const valueKeys = KEY_ORDER.filter((k) => present.has(k));
+  const hasScale = present.has('ph');
+  const computing = options.results !== undefined || options.solve !== undefined;
   const resultOf = (r: ReadingDoc, i: number): SolveResult =>
     options.results
       ? (options.results.get(r.id) ?? {

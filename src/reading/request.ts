@@ -163,6 +163,25 @@ export function readingRequest(
   return out;
 }
 
+/**
+ * The reading's typed values in engine keys, and the options their units imply (`ph_scale`), read
+ * off its request: what the value columns of an export or a recompute show.
+ */
+export function typedValues(req: Pick<ReadingRequest, 'input' | 'sources'>): {
+  values: Record<string, number>;
+  options: Record<string, string>;
+} {
+  const values: Record<string, number> = {};
+  const options: Record<string, string> = {};
+  for (const k in req.sources) {
+    if (req.sources[k] !== 'typed') continue;
+    const v = req.input[k];
+    if (typeof v === 'number') values[k] = v;
+    else if (typeof v === 'string') options[k] = v;
+  }
+  return { values, options };
+}
+
 /** The request's input with its uncertainties, for a consumer that shows ± (the reading page). */
 export function withUncertainty(req: ReadingRequest): SolveInput {
   return { ...req.input, uncertainty: req.uncertainty };

@@ -7,8 +7,7 @@ import { exportReadingsCsv } from '../../src/io/export-csv';
 import { commitImport, previewImport, warningsFromResults } from '../../src/io/import-commit';
 import { planImport } from '../../src/io/import-plan';
 import { mappingFromRecord, mappingToRecord } from '../../src/io/layout-memory';
-import { engineValues } from '../../src/io/solve-input';
-import { readingRequest } from '../../src/reading/request';
+import { readingRequest, typedValues } from '../../src/reading/request';
 import { openRepository } from '../../src/store/repository';
 import type { ReadingDoc } from '../../src/store/schema';
 import { RepositoryStore } from '../../src/sync/repository-store';
@@ -76,7 +75,7 @@ describe('CSV import', () => {
       { quantity: 'conductance', value: 612, unit: 'us_cm' },
     ]);
     expect(rs[0]!.notes).toBe('clear; slight odour');
-    expect(engineValues(rs[0]!).values).toEqual({
+    expect(typedValues(readingRequest(rs[0]!, undefined)).values).toEqual({
       temperature_c: 9.4,
       ph: 7.21,
       alkalinity_meq_l: 5.12,
@@ -175,7 +174,7 @@ describe('CSV import', () => {
       { quantity: 'conductance', value: 1250, unit: 'us_cm' },
       { quantity: 'ph', value: 8.2, unit: 'total' },
     ]);
-    expect(engineValues(r!).options).toEqual({ ph_scale: 'total' });
+    expect(typedValues(readingRequest(r!, undefined)).options).toEqual({ ph_scale: 'total' });
   });
 
   it('asks for a site and a time column when the mapping has none', async () => {
